@@ -1,0 +1,187 @@
+#!/usr/bin/python3
+"""Writes headcheck's reader fixtures with ezdxf, an independent DXF writer (Debian python3-ezdxf).
+
+Scenario (invented): "Bay 2" of a fictional model-railway workshop, 48 ft x 30 ft, one riser west of the
+room, a 2" feed main to a cross main along the west wall, three 1-1/4"/1" branch lines with four heads each.
+Every version holds the same layout; the truth file records what ezdxf itself computes (world positions
+of every head through nested, rotated, mirrored references), so the reader is checked against another
+program's transform code. Usage: /usr/bin/python3 scripts/make-fixtures.py fixtures
+"""
+import json
+import math
+import sys
+from pathlib import Path
+
+import ezdxf
+
+FT = 12.0  # the drawing is in inches
+
+VERSIONS = {"R12": "AC1009", "R2000": "AC1015", "R2018": "AC1032"}
+
+
+def p(x, y):
+    return (x * FT, y * FT)
+
+
+def define_blocks(doc):
+    spk = doc.blocks.new("SPK", base_point=(0, 0))
+    spk.add_circle((0, 0), 3)
+    spk.add_line((-3, 0), (3, 0))
+    spk.add_attdef("K", (4, 4), dxfattribs={"height": 2}).dxf.text = "5.6"
+    pair = doc.blocks.new("SPK-PAIR", base_point=(6 * FT, 0))
+    for x in (0, 12 * FT):
+        ref = pair.add_blockref("SPK", (x, 0), dxfattribs={"layer": "0"})
+        ref.add_attrib("K", "5.6", (x + 4, 4))
+    riser = doc.blocks.new("RISER", base_point=(0, 0))
+    riser.add_circle((0, 0), 6)
+    riser.add_line((-6, -6), (6, 6))
+    riser.add_line((-6, 6), (6, -6))
+
+
+def polyline(msp, version, pts, layer, closed=False):
+    if version == "R12":
+        return msp.add_polyline2d(pts, close=closed, dxfattribs={"layer": layer})
+    return msp.add_lwpolyline(pts, close=closed, dxfattribs={"layer": layer})
+
+
+def head(msp, x, y, k="5.6", layer="FP-HEAD", **attribs):
+    ref = msp.add_blockref("SPK", p(x, y), dxfattribs={"layer": layer, **attribs})
+    ref.add_attrib("K", k, (p(x, y)[0] + 4, p(x, y)[1] + 4))
+    return ref
+
+
+def build(version):
+    doc = ezdxf.new(VERSIONS[version])
+    if version != "R12":
+        doc.header["$INSUNITS"] = 1
+    for name, color in [("FP-HEAD", 1), ("FP-PIPE", 5), ("A-WALL", 8), ("FP-SOURCE", 3),
+                        ("A-GRID", 9), ("A-ANNO-\u00d8", 7)]:
+        doc.layers.new(name, dxfattribs={"color": color})
+    define_blocks(doc)
+    msp = doc.modelspace()
+
+    # Room outline and a column grid in the background.
+    polyline(msp, version, [p(0, 0), p(48, 0), p(48, 30), p(0, 30)], "A-WALL", closed=True)
+    for gx in (0, 24, 48):
+        msp.add_line(p(gx, -4), p(gx, 34), dxfattribs={"layer": "A-GRID"})
+    msp.add_text("\u00d8 25 \u2013 Hinweis", dxfattribs={"layer": "A-ANNO-\u00d8", "height": 6, "insert": p(20, -3)})
+
+    # Source, feed main (meets the cross main mid-span: a T on its interior), cross main.
+    msp.add_blockref("RISER", p(-10, 15), dxfattribs={"layer": "FP-SOURCE"})
+    msp.add_line(p(-10, 15), p(2, 15), dxfattribs={"layer": "FP-PIPE"})
+    polyline(msp, version, [p(2, 5), p(2, 25)], "FP-PIPE")
+
+    # Branch line 1 (y = 5): one LINE, heads on its interior; one head rotated, one scaled.
+    msp.add_line(p(2, 5), p(42, 5), dxfattribs={"layer": "FP-PIPE"})
+    head(msp, 6, 5)
+    head(msp, 18, 5, rotation=90)
+    head(msp, 30, 5, xscale=2, yscale=2)
+    head(msp, 42, 5, k="8.0")
+    # Branch line 2 (y = 15): a polyline with a vertex at every head.
+    polyline(msp, version, [p(2, 15), p(6, 15), p(18, 15), p(30, 15), p(42, 15)], "FP-PIPE")
+    for x in (6, 18, 30):
+        head(msp, x, 15)
+    ref = head(msp, 42, 15)
+    ref.add_attrib("ELEV", "14", (p(42, 15)[0] + 4, p(42, 15)[1] - 4))
+    # Branch line 3 (y = 25): two heads in a nested pair block turned 180 degrees, two mirrored singles.
+    msp.add_line(p(2, 25), p(42, 25), dxfattribs={"layer": "FP-PIPE"})
+    msp.add_blockref("SPK-PAIR", p(24, 25), dxfattribs={"layer": "FP-HEAD", "rotation": 180})
+    head(msp, 6, 25, xscale=-1)
+    head(msp, 42, 25, yscale=-1)
+
+    # A head on no pipe, and a pipe crossing branch line 3 with no shared vertex (not a joint).
+    head(msp, 40, 10)
+    msp.add_line(p(36, 22), p(36, 28), dxfattribs={"layer": "FP-PIPE"})
+
+    # Size labels beside the pipes (ASCII and a non-ASCII fraction).
+    for text, x, y in [("2\u00bd\"", -5, 15.6), ("2\"", 2.6, 20), ("1-1/4\"", 24, 5.6), ("1 1/4\"", 24, 15.6), ("1\"", 12, 25.6)]:
+        msp.add_text(text, dxfattribs={"layer": "FP-PIPE", "height": 4, "insert": p(x, y)})
+    return doc
+
+
+def heads_in_world(doc):
+    """World position of every SPK reference, through nested references, as ezdxf computes them."""
+    out = []
+
+    def visit(entity, top_handle):
+        if entity.dxftype() != "INSERT":
+            return
+        if entity.dxf.name == "SPK":
+            ins = entity.dxf.insert
+            attribs = {a.dxf.tag.upper(): a.dxf.text for a in entity.attribs}
+            out.append({"handle": top_handle, "x": ins.x / FT, "y": ins.y / FT, "attributes": attribs})
+            return
+        for child in entity.virtual_entities():
+            visit(child, top_handle)
+
+    for e in doc.modelspace().query("INSERT"):
+        if e.dxf.layer == "FP-HEAD":
+            visit(e, e.dxf.handle)
+    return sorted(out, key=lambda h: (round(h["y"], 6), round(h["x"], 6)))
+
+
+def build_transforms():
+    """Block references nested three deep with base points, rotation, mirroring, scale and a MINSERT array."""
+    doc = ezdxf.new("AC1015")
+    doc.header["$INSUNITS"] = 2  # feet
+    head = doc.blocks.new("HD", base_point=(0.25, -0.5))
+    head.add_circle((0.25, -0.5), 0.2)
+    pair = doc.blocks.new("PAIR", base_point=(1, 1))
+    pair.add_blockref("HD", (1, 1), dxfattribs={"layer": "0"})
+    pair.add_blockref("HD", (4, 1), dxfattribs={"layer": "0", "rotation": 30, "xscale": -1})
+    quad = doc.blocks.new("QUAD", base_point=(0, 0))
+    quad.add_blockref("PAIR", (0, 0), dxfattribs={"layer": "0", "rotation": 90})
+    quad.add_blockref("PAIR", (10, 2), dxfattribs={"layer": "0", "xscale": 2, "yscale": -0.5})
+    msp = doc.modelspace()
+    msp.add_blockref("QUAD", (100, 50), dxfattribs={"layer": "HEADS", "rotation": 45, "xscale": 1.5, "yscale": 1.5})
+    msp.add_blockref("QUAD", (-20, 5), dxfattribs={"layer": "HEADS", "rotation": 200, "xscale": -1, "yscale": 1})
+    msp.add_blockref("HD", (7, 7), dxfattribs={"layer": "HEADS", "rotation": 15, "xscale": 3, "yscale": 2})
+    grid = msp.add_blockref("PAIR", (30, 30), dxfattribs={"layer": "HEADS", "rotation": 10})
+    grid.grid(size=(2, 3), spacing=(5, 8))  # 2 rows, 3 columns
+    return doc
+
+
+def transforms_truth(doc):
+    out = []
+
+    def visit(entity, top_handle):
+        if entity.dxftype() != "INSERT":
+            return
+        if entity.dxf.name == "HD":
+            ins = entity.dxf.insert
+            out.append({"handle": top_handle, "x": ins.x, "y": ins.y})
+            return
+        for child in entity.virtual_entities():
+            visit(child, top_handle)
+
+    for e in doc.modelspace().query("INSERT"):
+        for single in e.multi_insert():
+            visit(single, e.dxf.handle)
+    return sorted(out, key=lambda h: (round(h["x"], 6), round(h["y"], 6)))
+
+
+def main(out_dir):
+    out = Path(out_dir)
+    out.mkdir(parents=True, exist_ok=True)
+    truth = {"writer": f"ezdxf {ezdxf.__version__}", "units": "in", "versions": {}}
+    for version in VERSIONS:
+        doc = build(version)
+        name = f"bay2-{version.lower()}.dxf"
+        doc.saveas(out / name)
+        reread = ezdxf.readfile(out / name)
+        auditor = reread.audit()
+        truth["versions"][version] = {
+            "file": name,
+            "acadver": reread.dxfversion,
+            "auditErrors": len(auditor.errors),
+            "heads": heads_in_world(reread),
+            "layers": sorted(layer.dxf.name for layer in reread.layers),
+        }
+    tdoc = build_transforms()
+    tdoc.saveas(out / "transforms.dxf")
+    truth["transforms"] = {"file": "transforms.dxf", "heads": transforms_truth(ezdxf.readfile(out / "transforms.dxf"))}
+    (out / "bay2.truth.json").write_text(json.dumps(truth, indent=2, ensure_ascii=False) + "\n", encoding="utf-8")
+
+
+if __name__ == "__main__":
+    main(sys.argv[1] if len(sys.argv) > 1 else "fixtures")

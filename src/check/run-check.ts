@@ -1,0 +1,59 @@
+// The whole pipeline as one pure function: drawing bytes and settings in, every stage's result and the
+// report out. No file or process access: the CLI, batch workers and the browser all call this.
+
+import type { Settings } from '../config/settings.js';
+import { buildNetwork } from '../network/build-network.js';
+import type { Network } from '../network/types.js';
+import { buildReport, type Report } from '../outputs/json-report.js';
+import { formatterFor } from '../quantities/format.js';
+import type { UnitSystem } from '../quantities/convert.js';
+import { fail } from '../read/errors.js';
+import { planFromDrawing, type Plan } from '../read/plan.js';
+import { readDrawing } from '../read/read-drawing.js';
+import type { Drawing } from '../read/types.js';
+import { computeCoverage, type Coverage } from '../rules/coverage.js';
+import { resolveLimits, type Limits } from '../rules/limits.js';
+import { runRules } from '../rules/registry.js';
+import type { Finding } from '../rules/types.js';
+import { indexWalls } from '../rules/walls.js';
+
+export interface CheckInput {
+  bytes: Uint8Array;
+  /** Name of the drawing as the report states it. */
+  fileName: string;
+  /** SHA-256 of the bytes, hex (computed by the caller: Node crypto or Web Crypto). */
+  sha256: string;
+  settings: Settings;
+  reportUnits: UnitSystem;
+}
+
+export interface CheckResult {
+  drawing: Drawing;
+  plan: Plan;
+  network: Network;
+  coverage: Map<string, Coverage>;
+  limits: Limits;
+  findings: Finding[];
+  report: Report;
+}
+
+export function runCheck(input: CheckInput): CheckResult {
+  const { settings } = input;
+  const drawing = readDrawing(input.bytes, settings.units ? { units: settings.units } : {});
+  const plan = planFromDrawing(drawing, settings);
+  if (plan.heads.length === 0) {
+    const layers = plan.roles.heads.layers.length ? plan.roles.heads.layers.join(', ') : 'none chosen';
+    fail(`no sprinkler heads found (head layers: ${layers}); set "layers.heads" and "headBlocks" in the config`);
+  }
+  if (plan.sources.length === 0) {
+    const layers = plan.roles.source.layers.length ? plan.roles.source.layers.join(', ') : 'none chosen';
+    fail(`no water source found (source layers: ${layers}); draw the riser as a block or point and set "layers.source"`);
+  }
+  const network = buildNetwork(plan, settings);
+  const walls = indexWalls(plan.rooms, plan.walls);
+  const coverage = computeCoverage(plan.heads, network, walls);
+  const limits = resolveLimits(settings);
+  const findings = runRules({ plan, network, settings, limits, coverage, walls, fmt: formatterFor(input.reportUnits) });
+  const report = buildReport({ ...input, drawing, plan, network, coverage, limits, findings });
+  return { drawing, plan, network, coverage, limits, findings, report };
+}

@@ -1,0 +1,112 @@
+// The `headcheck` command line: parses options, reads files, runs the pure pipeline, writes outputs.
+// Exit codes per the contract: 0 checked and no error, 1 error findings, 2 unusable input or option.
+
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { Command, CommanderError, Option } from 'commander';
+import { runCheck } from '../check/run-check.js';
+import { parseSettingsText, type Settings, DEFAULT_SETTINGS } from '../config/settings.js';
+import { demoDrawing, DEMO_CONFIG } from '../demo/scenario.js';
+import { parseSettings } from '../config/settings.js';
+import type { UnitSystem } from '../quantities/convert.js';
+import { InputError } from '../read/errors.js';
+import { TOOL } from '../version.js';
+import { assertNotInput, readConfigText, readInputFile, sha256Hex, writeAllAtomically } from './files.js';
+import { describeLayers } from './layers-table.js';
+import { summaryLine } from './summary-line.js';
+
+interface CheckOptions {
+  config?: string;
+  json?: string;
+  dxf?: string;
+  html?: string;
+  units: UnitSystem;
+}
+
+function loadSettings(path: string | undefined): Settings {
+  return path ? parseSettingsText(readConfigText(path), path) : structuredClone(DEFAULT_SETTINGS);
+}
+
+/** Checks one drawing and writes the requested outputs; returns the exit code. */
+function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void): number {
+  for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
+  if (opts.dxf || opts.html) throw new InputError(`${opts.dxf ? '--dxf' : '--html'}: this version writes the JSON report only`);
+  const settings = loadSettings(opts.config);
+  const bytes = readInputFile(file);
+  const result = withFile(file, () => runCheck({ bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units }));
+  const files: { path: string; data: string }[] = [];
+  if (opts.json) files.push({ path: opts.json, data: `${JSON.stringify(result.report, null, 2)}\n` });
+  writeAllAtomically(files);
+  out(summaryLine(file, result.report));
+  return result.report.summary.pass ? 0 : 1;
+}
+
+/** Prefixes an InputError from the pipeline with the drawing's name. */
+function withFile<T>(file: string, fn: () => T): T {
+  try {
+    return fn();
+  } catch (err) {
+    if (err instanceof InputError && !err.message.startsWith(file)) throw new InputError(`${file}: ${err.message}`);
+    throw err;
+  }
+}
+
+export async function main(argv: string[], io = { out: (s: string) => process.stdout.write(`${s}\n`), err: (s: string) => process.stderr.write(`${s}\n`) }): Promise<number> {
+  let code = 0;
+  const program = new Command()
+    .name('headcheck')
+    .description('Screens fire-sprinkler layout drawings (DXF): spacing, coverage, design area and hydraulics.')
+    .version(TOOL.version)
+    .exitOverride()
+    .configureOutput({ writeOut: (s) => io.out(s.trimEnd()), writeErr: (s) => io.err(s.trimEnd()) });
+  const unitsOption = () => new Option('--units <system>', 'units of the report').choices(['us', 'si']).default('us');
+
+  program.command('check <drawing>')
+    .description('audit one drawing')
+    .option('--config <file>', 'config JSON')
+    .option('--json <file>', 'write the JSON report')
+    .option('--dxf <file>', 'write the annotated drawing')
+    .option('--html <file>', 'write the HTML report')
+    .addOption(unitsOption())
+    .action((drawing: string, opts: CheckOptions) => { code = checkCommand(drawing, opts, io.out); });
+
+  program.command('layers <drawing>')
+    .description('list layers, entity counts and the role each would get')
+    .option('--config <file>', 'config JSON')
+    .action((drawing: string, opts: { config?: string }) => {
+      const settings = loadSettings(opts.config);
+      const bytes = readInputFile(drawing);
+      io.out(withFile(drawing, () => describeLayers(bytes, settings)));
+    });
+
+  program.command('demo')
+    .description('build the bundled demo drawing and check it')
+    .option('--out <dir>', 'folder for the demo drawing and its reports', 'headcheck-demo')
+    .addOption(unitsOption())
+    .action((opts: { out: string; units: UnitSystem }) => {
+      mkdirSync(opts.out, { recursive: true });
+      const dxfPath = join(opts.out, 'demo-plan.dxf');
+      const configPath = join(opts.out, 'demo-plan.config.json');
+      writeAllAtomically([
+        { path: dxfPath, data: demoDrawing() },
+        { path: configPath, data: `${JSON.stringify(DEMO_CONFIG, null, 2)}\n` },
+      ]);
+      parseSettings(DEMO_CONFIG, configPath);
+      const verdict = checkCommand(dxfPath, { config: configPath, json: join(opts.out, 'demo-plan.json'), units: opts.units }, io.out);
+      io.out(`demo: drawing, config and report in ${opts.out}/ (the demo plan has planted findings; exit ${verdict} would be the check's verdict)`);
+      code = 0;
+    });
+
+  try {
+    await program.parseAsync(argv);
+    return code;
+  } catch (err) {
+    if (err instanceof CommanderError) return err.exitCode === 0 ? 0 : 2;
+    if (err instanceof InputError) {
+      io.err(`headcheck: ${err.message}`);
+      return 2;
+    }
+    io.err(`headcheck: internal error: ${err instanceof Error ? err.message : String(err)}`);
+    return 3;
+  }
+}

@@ -1,0 +1,57 @@
+// The bundled demo (an invented scenario): the ground-floor workshop of "Alder Row Makerspace", a fictional
+// ordinary-hazard (group 2) room of 96 ft × 58 ft with six branch lines, with a few findings planted on purpose.
+
+import type { Point } from '../geometry/point.js';
+import { DxfWriter } from './dxf-writer.js';
+
+const IN = 12; // drawn in inches
+const p = (x: number, y: number): Point => ({ x: x * IN, y: y * IN });
+
+/** Where the planted findings are, for the README and tests: the moved head and the extra head. */
+export const DEMO_PLANTED = {
+  movedHead: { from: p(78, 34), to: p(81, 34) },
+  extraHead: p(94, 54),
+} as const;
+
+/** The demo drawing as DXF text (R12, inches). */
+export function demoDrawing(): string {
+  const w = new DxfWriter(1)
+    .layer('A-WALL', 8).layer('A-GRID', 9).layer('A-FURN', 252).layer('FP-SPRK-HEAD', 1).layer('FP-PIPE', 5)
+    .layer('FP-PIPE-SIZE', 5).layer('FP-RISER', 3).layer('FP-REMOTE-AREA', 6);
+  w.block('SPK-PENDENT', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 4, b).line('0', { x: -4, y: 0 }, { x: 4, y: 0 }, b); });
+  w.block('RISER-POC', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 8, b).line('0', { x: -8, y: -8 }, { x: 8, y: 8 }, b); });
+  w.block('BENCH', { x: 0, y: 0 }, (b) => { w.polyline('0', [p(0, 0), p(8, 0), p(8, 3), p(0, 3)], true, b); });
+
+  // Architecture: room outline, column grid, benches.
+  w.polyline('A-WALL', [p(0, 0), p(96, 0), p(96, 58), p(0, 58)], true);
+  for (const x of [0, 24, 48, 72, 96]) w.line('A-GRID', p(x, -6), p(x, 64));
+  for (const [x, y] of [[10, 8], [30, 8], [50, 18], [70, 28], [20, 38], [60, 48]] as const) w.insert('A-FURN', 'BENCH', p(x, y));
+
+  // Riser west of the room, feed main to the middle of the cross main.
+  w.insert('FP-RISER', 'RISER-POC', p(-10, 29));
+  w.line('FP-PIPE', p(-10, 29), p(1.5, 29));
+  w.text('FP-PIPE-SIZE', p(-6, 29.6), 6, '3"');
+  w.polyline('FP-PIPE', [p(1.5, 4), p(1.5, 54)]);
+  w.text('FP-PIPE-SIZE', p(2.2, 40), 6, '2-1/2"');
+
+  // Six branch lines, heads 12 ft apart, lines 10 ft apart.
+  const lines = [4, 14, 24, 34, 44, 54];
+  for (const y of lines) {
+    const xs = [6, 18, 30, 42, 54, 66, 78, 90].map((x) => (y === 34 && x === 78 ? 81 : x));
+    if (y === 54) xs.push(94);
+    w.line('FP-PIPE', p(1.5, y), p(xs[xs.length - 1]!, y));
+    if (y !== 44) w.text('FP-PIPE-SIZE', p(12, y + 0.6), 5, y === 4 ? '1 1/4"' : '1-1/4"');
+    for (const x of xs) w.insert('FP-SPRK-HEAD', 'SPK-PENDENT', p(x, y), { attribs: [{ tag: 'K', value: '5.6' }] });
+  }
+
+  // The designer's design area at the far end.
+  w.polyline('FP-REMOTE-AREA', [p(52, 25), p(96, 25), p(96, 58), p(52, 58)], true);
+  return w.toString();
+}
+
+/** The demo's config: ordinary hazard group 2 at 0.20 gpm/ft² over 1500 ft², a flow test at the riser. */
+export const DEMO_CONFIG = {
+  design: { hazard: 'OH2', density: 0.2, area: 1500, hoseAllowance: 250, systemType: 'wet', areaMode: 'both' },
+  defaults: { kFactor: 5.6, pipeSize: '1', cFactor: 120, schedule: '40', headElevation: 12, sourceElevation: 0 },
+  supply: { static: 75, residual: 62, flow: 1200 },
+} as const;

@@ -1,0 +1,44 @@
+// Gives each pipe stroke its nominal size from the nearest size label within reach; a label also sizes the
+// other strokes of the same drawn entity that have none of their own. Unlabelled strokes get no size here.
+
+import RBush from 'rbush';
+import { distanceToSegment, type Point } from '../geometry/point.js';
+import type { Stroke, TextItem } from '../read/types.js';
+import { parseSizeLabel, type NominalSize } from './pipe-sizes.js';
+
+interface Box { minX: number; minY: number; maxX: number; maxY: number; i: number }
+
+function distanceToStroke(p: Point, s: Stroke): number {
+  const pts = [s.a, ...s.via, s.b];
+  let d = Infinity;
+  for (let k = 1; k < pts.length; k++) d = Math.min(d, distanceToSegment(p, pts[k - 1]!, pts[k]!));
+  return d;
+}
+
+export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: number): (NominalSize | null)[] {
+  const index = new RBush<Box>();
+  index.load(strokes.map((s, i) => {
+    const xs = [s.a.x, s.b.x, ...s.via.map((v) => v.x)];
+    const ys = [s.a.y, s.b.y, ...s.via.map((v) => v.y)];
+    return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys), i };
+  }));
+  const own: (NominalSize | null)[] = strokes.map(() => null);
+  const ownDistance = strokes.map(() => Infinity);
+  for (const label of labels) {
+    const size = parseSizeLabel(label.text);
+    if (!size) continue;
+    // Measure from the label's insertion point and from a point half a text height above it (its middle).
+    const probes = [label.position, { x: label.position.x, y: label.position.y + label.height / 2 }];
+    let best = -1;
+    let bestD = Infinity;
+    const p = label.position;
+    for (const box of index.search({ minX: p.x - reach, minY: p.y - reach, maxX: p.x + reach, maxY: p.y + reach })) {
+      const d = Math.min(...probes.map((q) => distanceToStroke(q, strokes[box.i]!)));
+      if (d <= reach && d < bestD) { best = box.i; bestD = d; }
+    }
+    if (best >= 0 && bestD < ownDistance[best]!) { own[best] = size; ownDistance[best] = bestD; }
+  }
+  const byHandle = new Map<string, NominalSize>();
+  strokes.forEach((s, i) => { const v = own[i]; if (v && !byHandle.has(s.handle)) byHandle.set(s.handle, v); });
+  return strokes.map((s, i) => own[i] ?? byHandle.get(s.handle) ?? null);
+}

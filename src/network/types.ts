@@ -1,0 +1,69 @@
+// Plain data of the rebuilt piping network: nodes, pipes with sizes and roles, branch lines, topology,
+// and what could not be connected. Lengths in feet, diameters in inches.
+
+import type { Point } from '../geometry/point.js';
+import type { NominalSize } from './pipe-sizes.js';
+
+export type PipeRole = 'branch' | 'cross-main' | 'feed-main' | 'riser' | 'drop' | 'unknown';
+
+export interface NetNode {
+  id: string;
+  position: Point;
+  /** Head attached at this node, if any. */
+  headId?: string;
+  isSource: boolean;
+}
+
+export interface NetPipe {
+  id: string;
+  from: string;
+  to: string;
+  /** Handles of the drawn entities this pipe was built from. */
+  handles: string[];
+  /** Plan points from `from` to `to`. */
+  points: Point[];
+  length: number;
+  /** Direction changes along the pipe of more than 30° (elbows). */
+  bends: number;
+  nominalSize: NominalSize;
+  sizeFrom: 'label' | 'default';
+  innerDiameter: number;
+  cFactor: number;
+  role: PipeRole;
+  /** Index of the straight run the pipe belongs to. */
+  run: number;
+}
+
+export interface BranchLine {
+  id: string;
+  pipeIds: string[];
+  /** Heads on the line, ordered from the end nearest the feed outward. */
+  headIds: string[];
+  /** Unit vector along the line. */
+  direction: Point;
+  /** Nodes where the line meets a main. */
+  feedNodeIds: string[];
+}
+
+export type Topology = 'tree' | 'loop' | 'grid';
+
+export interface DisconnectedPart {
+  pipeIds: string[];
+  headIds: string[];
+  handles: string[];
+  at: Point;
+}
+
+export interface Network {
+  nodes: NetNode[];
+  pipes: NetPipe[];
+  branchLines: BranchLine[];
+  /** Head id to node id. */
+  headNode: Record<string, string>;
+  sourceNodeId: string | null;
+  topology: Topology;
+  /** Independent loops in the part fed from the source (pipes − nodes + 1). */
+  loops: number;
+  unattachedHeadIds: string[];
+  disconnected: DisconnectedPart[];
+}

@@ -1,0 +1,142 @@
+// The report JSON of the contract: every top-level key always present, values converted to the chosen
+// unit system, numbers rounded to a stated precision so reports are stable byte for byte.
+
+import type { Settings } from '../config/settings.js';
+import { LAYER_ROLES, type LayerRole } from '../config/settings.js';
+import type { Point } from '../geometry/point.js';
+import type { Network, PipeRole } from '../network/types.js';
+import { converterFor, REPORT_UNITS, type ReportUnits, type UnitSystem } from '../quantities/convert.js';
+import type { Plan } from '../read/plan.js';
+import type { Drawing } from '../read/types.js';
+import type { Coverage } from '../rules/coverage.js';
+import type { Limits } from '../rules/limits.js';
+import type { Finding, Quantity, Severity } from '../rules/types.js';
+import { TOOL } from '../version.js';
+import { CAUTION } from './caution.js';
+
+export interface ReportFinding {
+  rule: string;
+  severity: Severity;
+  message: string;
+  handles: string[];
+  at: { x: number; y: number };
+  measured: number | null;
+  limit: number | null;
+  reference: string;
+}
+
+export interface Report {
+  tool: { name: string; version: string };
+  input: {
+    file: string;
+    sha256: string;
+    drawingUnits: string;
+    layersUsed: Record<LayerRole, string[]>;
+    dxfVersion: string;
+    encoding: string;
+  };
+  units: ReportUnits;
+  heads: {
+    id: string; handle: string; x: number; y: number; kFactor: number; elevation: number;
+    coverage: { s: number | null; l: number | null; area: number | null }; branchLine: string | null;
+  }[];
+  pipes: {
+    id: string; handles: string[]; from: string; to: string; length: number; nominalSize: string;
+    innerDiameter: number; cFactor: number; role: PipeRole;
+  }[];
+  findings: ReportFinding[];
+  designAreas: unknown[];
+  summary: { heads: number; pipes: number; errors: number; warnings: number; pass: boolean };
+  network: { topology: string; loops: number; branchLines: { id: string; heads: string[]; pipes: string[] }[]; source: string | null };
+  layers: { role: LayerRole; layers: string[]; from: string; reason: string }[];
+  limits: { edition: string; hazardGroup: string; maxArea: number; maxSpacing: number; maxWallDistance: number; minWallDistance: number; minHeadDistance: number };
+  caution: string;
+}
+
+export interface ReportInput {
+  fileName: string;
+  sha256: string;
+  settings: Settings;
+  reportUnits: UnitSystem;
+  drawing: Drawing;
+  plan: Plan;
+  network: Network;
+  coverage: Map<string, Coverage>;
+  limits: Limits;
+  findings: Finding[];
+}
+
+/** Rounds to `digits` decimals, keeping -0 out of the output. */
+export const round = (v: number, digits = 4): number => {
+  const f = 10 ** digits;
+  const r = Math.round(v * f) / f;
+  return r === 0 ? 0 : r;
+};
+const roundOrNull = (v: number | null, digits = 4) => (v === null ? null : round(v, digits));
+
+export function buildReport(r: ReportInput): Report {
+  const c = converterFor(r.reportUnits);
+  const len = (v: number) => round(c.length(v));
+  const at = (p: Point) => ({ x: len(p.x), y: len(p.y) });
+  const headLine = new Map<string, string>();
+  for (const b of r.network.branchLines) for (const h of b.headIds) headLine.set(h, b.id);
+  const quantity = (q: Quantity, v: number | null): number | null => {
+    if (v === null) return null;
+    switch (q) {
+      case 'length': return round(c.length(v));
+      case 'area': return round(c.area(v));
+      case 'flow': return round(c.flow(v));
+      case 'pressure': return round(c.pressure(v));
+      default: return round(v);
+    }
+  };
+  const findings = r.findings.map((f) => ({
+    rule: f.rule, severity: f.severity, message: f.message, handles: f.handles, at: at(f.at),
+    measured: quantity(f.quantity, f.measured), limit: quantity(f.quantity, f.limit), reference: f.reference,
+  }));
+  const layersUsed = Object.fromEntries(LAYER_ROLES.map((role) => [role, r.plan.roles[role].layers])) as Record<LayerRole, string[]>;
+  return {
+    tool: { name: TOOL.name, version: TOOL.version },
+    input: {
+      file: r.fileName, sha256: r.sha256, drawingUnits: r.drawing.units, layersUsed,
+      dxfVersion: r.drawing.version, encoding: r.drawing.encoding,
+    },
+    units: REPORT_UNITS[r.reportUnits],
+    heads: r.plan.heads.map((h) => {
+      const cov = r.coverage.get(h.id);
+      return {
+        id: h.id, handle: h.handle, x: len(h.position.x), y: len(h.position.y), kFactor: round(c.kFactor(h.kFactor), 3),
+        elevation: len(h.elevation),
+        coverage: {
+          s: roundOrNull(cov?.s === undefined || cov.s === null ? null : c.length(cov.s)),
+          l: roundOrNull(cov?.l === undefined || cov.l === null ? null : c.length(cov.l)),
+          area: roundOrNull(cov?.area === undefined || cov.area === null ? null : c.area(cov.area)),
+        },
+        branchLine: headLine.get(h.id) ?? null,
+      };
+    }),
+    pipes: r.network.pipes.map((p) => ({
+      id: p.id, handles: p.handles, from: p.from, to: p.to, length: len(p.length), nominalSize: p.nominalSize,
+      innerDiameter: round(c.diameter(p.innerDiameter), 3), cFactor: p.cFactor, role: p.role,
+    })),
+    findings,
+    designAreas: [],
+    summary: {
+      heads: r.plan.heads.length, pipes: r.network.pipes.length,
+      errors: findings.filter((f) => f.severity === 'error').length,
+      warnings: findings.filter((f) => f.severity === 'warning').length,
+      pass: !findings.some((f) => f.severity === 'error'),
+    },
+    network: {
+      topology: r.network.topology, loops: r.network.loops, source: r.network.sourceNodeId,
+      branchLines: r.network.branchLines.map((b) => ({ id: b.id, heads: b.headIds, pipes: b.pipeIds })),
+    },
+    layers: LAYER_ROLES.map((role) => ({ role, ...r.plan.roles[role] })),
+    limits: {
+      edition: r.limits.edition, hazardGroup: r.limits.hazardGroup, maxArea: round(c.area(r.limits.maxArea)),
+      maxSpacing: len(r.limits.maxSpacing), maxWallDistance: len(r.limits.maxWallDistance),
+      minWallDistance: len(r.limits.minWallDistance), minHeadDistance: len(r.limits.minHeadDistance),
+    },
+    caution: CAUTION,
+  };
+}

@@ -1,0 +1,113 @@
+// Sorts a Drawing's content by role into a Plan: heads (with K-factor and elevation), pipe strokes,
+// walls and rooms, drawn design areas, water sources and pipe-size labels, all in feet and US units.
+
+import { compilePatterns } from '../config/patterns.js';
+import type { Settings } from '../config/settings.js';
+import type { Point } from '../geometry/point.js';
+import { KSI_PER_KUS, M_PER_FT } from '../quantities/convert.js';
+import { assignLayerRoles, type LayerRoles } from './layer-roles.js';
+import type { Drawing, Outline, Stroke, TextItem } from './types.js';
+
+/** What a head's attributes say about its kind; anything but standard spray has listed limits. */
+export type HeadKind = 'standard' | 'sidewall' | 'extended-coverage' | 'other';
+
+export interface Head {
+  id: string;
+  handle: string;
+  layer: string;
+  block: string;
+  position: Point;
+  kFactor: number;
+  elevation: number;
+  kind: HeadKind;
+  attributes: Record<string, string>;
+}
+
+export interface Source {
+  handle: string;
+  layer: string;
+  position: Point;
+}
+
+export interface Plan {
+  roles: LayerRoles;
+  heads: Head[];
+  pipes: Stroke[];
+  walls: Stroke[];
+  rooms: Outline[];
+  designAreas: Outline[];
+  sources: Source[];
+  labels: TextItem[];
+}
+
+/** Head-type attribute values (TYPE or HEADTYPE) and the kind they mean (common practice, no source). */
+function headKind(attributes: Record<string, string>): HeadKind {
+  const t = (attributes['TYPE'] ?? attributes['HEADTYPE'] ?? '').trim().toUpperCase();
+  if (t === '' || /^(STD|STANDARD|SSU|SSP|UPRIGHT|PENDENT|PENDANT|SPRAY)$/.test(t)) return 'standard';
+  if (/^(SW|SIDEWALL|HSW|VSW)/.test(t)) return 'sidewall';
+  if (/^(EC|EXT|EXTENDED)/.test(t)) return 'extended-coverage';
+  return 'other';
+}
+
+function attributeNumber(attributes: Record<string, string>, tag: string): number | undefined {
+  const raw = attributes[tag];
+  if (raw === undefined) return undefined;
+  const n = Number.parseFloat(raw.replace(',', '.'));
+  return Number.isFinite(n) ? n : undefined;
+}
+
+export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
+  const roles = assignLayerRoles(drawing, settings.layers);
+  const on = (role: keyof LayerRoles) => {
+    const set = new Set(roles[role].layers);
+    return (layer: string) => set.has(layer);
+  };
+  const onHeads = on('heads');
+  const onPipes = on('pipes');
+  const onWalls = on('walls');
+  const onArea = on('designArea');
+  const onSource = on('source');
+  const headBlock = compilePatterns(settings.headBlocks);
+  const si = settings.unitSystem === 'si';
+
+  const candidates = drawing.refs.filter((r) => onHeads(r.layer) && headBlock(r.block));
+  // A matching reference whose block holds further matching references is a group of heads, not a head.
+  const containers = new Set(candidates.filter((r) => r.hasNestedRefs).map((r) => r.block));
+  const isLeaf = (block: string) => !containers.has(block) || !candidates.some((c) => c.parents.at(-1) === block);
+  const heads: Head[] = candidates
+    .filter((r) => isLeaf(r.block))
+    .map((r, i) => {
+      const k = attributeNumber(r.attributes, 'K');
+      const elev = attributeNumber(r.attributes, 'ELEV');
+      return {
+        id: `H${i + 1}`,
+        handle: r.handle,
+        layer: r.layer,
+        block: r.block,
+        position: r.position,
+        kFactor: k === undefined ? settings.defaults.kFactor : si ? k / KSI_PER_KUS : k,
+        elevation: elev === undefined ? settings.defaults.headElevation : si ? elev / M_PER_FT : elev,
+        kind: headKind(r.attributes),
+        attributes: r.attributes,
+      };
+    });
+
+  const sources: Source[] = [
+    ...drawing.refs.filter((r) => onSource(r.layer) && r.parents.length === 0).map((r) => ({ handle: r.handle, layer: r.layer, position: r.position })),
+    ...drawing.points.filter((p) => onSource(p.layer)).map((p) => ({ handle: p.handle, layer: p.layer, position: p.position })),
+  ];
+  // Linework inside head and riser symbols is never pipe, even where they share the pipe layer.
+  const symbolHandles = new Set([...heads.map((h) => h.handle), ...sources.map((s) => s.handle)]);
+  const pipeLayers = new Set(roles.pipes.layers);
+  const labelLayer = (layer: string) => pipeLayers.has(layer) || /size|pipe|dim|text|anno/i.test(layer);
+  return {
+    roles,
+    heads,
+    pipes: drawing.strokes.filter((s) => onPipes(s.layer) && !symbolHandles.has(s.handle)),
+    walls: drawing.strokes.filter((s) => onWalls(s.layer)),
+    rooms: drawing.outlines.filter((o) => onWalls(o.layer)),
+    designAreas: drawing.outlines.filter((o) => onArea(o.layer)),
+    sources,
+    labels: drawing.texts.filter((t) => labelLayer(t.layer)),
+  };
+}

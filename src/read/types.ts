@@ -1,0 +1,84 @@
+// Plain data produced by the read stage: the drawing's model-space content in world coordinates (feet).
+// Every item keeps the handle of the top-level entity a reviewer would select in CAD.
+
+import type { Point } from '../geometry/point.js';
+
+/** Length units a drawing may be in. */
+export type LengthUnit = 'in' | 'ft' | 'mm' | 'cm' | 'm';
+
+/** A block reference after expansion, at any nesting depth. */
+export interface BlockRef {
+  handle: string;
+  /** Effective layer (a nested entity on layer 0 takes its parent reference's layer). */
+  layer: string;
+  block: string;
+  /** World position of the insertion point, feet. */
+  position: Point;
+  /** World rotation of the block's x axis, degrees. */
+  rotationDeg: number;
+  mirrored: boolean;
+  /** Attribute values by upper-case tag. */
+  attributes: Record<string, string>;
+  /** Block names from the top-level reference down to this one (empty for a top-level reference). */
+  parents: string[];
+  /** True when this reference's block itself contains block references. */
+  hasNestedRefs: boolean;
+}
+
+/** A straight or curved piece of linework, feet. Arcs carry sample points between their ends. */
+export interface Stroke {
+  handle: string;
+  layer: string;
+  type: string;
+  a: Point;
+  b: Point;
+  /** Interior points of a curved piece, in order from a to b (empty for a straight one). */
+  via: Point[];
+  /** True length along the piece. */
+  length: number;
+}
+
+/** A closed outline (closed polyline or circle), feet. */
+export interface Outline {
+  handle: string;
+  layer: string;
+  type: string;
+  points: Point[];
+}
+
+export interface TextItem {
+  handle: string;
+  layer: string;
+  position: Point;
+  /** Plain text, formatting codes removed. */
+  text: string;
+  height: number;
+}
+
+export interface PointItem {
+  handle: string;
+  layer: string;
+  position: Point;
+}
+
+export interface LayerSummary {
+  name: string;
+  /** Model-space entity counts by DXF type, block contents counted per reference. */
+  counts: Record<string, number>;
+}
+
+/** Everything the later stages read, independent of which layer plays which role. */
+export interface Drawing {
+  version: string;
+  units: LengthUnit;
+  /** Where the units came from. */
+  unitsFrom: 'config' | 'header';
+  encoding: string;
+  handseed: string | null;
+  layers: LayerSummary[];
+  refs: BlockRef[];
+  strokes: Stroke[];
+  outlines: Outline[];
+  texts: TextItem[];
+  points: PointItem[];
+}

@@ -1,0 +1,85 @@
+// Protection area of each head as S × L, the standard's own method: S the larger of the distances to the
+// next heads on the branch line (twice the wall distance for an end head), L likewise between branch lines.
+
+import { cross, dot, type Point } from '../geometry/point.js';
+import type { BranchLine, Network } from '../network/types.js';
+import type { Head } from '../read/plan.js';
+import type { Walls } from './walls.js';
+
+export interface Coverage {
+  headId: string;
+  branchLine: string;
+  /** Along the branch line, ft. */
+  s: number | null;
+  /** Across the branch lines, ft. */
+  l: number | null;
+  area: number | null;
+  /** Distances to walls along the line (both ways) for an end head, and across it for an outer line; null where a head or line is nearer. */
+  wallAlong: [number | null, number | null];
+  wallAcross: [number | null, number | null];
+  /** Neighbour distances along the line and to the adjacent lines, null where there is none. */
+  headAlong: [number | null, number | null];
+  lineAcross: [number | null, number | null];
+}
+
+/** How far to look for a wall or a neighbouring line, ft (common practice, no source). */
+const REACH_FT = 60;
+/** Lines are parallel within this angle (common practice, no source). */
+const PARALLEL_SIN = Math.sin((10 * Math.PI) / 180);
+
+export function computeCoverage(heads: Head[], network: Network, walls: Walls): Map<string, Coverage> {
+  const pos = new Map(heads.map((h) => [h.id, h.position]));
+  const out = new Map<string, Coverage>();
+  const lines = network.branchLines.filter((b) => b.headIds.length > 0);
+  for (const line of lines) {
+    const u = line.direction;
+    const v = { x: -u.y, y: u.x };
+    const along = line.headIds.map((id) => ({ id, t: dot(pos.get(id)!, u) })).sort((a, b) => a.t - b.t);
+    along.forEach(({ id, t }, i) => {
+      const p = pos.get(id)!;
+      const before = i > 0 ? t - along[i - 1]!.t : null;
+      const after = i + 1 < along.length ? along[i + 1]!.t - t : null;
+      const wallBack = before === null ? walls.along(p, { x: -u.x, y: -u.y }, REACH_FT) : null;
+      const wallFwd = after === null ? walls.along(p, u, REACH_FT) : null;
+      const [left, right] = adjacentLines(p, line, lines, pos, v);
+      const wallLeft = left === null ? walls.along(p, v, REACH_FT) : null;
+      const wallRight = right === null ? walls.along(p, { x: -v.x, y: -v.y }, REACH_FT) : null;
+      const s = maxOf(before, after, twice(wallBack), twice(wallFwd));
+      const l = maxOf(left, right, twice(wallLeft), twice(wallRight));
+      out.set(id, {
+        headId: id, branchLine: line.id, s, l, area: s !== null && l !== null ? s * l : null,
+        wallAlong: [wallBack, wallFwd], wallAcross: [wallLeft, wallRight], headAlong: [before, after], lineAcross: [left, right],
+      });
+    });
+  }
+  return out;
+}
+
+/** Perpendicular distance to the nearest parallel branch line on each side that spans the head's position. */
+function adjacentLines(p: Point, line: BranchLine, lines: BranchLine[], pos: Map<string, Point>, v: Point): [number | null, number | null] {
+  let left: number | null = null;
+  let right: number | null = null;
+  const u = line.direction;
+  const tp = dot(p, u);
+  for (const other of lines) {
+    if (other === line || Math.abs(cross(other.direction, u)) > PARALLEL_SIN) continue;
+    const pts = other.headIds.map((id) => pos.get(id)!);
+    const ts = pts.map((q) => dot(q, u));
+    const span = Math.max(...ts) - Math.min(...ts);
+    const slack = Math.max(span / Math.max(1, pts.length - 1), 1) * 0.75;
+    if (tp < Math.min(...ts) - slack || tp > Math.max(...ts) + slack) continue;
+    const offsets = pts.map((q) => dot({ x: q.x - p.x, y: q.y - p.y }, v));
+    const off = offsets.reduce((a, b) => a + b, 0) / offsets.length;
+    if (Math.abs(off) < 1e-6 || Math.abs(off) > REACH_FT) continue;
+    if (off > 0 && (left === null || off < left)) left = off;
+    if (off < 0 && (right === null || -off < right)) right = -off;
+  }
+  return [left, right];
+}
+
+const twice = (d: number | null) => (d === null ? null : 2 * d);
+function maxOf(...xs: (number | null)[]): number | null {
+  const v = xs.filter((x): x is number => x !== null);
+  return v.length ? Math.max(...v) : null;
+}
+

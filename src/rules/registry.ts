@@ -1,0 +1,26 @@
+// Every rule, in report order, and the one function that runs them all over a rule context.
+// Adding a rule means adding its module and one line here.
+
+import { headDistanceMin } from './head-distance-min.js';
+import { headOutsideRoom } from './head-outside-room.js';
+import { headSpacingMax } from './head-spacing-max.js';
+import { headTypeUnchecked } from './head-type-unchecked.js';
+import { headUnattached } from './head-unattached.js';
+import { lineSpacingMax } from './line-spacing-max.js';
+import { networkDisconnected } from './network-disconnected.js';
+import { networkTopology } from './network-topology.js';
+import { pipeSizeDefaulted } from './pipe-size-defaulted.js';
+import { protectionArea } from './protection-area.js';
+import { sourceUnattached } from './source-unattached.js';
+import type { Finding, Rule, RuleContext } from './types.js';
+import { wallDistanceMax } from './wall-distance-max.js';
+import { wallDistanceMin } from './wall-distance-min.js';
+
+export const RULES: readonly Rule[] = [
+  sourceUnattached, headUnattached, networkDisconnected, protectionArea, headSpacingMax, lineSpacingMax,
+  wallDistanceMax, wallDistanceMin, headDistanceMin, headOutsideRoom, headTypeUnchecked, pipeSizeDefaulted, networkTopology,
+];
+
+export function runRules(ctx: RuleContext, rules: readonly Rule[] = RULES): Finding[] {
+  return rules.flatMap((r) => r.check(ctx));
+}

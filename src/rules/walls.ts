@@ -1,0 +1,83 @@
+// Wall geometry for the rules: wall segments from room outlines and wall linework, a spatial index over
+// them, the nearest wall in a direction (a ray cast), the nearest wall at all, and the room a point is in.
+
+import RBush from 'rbush';
+import { cross, distanceToSegment, sub, type Point } from '../geometry/point.js';
+import type { Outline, Stroke } from '../read/types.js';
+
+interface WallBox { minX: number; minY: number; maxX: number; maxY: number; a: Point; b: Point }
+
+export interface Walls {
+  /** Distance from `p` to the first wall along unit direction `d`, or null within `maxRange`. */
+  along(p: Point, d: Point, maxRange: number): number | null;
+  /** Distance from `p` to the nearest wall within `maxRange`, or null. */
+  nearest(p: Point, maxRange: number): number | null;
+  /** The smallest room outline containing `p`, or null. */
+  roomOf(p: Point): Outline | null;
+  readonly count: number;
+}
+
+export function indexWalls(rooms: Outline[], strokes: Stroke[]): Walls {
+  const boxes: WallBox[] = [];
+  const add = (a: Point, b: Point) =>
+    boxes.push({ minX: Math.min(a.x, b.x), minY: Math.min(a.y, b.y), maxX: Math.max(a.x, b.x), maxY: Math.max(a.y, b.y), a, b });
+  for (const r of rooms) r.points.forEach((p, i) => add(p, r.points[(i + 1) % r.points.length]!));
+  for (const s of strokes) {
+    const pts = [s.a, ...s.via, s.b];
+    for (let k = 1; k < pts.length; k++) add(pts[k - 1]!, pts[k]!);
+  }
+  const tree = new RBush<WallBox>();
+  tree.load(boxes);
+  const roomsBySize = rooms.map((r) => ({ r, area: Math.abs(signedArea(r.points)) })).sort((x, y) => x.area - y.area);
+  return {
+    count: boxes.length,
+    along(p, d, maxRange) {
+      const q = { x: p.x + d.x * maxRange, y: p.y + d.y * maxRange };
+      let best: number | null = null;
+      for (const w of tree.search({ minX: Math.min(p.x, q.x), minY: Math.min(p.y, q.y), maxX: Math.max(p.x, q.x), maxY: Math.max(p.y, q.y) })) {
+        const t = rayHit(p, d, w.a, w.b);
+        if (t !== null && t <= maxRange && (best === null || t < best)) best = t;
+      }
+      return best;
+    },
+    nearest(p, maxRange) {
+      let best: number | null = null;
+      for (const w of tree.search({ minX: p.x - maxRange, minY: p.y - maxRange, maxX: p.x + maxRange, maxY: p.y + maxRange })) {
+        const dist = distanceToSegment(p, w.a, w.b);
+        if (dist <= maxRange && (best === null || dist < best)) best = dist;
+      }
+      return best;
+    },
+    roomOf(p) {
+      return roomsBySize.find(({ r }) => containsPoint(r.points, p))?.r ?? null;
+    },
+  };
+}
+
+/** Distance along the ray p + t·d (d unit) to segment a–b, or null when it misses. */
+function rayHit(p: Point, d: Point, a: Point, b: Point): number | null {
+  const e = sub(b, a);
+  const denom = cross(d, e);
+  if (Math.abs(denom) < 1e-12) return null;
+  const ap = sub(a, p);
+  const t = cross(ap, e) / denom;
+  const s = cross(ap, d) / denom;
+  return t >= 0 && s >= -1e-9 && s <= 1 + 1e-9 ? t : null;
+}
+
+export function signedArea(points: Point[]): number {
+  let s = 0;
+  for (let i = 0; i < points.length; i++) s += cross(points[i]!, points[(i + 1) % points.length]!);
+  return s / 2;
+}
+
+/** Even-odd point-in-polygon test. */
+export function containsPoint(points: Point[], p: Point): boolean {
+  let inside = false;
+  for (let i = 0, j = points.length - 1; i < points.length; j = i++) {
+    const a = points[i]!;
+    const b = points[j]!;
+    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) inside = !inside;
+  }
+  return inside;
+}

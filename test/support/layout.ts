@@ -1,0 +1,64 @@
+// Generates rectangular sprinkler layouts as DXF text for tests: a room, a riser, a cross main and
+// branch lines with heads at given spacings, optionally moved, turned and drawn in another unit.
+
+import type { Point } from '../../src/geometry/point.js';
+import { DxfWriter } from '../../src/demo/dxf-writer.js';
+
+export interface LayoutSpec {
+  /** Head spacing along the branch lines, ft. */
+  s: number;
+  /** Spacing between branch lines, ft. */
+  l: number;
+  heads: number;
+  lines: number;
+  /** Distance from the first/last head to the end walls, and from the outer lines to the side walls, ft. */
+  wallAlong?: number;
+  wallAcross?: number;
+  /** Extra heads at given plan points (ft, in the unturned frame); one on a branch line attaches to it. */
+  extraHeads?: Point[];
+  /** Moves and turns the whole drawing (ft, degrees). */
+  offset?: Point;
+  rotationDeg?: number;
+  /** Drawing unit and its $INSUNITS code. */
+  unit?: { perFoot: number; insunits: number };
+  /** Attributes added to every head. */
+  headAttribs?: { tag: string; value: string }[];
+}
+
+export function layoutDxf(spec: LayoutSpec): string {
+  const wa = spec.wallAlong ?? spec.s / 2;
+  const wc = spec.wallAcross ?? spec.l / 2;
+  const unit = spec.unit ?? { perFoot: 12, insunits: 1 };
+  const rot = ((spec.rotationDeg ?? 0) * Math.PI) / 180;
+  const off = spec.offset ?? { x: 0, y: 0 };
+  const tf = (x: number, y: number): Point => ({
+    x: (off.x + x * Math.cos(rot) - y * Math.sin(rot)) * unit.perFoot,
+    y: (off.y + x * Math.sin(rot) + y * Math.cos(rot)) * unit.perFoot,
+  });
+  const width = 2 * wa + (spec.heads - 1) * spec.s;
+  const height = 2 * wc + (spec.lines - 1) * spec.l;
+  const mainX = Math.min(1, wa / 2);
+  const w = new DxfWriter(unit.insunits);
+  w.block('HEAD', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.25 * unit.perFoot, b); });
+  w.block('RISER', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.5 * unit.perFoot, b); });
+  w.polyline('A-WALL', [tf(0, 0), tf(width, 0), tf(width, height), tf(0, height)], true);
+  const midY = wc + Math.floor((spec.lines - 1) / 2) * spec.l + spec.l / 2;
+  w.insert('FP-SOURCE', 'RISER', tf(-8, midY));
+  w.line('FP-PIPE', tf(-8, midY), tf(mainX, midY));
+  w.text('FP-PIPE', tf(-6, midY + 0.3), 0.5 * unit.perFoot, '3"');
+  w.line('FP-PIPE', tf(mainX, wc), tf(mainX, wc + (spec.lines - 1) * spec.l));
+  w.text('FP-PIPE', tf(mainX + 0.4, wc + spec.l / 3), 0.5 * unit.perFoot, '2"');
+  for (let j = 0; j < spec.lines; j++) {
+    const y = wc + j * spec.l;
+    const lastX = wa + (spec.heads - 1) * spec.s;
+    w.line('FP-PIPE', tf(mainX, y), tf(lastX, y));
+    w.text('FP-PIPE', tf((mainX + wa) / 2, y + 0.3), 0.5 * unit.perFoot, '1-1/4"');
+    for (let i = 0; i < spec.heads; i++) w.insert('FP-HEAD', 'HEAD', tf(wa + i * spec.s, y), { rotation: spec.rotationDeg ?? 0, attribs: spec.headAttribs ?? [] });
+  }
+  for (const e of spec.extraHeads ?? []) {
+    w.insert('FP-HEAD', 'HEAD', tf(e.x, e.y), { attribs: spec.headAttribs ?? [] });
+  }
+  return w.toString();
+}
+
+export const encode = (text: string): Uint8Array => new TextEncoder().encode(text);
