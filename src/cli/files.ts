@@ -44,11 +44,19 @@ export function writeAllAtomically(files: { path: string; data: string | Uint8Ar
       writeFileSync(tmp, f.data);
     }
   } catch (err) {
-    for (const t of temps) rmSync(t.tmp, { force: true });
+    for (const t of temps) removeQuietly(t.tmp);
     const code = (err as NodeJS.ErrnoException).code ?? 'error';
     throw new InputError(`${temps.at(-1)?.path ?? 'output'}: cannot be written (${code})`);
   }
   for (const t of temps) renameSync(t.tmp, t.path);
+}
+
+function removeQuietly(path: string): void {
+  try {
+    rmSync(path, { force: true });
+  } catch {
+    // the folder itself is unusable; nothing was written there
+  }
 }
 
 /** Reads and parses a JSON config file, naming it in errors. */

@@ -61,14 +61,17 @@ export class DxfWriter {
     return this;
   }
 
-  insert(layer: string, block: string, at: Point, opts: { rotation?: number; sx?: number; sy?: number; attribs?: AttribValue[] } = {}): this {
+  insert(
+    layer: string, block: string, at: Point,
+    opts: { rotation?: number; sx?: number; sy?: number; attribs?: AttribValue[]; into?: string[] } = {},
+  ): this {
     this.use(layer);
     const attribs = opts.attribs ?? [];
     const parts = [g(0, 'INSERT', 5, this.next(), 8, layer, ...(attribs.length ? [66, 1] : []), 2, block, 10, at.x, 20, at.y, 30, 0,
       41, opts.sx ?? 1, 42, opts.sy ?? 1, 50, opts.rotation ?? 0)];
     for (const a of attribs) parts.push(g(0, 'ATTRIB', 5, this.next(), 8, layer, 10, at.x, 20, at.y, 30, 0, 40, 1, 1, a.value, 2, a.tag, 70, 1));
     if (attribs.length) parts.push(g(0, 'SEQEND', 5, this.next(), 8, layer));
-    this.entities.push(parts.join(''));
+    (opts.into ?? this.entities).push(parts.join(''));
     return this;
   }
 

@@ -46,7 +46,8 @@ export function plainMText(s: string): string {
         // Stacked fraction: \S1/2; or \S1^2; or \S1#2;
         const end = s.indexOf(';', i);
         const body = end < 0 ? s.slice(i + 1) : s.slice(i + 1, end);
-        out += body.replace(/[\^#]/, '/');
+        // After a whole number the fraction reads as a mixed number: 1\S1/4; is "1 1/4".
+        out += (/\d$/.test(out) ? ' ' : '') + body.replace(/[\^#]/, '/');
         i = end < 0 ? s.length : end;
         break;
       }

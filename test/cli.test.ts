@@ -1,0 +1,159 @@
+// The command line as the contract fixes it: exit codes 0/1/2, a one-line message naming the file for
+// unusable input, no output file left behind, the input never modified, reports in US or SI units.
+
+import { spawnSync } from 'node:child_process';
+import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { main } from '../src/cli/main.js';
+import { layoutDxf } from './support/layout.js';
+
+async function run(...args: string[]) {
+  const out: string[] = [];
+  const err: string[] = [];
+  const code = await main(['node', 'headcheck', ...args], { out: (s) => out.push(s), err: (s) => err.push(s) });
+  return { code, out: out.join('\n'), err: err.join('\n') };
+}
+
+let dir: string;
+beforeAll(() => { dir = mkdtempSync(join(tmpdir(), 'hc-cli-')); });
+
+describe('headcheck check', () => {
+  it('checks an ezdxf-written drawing: exit 1 for its planted errors, a contract report', async () => {
+    const json = join(dir, 'bay2.json');
+    const r = await run('check', 'fixtures/bay2-r2000.dxf', '--json', json);
+    expect(r.code).toBe(1);
+    expect(r.out).toMatch(/FAIL: 13 heads/);
+    const report = JSON.parse(readFileSync(json, 'utf8'));
+    for (const key of ['tool', 'input', 'units', 'heads', 'pipes', 'findings', 'designAreas', 'summary']) expect(report).toHaveProperty(key);
+    expect(report.input.sha256).toMatch(/^[0-9a-f]{64}$/);
+    expect(report.input.drawingUnits).toBe('in');
+    expect(report.input.layersUsed.heads).toEqual(['FP-HEAD']);
+    expect(report.units).toEqual({ length: 'ft', area: 'ft2', flow: 'gpm', pressure: 'psi' });
+    expect(report.summary.pass).toBe(false);
+    expect(report.findings.map((f: { rule: string }) => f.rule)).toContain('head-unattached');
+    expect(report.caution).toMatch(/authority having jurisdiction/);
+  });
+
+  it('exits 0 on a clean layout', async () => {
+    const file = join(dir, 'clean.dxf');
+    writeFileSync(file, layoutDxf({ s: 12, l: 10, heads: 4, lines: 3 }));
+    const r = await run('check', file);
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+  });
+
+  it('reports in SI units with --units si (6 ft = 1.8288 m exactly)', async () => {
+    const json = join(dir, 'si.json');
+    await run('check', 'fixtures/bay2-r2018.dxf', '--json', json, '--units', 'si');
+    const report = JSON.parse(readFileSync(json, 'utf8'));
+    expect(report.units).toEqual({ length: 'm', area: 'm2', flow: 'L/min', pressure: 'bar' });
+    const h = report.heads.find((x: { x: number; y: number }) => Math.abs(x.x - 1.8288) < 1e-9);
+    expect(h.y).toBeCloseTo(5 * 0.3048, 9);
+    // K 5.6 gpm/psi^½ is 80.7 L/min/bar^½ (factor 14.4163, derived from gallon and psi definitions)
+    expect(h.kFactor).toBeCloseTo(80.731, 2);
+  });
+
+  const bad: [string, string | Uint8Array, RegExp][] = [
+    ['not-dxf.dxf', '%PDF-1.7 this is not a drawing', /not a DXF file/],
+    ['binary.dxf', new Uint8Array([...new TextEncoder().encode('AutoCAD Binary DXF\r\n'), 0x1a, 0, 1]), /binary DXF/],
+    ['empty.dxf', '', /empty/],
+    ['truncated.dxf', readFileSync('fixtures/bay2-r2000.dxf', 'latin1').slice(0, 9000), /truncated/],
+    ['r12-no-units.dxf', readFileSync('fixtures/bay2-r12.dxf', 'latin1'), /length unit/],
+  ];
+  it.each(bad)('%s: exit 2, one line naming the file, no output left', async (name, content, message) => {
+    const file = join(dir, name);
+    writeFileSync(file, content);
+    const json = join(dir, `${name}.json`);
+    const r = await run('check', file, '--json', json);
+    expect(r.code).toBe(2);
+    expect(r.err.split('\n')).toHaveLength(1);
+    expect(r.err).toContain(file);
+    expect(r.err).toMatch(message);
+    expect(existsSync(json)).toBe(false);
+  });
+
+  it('exit 2 for a drawing without heads and for one without a source', async () => {
+    const noHeads = join(dir, 'noheads.dxf');
+    writeFileSync(noHeads, layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }).replace(/FP-HEAD/g, 'A-FURN'));
+    const cfg = join(dir, 'heads.json');
+    writeFileSync(cfg, JSON.stringify({ layers: { heads: ['FP-HEAD'] } }));
+    expect((await run('check', noHeads, '--config', cfg)).err).toMatch(/no sprinkler heads found/);
+    const noSource = join(dir, 'nosource.dxf');
+    writeFileSync(noSource, layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }).replace(/FP-SOURCE/g, 'A-FURN'));
+    const r = await run('check', noSource, '--config', cfg);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/no water source found/);
+  });
+
+  it('exit 2 for a bad config, naming the file and the key', async () => {
+    const cfg = join(dir, 'bad.json');
+    writeFileSync(cfg, JSON.stringify({ design: { density: 'high' } }));
+    const r = await run('check', 'fixtures/bay2-r2000.dxf', '--config', cfg);
+    expect(r.code).toBe(2);
+    expect(r.err).toContain(cfg);
+    expect(r.err).toMatch(/"design.density" must be a number/);
+    writeFileSync(cfg, '{ not json');
+    expect((await run('check', 'fixtures/bay2-r2000.dxf', '--config', cfg)).err).toMatch(/not valid JSON/);
+    writeFileSync(cfg, JSON.stringify({ colour: 'red' }));
+    expect((await run('check', 'fixtures/bay2-r2000.dxf', '--config', cfg)).err).toMatch(/unknown key "colour"/);
+  });
+
+  it('exit 2 for a bad option, and refuses to write over the input', async () => {
+    expect((await run('check', 'fixtures/bay2-r2000.dxf', '--units', 'metric')).code).toBe(2);
+    const copy = join(dir, 'copy.dxf');
+    writeFileSync(copy, readFileSync('fixtures/bay2-r2000.dxf'));
+    const before = readFileSync(copy);
+    const r = await run('check', copy, '--json', copy);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/may not overwrite the input/);
+    expect(readFileSync(copy).equals(before)).toBe(true);
+  });
+
+  it('a write failure is exit 2 and leaves no partial file', async () => {
+    if (process.getuid?.() === 0) {
+      // root ignores permission bits: write into a path whose parent is a file instead
+      const r = await run('check', 'fixtures/bay2-r2000.dxf', '--json', join('fixtures/bay2-r2000.dxf', 'x.json'));
+      expect(r.code).toBe(2);
+      expect(r.err).toMatch(/cannot be written/);
+      return;
+    }
+    const ro = join(dir, 'ro');
+    mkdirSync(ro);
+    chmodSync(ro, 0o500);
+    const r = await run('check', 'fixtures/bay2-r2000.dxf', '--json', join(ro, 'x.json'));
+    expect(r.code).toBe(2);
+    expect(readdirSync(ro)).toEqual([]);
+  });
+});
+
+describe('headcheck layers and demo', () => {
+  it('lists layers with counts and roles', async () => {
+    const r = await run('layers', 'fixtures/bay2-r2018.dxf');
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/FP-HEAD\s+heads\s+CIRCLE 13, INSERT 14, LINE 13/);
+    expect(r.out).toMatch(/FP-PIPE\s+pipes/);
+    expect(r.out).toMatch(/A-ANNO-\u00d8/);
+  });
+
+  it('builds and checks the demo', async () => {
+    const out = join(dir, 'demo');
+    const r = await run('demo', '--out', out);
+    expect(r.code).toBe(0);
+    expect(readdirSync(out).sort()).toEqual(['demo-plan.config.json', 'demo-plan.dxf', 'demo-plan.json']);
+    const report = JSON.parse(readFileSync(join(out, 'demo-plan.json'), 'utf8'));
+    expect(report.summary.heads).toBe(49);
+  });
+});
+
+describe('the installed command', () => {
+  it('runs as a process and returns the contract exit code', () => {
+    const r = spawnSync(process.execPath, ['bin/headcheck.js', 'check', 'fixtures/bay2-r2000.dxf'], { encoding: 'utf8' });
+    expect(existsSync('dist/cli/main.js')).toBe(true);
+    expect(r.status).toBe(1);
+    const bad = spawnSync(process.execPath, ['bin/headcheck.js', 'check', 'package.json'], { encoding: 'utf8' });
+    expect(bad.status).toBe(2);
+    expect(bad.stderr.trim().split('\n')).toHaveLength(1);
+  });
+});
