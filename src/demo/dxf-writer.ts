@@ -96,4 +96,6 @@ function g(...pairs: (string | number)[]): string {
   return s;
 }
 
-const fmt = (v: number): string => (Number.isInteger(v) ? String(v) : v.toFixed(6).replace(/0+$/, '').replace(/\.$/, ''));
+/** Plain decimal notation with ten decimals at most (readers differ on exponents; ten keep 1e-10 units). */
+const fmt = (v: number): string =>
+  Number.isInteger(v) ? String(v) : Math.abs(v) < 1e-10 ? '0' : v.toFixed(10).replace(/0+$/, '').replace(/\.$/, '');
