@@ -21,6 +21,8 @@ export interface LayoutSpec {
   rotationDeg?: number;
   /** Drawing unit and its $INSUNITS code. */
   unit?: { perFoot: number; insunits: number };
+  /** Joins the far ends of the branch lines with a second cross main (a gridded system). */
+  gridded?: boolean;
   /** Attributes added to every head. */
   headAttribs?: { tag: string; value: string }[];
 }
@@ -50,10 +52,15 @@ export function layoutDxf(spec: LayoutSpec): string {
   w.text('FP-PIPE', tf(mainX + 0.4, wc + spec.l / 3), 0.5 * unit.perFoot, '2"');
   for (let j = 0; j < spec.lines; j++) {
     const y = wc + j * spec.l;
-    const lastX = wa + (spec.heads - 1) * spec.s;
+    const lastX = wa + (spec.heads - 1) * spec.s + (spec.gridded ? 1 : 0);
     w.line('FP-PIPE', tf(mainX, y), tf(lastX, y));
     w.text('FP-PIPE', tf((mainX + wa) / 2, y + 0.3), 0.5 * unit.perFoot, '1-1/4"');
     for (let i = 0; i < spec.heads; i++) w.insert('FP-HEAD', 'HEAD', tf(wa + i * spec.s, y), { rotation: spec.rotationDeg ?? 0, attribs: spec.headAttribs ?? [] });
+  }
+  if (spec.gridded) {
+    const farX = wa + (spec.heads - 1) * spec.s + 1;
+    w.line('FP-PIPE', tf(farX, wc), tf(farX, wc + (spec.lines - 1) * spec.l));
+    w.text('FP-PIPE', tf(farX + 0.4, wc + spec.l / 3), 0.5 * unit.perFoot, '2"');
   }
   for (const e of spec.extraHeads ?? []) {
     w.insert('FP-HEAD', 'HEAD', tf(e.x, e.y), { attribs: spec.headAttribs ?? [] });

@@ -1,0 +1,97 @@
+// The hydraulic calculation against hand-worked numbers and against EPANET (npm epanet-js), an
+// independent solver, on a tree and a grid, within the 1% the Hazen-Williams exponents allow (1.85 vs 1.852).
+
+import { describe, expect, it } from 'vitest';
+import { parseSettings } from '../config/settings.js';
+import { checkLayout } from '../../test/support/check.js';
+import { EPANET_PSI_PER_FT, solveWithEpanet } from '../../test/support/epanet.js';
+import { calculateArea } from './calculate.js';
+import { frictionPsiPerFt, resistance } from './hazen-williams.js';
+import { buildModel, type HydraulicModel } from './model.js';
+import { NetworkSolver } from './solver.js';
+import { availablePressure } from './water-supply.js';
+
+const onePipe = (): HydraulicModel => ({
+  nodes: [{ id: 'S', elevation: 0 }, { id: 'H', elevation: 0 }],
+  pipes: [{ id: 'P', from: 0, to: 1, length: 100, fittingsLength: 0, fittings: [], diameter: 1.049, c: 120, r: resistance(100, 120, 1.049) }],
+  emitters: [{ node: 1, headId: 'H1', k: 5.6, required: 7 }],
+  source: 0,
+  riser: { modelled: 'none', length: 0, nominalSize: '1' },
+});
+
+describe('Hazen-Williams and the supply curve', () => {
+  it('friction of 24 gpm in 1 in Schedule 40 at C 120: 4.52·24^1.85/(120^1.85·1.049^4.87) = 0.18233 psi/ft', () => {
+    // the formula as NFPA 13 (2019 edition) 28.2.2.1 gives it (confirmed), evaluated independently with
+    // Python's math module: 0.182334
+    expect(frictionPsiPerFt(24, 120, 1.049)).toBeCloseTo(0.182334, 5);
+  });
+  it('a flow test 80 static / 60 residual at 1000 gpm leaves 80 − 20·0.5^1.85 = 74.45 psi at 500 gpm (NFPA 291 form, confirmed)', () => {
+    expect(availablePressure({ static: 80, residual: 60, flow: 1000 }, 500)).toBeCloseTo(80 - 20 * 0.5 ** 1.85, 9);
+    expect(availablePressure({ static: 80, residual: 60, flow: 1000 }, 1000)).toBeCloseTo(60, 9);
+  });
+});
+
+describe('network solver', () => {
+  it('one 1 in pipe, 100 ft, C 120, K 5.6, source head 150 ft: 33.343 psi and 32.336 gpm (shared/TRADE.md, bisection with the NFPA formula)', () => {
+    const s = new NetworkSolver(onePipe()).solve(150 * EPANET_PSI_PER_FT);
+    expect(s.pressure[1]).toBeCloseTo(33.343, 2);
+    expect(s.emitterFlow[0]).toBeCloseTo(32.336, 2);
+  });
+
+  it('agrees with EPANET on the same pipe (EPANET measured 33.339 psi, 32.334 gpm; shared/TRADE.md)', async () => {
+    const e = await solveWithEpanet(onePipe(), 150 * EPANET_PSI_PER_FT);
+    expect(e.pressure.get('H')).toBeCloseTo(33.339, 2);
+    expect(e.emitterFlow.get('H1')).toBeCloseTo(32.334, 2);
+  });
+
+  it('a hand-worked two-head tree: end head at 18.37 psi, then upstream step by step', () => {
+    // Source —10 ft— H1 —12 ft— H2, 1 in Schedule 40 (1.049 in), C 120, K 5.6; no fittings, no elevation.
+    // Each head needs 0.20 gpm/ft² × 120 ft² = 24 gpm (density × protection area; common practice worked example).
+    const p2 = (24 / 5.6) ** 2; // 18.367 psi at the end head
+    const lossB = 12 * frictionPsiPerFt(24, 120, 1.049); // H1 → H2 carries 24 gpm
+    const p1 = p2 + lossB;
+    const q1 = 5.6 * Math.sqrt(p1); // H1 flows more than 24 gpm: it sees more pressure
+    const lossA = 10 * frictionPsiPerFt(24 + q1, 120, 1.049);
+    const pSource = p1 + lossA;
+    const model: HydraulicModel = {
+      nodes: [{ id: 'S', elevation: 0 }, { id: 'N1', elevation: 0 }, { id: 'N2', elevation: 0 }],
+      pipes: [
+        { id: 'A', from: 0, to: 1, length: 10, fittingsLength: 0, fittings: [], diameter: 1.049, c: 120, r: resistance(10, 120, 1.049) },
+        { id: 'B', from: 1, to: 2, length: 12, fittingsLength: 0, fittings: [], diameter: 1.049, c: 120, r: resistance(12, 120, 1.049) },
+      ],
+      emitters: [{ node: 1, headId: 'H1', k: 5.6, required: p2 }, { node: 2, headId: 'H2', k: 5.6, required: p2 }],
+      source: 0, riser: { modelled: 'none', length: 0, nominalSize: '1' },
+    };
+    const s = new NetworkSolver(model).solve(pSource);
+    expect(s.pressure[2]).toBeCloseTo(p2, 6);
+    expect(s.pressure[1]).toBeCloseTo(p1, 6);
+    expect(s.emitterFlow[0]).toBeCloseTo(q1, 6);
+    expect(s.flow[0]).toBeCloseTo(24 + q1, 6);
+    // the same steps evaluated independently in Python: 18.367 psi, 20.555 psi, 25.389 gpm, 27.485 psi at the source
+    expect([p2, p1, q1, pSource].map((v) => Number(v.toFixed(3)))).toEqual([18.367, 20.555, 25.389, 27.485]);
+  });
+});
+
+describe('design-area hydraulics against EPANET', () => {
+  const settings = parseSettings({ defaults: { headElevation: 0, sourceElevation: 0 }, design: { density: 0.2 } });
+  for (const gridded of [false, true]) {
+    it(`${gridded ? 'grid' : 'tree'}: source pressure and flow and every node pressure within 1%`, async () => {
+      const r = checkLayout({ s: 12, l: 10, heads: 5, lines: 4, gridded }, { defaults: { headElevation: 0, sourceElevation: 0 } });
+      expect(r.network.topology).toBe(gridded ? 'grid' : 'tree');
+      const flowing = r.plan.heads.map((h) => ({ head: h, required: Math.max(7, (0.2 * 120 / h.kFactor) ** 2) }));
+      const a = calculateArea(r.network, flowing, settings, 250);
+      const model = buildModel(r.network, flowing, settings);
+      const e = await solveWithEpanet(model, a.sourcePressure);
+      expect(e.sourceFlow).toBeGreaterThan(0);
+      expect(Math.abs(e.sourceFlow - a.sourceFlow) / a.sourceFlow).toBeLessThan(0.01);
+      const source = model.nodes[model.source]!.id; // a reservoir in EPANET, which reports no pressure there
+      for (const n of a.nodes.filter((x) => x.id !== source)) {
+        expect(Math.abs(e.pressure.get(n.id)! - n.pressure) / a.sourcePressure).toBeLessThan(0.01);
+      }
+      // the most demanding head is exactly at its requirement, every other one above it
+      const req = (0.2 * 120 / 5.6) ** 2;
+      const headPressures = a.nodes.filter((n) => n.flow > 0).map((n) => n.pressure);
+      expect(Math.min(...headPressures)).toBeCloseTo(req, 5);
+    });
+  }
+});

@@ -1,0 +1,48 @@
+// Runs a headcheck hydraulic model through EPANET (npm epanet-js, the OWA-EPANET 2.2 engine), an
+// independent network solver: heads as emitters q = C·p^0.5 with C = K, Hazen-Williams headloss.
+
+import { LinkProperty, NodeProperty, Project, Workspace } from 'epanet-js';
+import type { HydraulicModel } from '../../src/hydraulics/model.js';
+
+/** EPANET's own conversion between feet of water and psi (specific gravity 1). */
+export const EPANET_PSI_PER_FT = 0.4333;
+
+export interface EpanetResult {
+  pressure: Map<string, number>;
+  flow: Map<string, number>;
+  emitterFlow: Map<string, number>;
+  sourceFlow: number;
+}
+
+export async function solveWithEpanet(model: HydraulicModel, sourcePressure: number): Promise<EpanetResult> {
+  const name = (i: number) => `J${i}`;
+  const src = model.source;
+  const lines = ['[TITLE]', 'headcheck reference network', '', '[JUNCTIONS]'];
+  model.nodes.forEach((n, i) => { if (i !== src) lines.push(`${name(i)} ${n.elevation} 0`); });
+  lines.push('', '[RESERVOIRS]', `${name(src)} ${model.nodes[src]!.elevation + sourcePressure / EPANET_PSI_PER_FT}`, '', '[PIPES]');
+  model.pipes.forEach((p) => lines.push(`${p.id} ${name(p.from)} ${name(p.to)} ${p.length} ${p.diameter} ${p.c} 0 Open`));
+  lines.push('', '[EMITTERS]');
+  model.emitters.forEach((e) => lines.push(`${name(e.node)} ${e.k}`));
+  lines.push('', '[OPTIONS]', 'Units GPM', 'Headloss H-W', 'Accuracy 0.000001', 'Trials 500', 'Emitter Exponent 0.5', '', '[END]', '');
+  const ws = new Workspace();
+  await ws.loadModule();
+  const project = new Project(ws);
+  ws.writeFile('net.inp', lines.join('\n'));
+  project.open('net.inp', 'net.rpt', 'net.out');
+  project.solveH();
+  const pressure = new Map<string, number>();
+  const emitterFlow = new Map<string, number>();
+  model.nodes.forEach((n, i) => {
+    const idx = project.getNodeIndex(name(i));
+    pressure.set(n.id, project.getNodeValue(idx, NodeProperty.Pressure));
+  });
+  model.emitters.forEach((e) => {
+    const idx = project.getNodeIndex(name(e.node));
+    emitterFlow.set(e.headId, project.getNodeValue(idx, NodeProperty.Demand));
+  });
+  const flow = new Map<string, number>();
+  model.pipes.forEach((p) => flow.set(p.id, project.getLinkValue(project.getLinkIndex(p.id), LinkProperty.Flow)));
+  const sourceFlow = -project.getNodeValue(project.getNodeIndex(name(src)), NodeProperty.Demand);
+  project.close();
+  return { pressure, flow, emitterFlow, sourceFlow };
+}
