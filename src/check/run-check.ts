@@ -2,6 +2,7 @@
 // report out. No file or process access: the CLI, batch workers and the browser all call this.
 
 import type { Settings } from '../config/settings.js';
+import { evaluateDesignAreas, type DesignAreas } from '../design-area/evaluate.js';
 import { buildNetwork } from '../network/build-network.js';
 import type { Network } from '../network/types.js';
 import { buildReport, type Report } from '../outputs/json-report.js';
@@ -33,6 +34,7 @@ export interface CheckResult {
   network: Network;
   coverage: Map<string, Coverage>;
   limits: Limits;
+  design: DesignAreas;
   findings: Finding[];
   report: Report;
 }
@@ -53,7 +55,8 @@ export function runCheck(input: CheckInput): CheckResult {
   const walls = indexWalls(plan.rooms, plan.walls);
   const coverage = computeCoverage(plan.heads, network, walls);
   const limits = resolveLimits(settings);
-  const findings = runRules({ plan, network, settings, limits, coverage, walls, fmt: formatterFor(input.reportUnits) });
-  const report = buildReport({ ...input, drawing, plan, network, coverage, limits, findings });
-  return { drawing, plan, network, coverage, limits, findings, report };
+  const design = evaluateDesignAreas(plan, network, coverage, limits, settings);
+  const findings = runRules({ plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) });
+  const report = buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings });
+  return { drawing, plan, network, coverage, limits, design, findings, report };
 }

@@ -1,5 +1,5 @@
 // The bundled demo (an invented scenario): the ground-floor workshop of "Alder Row Makerspace", a fictional
-// ordinary-hazard (group 2) room of 96 ft × 58 ft with six branch lines, with a few findings planted on purpose.
+// ordinary-hazard (group 2) room of 96 ft × 58 ft with six branch lines, and a few findings planted on purpose.
 
 import type { Point } from '../geometry/point.js';
 import { DxfWriter } from './dxf-writer.js';
@@ -27,25 +27,29 @@ export function demoDrawing(): string {
   for (const x of [0, 24, 48, 72, 96]) w.line('A-GRID', p(x, -6), p(x, 64));
   for (const [x, y] of [[10, 8], [30, 8], [50, 18], [70, 28], [20, 38], [60, 48]] as const) w.insert('A-FURN', 'BENCH', p(x, y));
 
-  // Riser west of the room, feed main to the middle of the cross main.
+  // Riser west of the room, 4" feed main to the middle of the 3" cross main, and a capped stub at its top end
+  // (left unlabelled on purpose).
   w.insert('FP-RISER', 'RISER-POC', p(-10, 29));
   w.line('FP-PIPE', p(-10, 29), p(1.5, 29));
-  w.text('FP-PIPE-SIZE', p(-6, 29.6), 6, '3"');
+  w.text('FP-PIPE-SIZE', p(-6, 29.6), 6, '4"');
   w.polyline('FP-PIPE', [p(1.5, 4), p(1.5, 54)]);
-  w.text('FP-PIPE-SIZE', p(2.2, 40), 6, '2-1/2"');
+  w.text('FP-PIPE-SIZE', p(2.2, 40), 6, '3"');
+  w.line('FP-PIPE', p(1.5, 54), p(1.5, 57));
 
-  // Six branch lines, heads 12 ft apart, lines 10 ft apart.
+  // Six branch lines, heads 12 ft apart, lines 10 ft apart: 2" up to the fourth head, 1-1/2" beyond.
   const lines = [4, 14, 24, 34, 44, 54];
   for (const y of lines) {
     const xs = [6, 18, 30, 42, 54, 66, 78, 90].map((x) => (y === 34 && x === 78 ? 81 : x));
     if (y === 54) xs.push(94);
-    w.line('FP-PIPE', p(1.5, y), p(xs[xs.length - 1]!, y));
-    if (y !== 44) w.text('FP-PIPE-SIZE', p(12, y + 0.6), 5, y === 4 ? '1 1/4"' : '1-1/4"');
+    w.line('FP-PIPE', p(1.5, y), p(42, y));
+    w.text('FP-PIPE-SIZE', p(12, y + 0.6), 5, '2"');
+    w.line('FP-PIPE', p(42, y), p(xs[xs.length - 1]!, y));
+    w.text('FP-PIPE-SIZE', p(60, y + 0.6), 5, y === 14 ? '1 1/2"' : '1-1/2"');
     for (const x of xs) w.insert('FP-SPRK-HEAD', 'SPK-PENDENT', p(x, y), { attribs: [{ tag: 'K', value: '5.6' }] });
   }
 
   // The designer's design area at the far end.
-  w.polyline('FP-REMOTE-AREA', [p(52, 25), p(96, 25), p(96, 58), p(52, 58)], true);
+  w.polyline('FP-REMOTE-AREA', [p(50, 25), p(96, 25), p(96, 58), p(50, 58)], true);
   return w.toString();
 }
 

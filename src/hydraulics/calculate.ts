@@ -60,8 +60,9 @@ export function calculateArea(network: Network, flowing: FlowingHead[], settings
     let hi = lo + Math.max(1, -2 * flo.value);
     let fhi = slack(hi);
     while (fhi.value < 0 && solves < MAX_SOLVES) {
+      const width = hi - lo;
       lo = hi; flo = fhi;
-      hi = lo + 2 * (hi - lo) + 1;
+      hi = lo + 2 * width + 1;
       fhi = slack(hi);
     }
     // Illinois regula falsi on the bracket [lo, hi].

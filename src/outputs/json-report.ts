@@ -2,6 +2,7 @@
 // unit system, numbers rounded to a stated precision so reports are stable byte for byte.
 
 import type { Settings } from '../config/settings.js';
+import type { DesignAreas } from '../design-area/evaluate.js';
 import { LAYER_ROLES, type LayerRole } from '../config/settings.js';
 import type { Point } from '../geometry/point.js';
 import type { Network, PipeRole } from '../network/types.js';
@@ -45,12 +46,41 @@ export interface Report {
     innerDiameter: number; cFactor: number; role: PipeRole;
   }[];
   findings: ReportFinding[];
-  designAreas: unknown[];
+  designAreas: ReportDesignArea[];
+  design: {
+    hazard: string; density: number; area: number; baseArea: number; hoseAllowance: number; durationMinutes: number;
+    adjustments: string[]; basisFrom: string; minLength: number | null; headsAlong: number | null; totalHeads: number | null;
+    search: { candidates: number; evaluated: number; solves: number; pruned: boolean } | null;
+  };
   summary: { heads: number; pipes: number; errors: number; warnings: number; pass: boolean };
   network: { topology: string; loops: number; branchLines: { id: string; heads: string[]; pipes: string[] }[]; source: string | null };
   layers: { role: LayerRole; layers: string[]; from: string; reason: string }[];
   limits: { edition: string; hazardGroup: string; maxArea: number; maxSpacing: number; maxWallDistance: number; minWallDistance: number; minHeadDistance: number };
   caution: string;
+}
+
+export interface ReportDesignArea {
+  source: 'drawn' | 'search';
+  rank: 'most-demanding' | 'runner-up' | null;
+  density: number;
+  area: number;
+  minLength: number | null;
+  length: number;
+  width: number;
+  actualArea: number;
+  heads: string[];
+  headIds: string[];
+  branchLines: string[];
+  outline: { x: number; y: number }[];
+  handle: string | null;
+  note: string | null;
+  hydraulics: null | {
+    sourcePressure: number; sourceFlow: number; hoseAllowance: number; totalDemand: number;
+    supplyAvailable: number | null; margin: number | null; criticalHead: string;
+    riser: { modelled: string; length: number; nominalSize: string };
+    nodes: { id: string; pressure: number; flow: number; elevation: number }[];
+    pipes: { id: string; flow: number; velocity: number; frictionLoss: number; equivalentLength: number; fittings: string[] }[];
+  };
 }
 
 export interface ReportInput {
@@ -63,6 +93,7 @@ export interface ReportInput {
   network: Network;
   coverage: Map<string, Coverage>;
   limits: Limits;
+  design: DesignAreas;
   findings: Finding[];
 }
 
@@ -120,7 +151,14 @@ export function buildReport(r: ReportInput): Report {
       innerDiameter: round(c.diameter(p.innerDiameter), 3), cFactor: p.cFactor, role: p.role,
     })),
     findings,
-    designAreas: [],
+    designAreas: designAreasOf(r, c),
+    design: {
+      hazard: r.design.basis.hazard, density: round(c.density(r.design.basis.density), 5), area: round(c.area(r.design.basis.area)),
+      baseArea: round(c.area(r.design.basis.baseArea)), hoseAllowance: round(c.flow(r.design.basis.hoseAllowance)),
+      durationMinutes: r.design.basis.durationMinutes, adjustments: r.design.basis.adjustments, basisFrom: r.design.basis.source,
+      minLength: r.design.shape ? len(r.design.shape.minLength) : null, headsAlong: r.design.shape?.headsAlong ?? null,
+      totalHeads: r.design.shape?.totalHeads ?? null, search: r.design.search,
+    },
     summary: {
       heads: r.plan.heads.length, pipes: r.network.pipes.length,
       errors: findings.filter((f) => f.severity === 'error').length,
@@ -139,4 +177,31 @@ export function buildReport(r: ReportInput): Report {
     },
     caution: CAUTION,
   };
+}
+
+function designAreasOf(r: ReportInput, c: ReturnType<typeof converterFor>): ReportDesignArea[] {
+  const handleOf = new Map(r.plan.heads.map((h) => [h.id, h.handle]));
+  const basis = r.design.basis;
+  return r.design.areas.map((a) => {
+    const h = a.hydraulics;
+    return {
+      source: a.source, rank: a.rank, density: round(c.density(basis.density), 5), area: round(c.area(basis.area)),
+      minLength: r.design.shape ? round(c.length(r.design.shape.minLength)) : null,
+      length: round(c.length(a.length)), width: round(c.length(a.width)), actualArea: round(c.area(a.actualArea)),
+      heads: [...new Set(a.headIds.map((id) => handleOf.get(id)!))], headIds: a.headIds, branchLines: a.lineIds,
+      outline: a.outline.map((p) => ({ x: round(c.length(p.x)), y: round(c.length(p.y)) })), handle: a.handle, note: a.note,
+      hydraulics: h && {
+        sourcePressure: round(c.pressure(h.sourcePressure)), sourceFlow: round(c.flow(h.sourceFlow)),
+        hoseAllowance: round(c.flow(h.hoseAllowance)), totalDemand: round(c.flow(h.totalDemand)),
+        supplyAvailable: h.supplyAvailable === null ? null : round(c.pressure(h.supplyAvailable)),
+        margin: h.margin === null ? null : round(c.pressure(h.margin)), criticalHead: h.criticalHeadId,
+        riser: { modelled: h.riser.modelled, length: round(c.length(h.riser.length)), nominalSize: h.riser.nominalSize },
+        nodes: h.nodes.map((n) => ({ id: n.id, pressure: round(c.pressure(n.pressure)), flow: round(c.flow(n.flow)), elevation: round(c.length(n.elevation)) })),
+        pipes: h.pipes.map((p) => ({
+          id: p.id, flow: round(c.flow(p.flow)), velocity: round(c.velocity(p.velocity)), frictionLoss: round(c.pressure(p.frictionLoss)),
+          equivalentLength: round(c.length(p.length)), fittings: p.fittings,
+        })),
+      },
+    };
+  });
 }

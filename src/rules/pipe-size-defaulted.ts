@@ -18,7 +18,7 @@ export const pipeSizeDefaulted: Rule = {
     return [...byEntity.values()].map((pipes) => {
       const first = pipes[0]!;
       return finding(this.meta, {
-        message: `pipe ${pipes.map((p) => p.id).join(', ')} has no size label within ${fmt.length(settings.tolerances.sizeLabel)}; ${first.nominalSize}" assumed`,
+        message: `${pipes.length > 1 ? 'pipes' : 'pipe'} ${pipes.map((p) => p.id).join(', ')} ${pipes.length > 1 ? 'have' : 'has'} no size label within ${fmt.length(settings.tolerances.sizeLabel)}; ${first.nominalSize}" assumed`,
         handles: [...new Set(pipes.flatMap((p) => p.handles))], at: first.points[Math.floor(first.points.length / 2)]!,
         measured: pipes.length, quantity: 'count',
       });

@@ -1,6 +1,10 @@
 // Every rule, in report order, and the one function that runs them all over a rule context.
 // Adding a rule means adding its module and one line here.
 
+import { designAreaLength } from './design-area-length.js';
+import { designAreaMissing } from './design-area-missing.js';
+import { designAreaNotRemote } from './design-area-not-remote.js';
+import { designAreaSize } from './design-area-size.js';
 import { headDistanceMin } from './head-distance-min.js';
 import { headOutsideRoom } from './head-outside-room.js';
 import { headSpacingMax } from './head-spacing-max.js';
@@ -12,13 +16,15 @@ import { networkTopology } from './network-topology.js';
 import { pipeSizeDefaulted } from './pipe-size-defaulted.js';
 import { protectionArea } from './protection-area.js';
 import { sourceUnattached } from './source-unattached.js';
+import { supplyShort } from './supply-short.js';
 import type { Finding, Rule, RuleContext } from './types.js';
 import { wallDistanceMax } from './wall-distance-max.js';
 import { wallDistanceMin } from './wall-distance-min.js';
 
 export const RULES: readonly Rule[] = [
   sourceUnattached, headUnattached, networkDisconnected, protectionArea, headSpacingMax, lineSpacingMax,
-  wallDistanceMax, wallDistanceMin, headDistanceMin, headOutsideRoom, headTypeUnchecked, pipeSizeDefaulted, networkTopology,
+  wallDistanceMax, wallDistanceMin, headDistanceMin, headOutsideRoom, headTypeUnchecked, designAreaSize, designAreaLength,
+  designAreaNotRemote, supplyShort, designAreaMissing, pipeSizeDefaulted, networkTopology,
 ];
 
 export function runRules(ctx: RuleContext, rules: readonly Rule[] = RULES): Finding[] {

@@ -2,6 +2,7 @@
 // rebuilt plan. A finding's measured and limit values are internal units, named by `quantity`.
 
 import type { Settings } from '../config/settings.js';
+import type { DesignAreas } from '../design-area/evaluate.js';
 import type { Point } from '../geometry/point.js';
 import type { Network } from '../network/types.js';
 import type { Plan } from '../read/plan.js';
@@ -41,6 +42,8 @@ export interface RuleContext {
   limits: Limits;
   coverage: Map<string, Coverage>;
   walls: Walls;
+  /** Drawn and searched design areas with their hydraulics. */
+  design: DesignAreas;
   /** Formats values in the report's units for messages. */
   fmt: Formatter;
 }

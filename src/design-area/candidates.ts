@@ -1,0 +1,107 @@
+// Candidate design areas on the rebuilt network: for each family of parallel branch lines, each starting
+// line, each direction across the lines and each window along them, the heads the shape rules select.
+
+import { cross, dot, type Point } from '../geometry/point.js';
+import type { Network } from '../network/types.js';
+import type { Head } from '../read/plan.js';
+import type { Coverage } from '../rules/coverage.js';
+import { areaShape, type AreaShape } from './shape.js';
+
+export interface LineFamily {
+  /** Unit vector along the lines, and across them. */
+  u: Point;
+  v: Point;
+  /** Lines in order across the family. */
+  lines: { id: string; heads: { id: string; t: number }[]; feedT: number | null; offset: number }[];
+  spacing: number;
+  perHead: number;
+  shape: AreaShape;
+}
+
+export interface Candidate {
+  headIds: string[];
+  lineIds: string[];
+}
+
+const PARALLEL_SIN = Math.sin((10 * Math.PI) / 180);
+const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); return s.length ? s[Math.floor(s.length / 2)]! : NaN; };
+
+export function lineFamilies(network: Network, heads: Head[], coverage: Map<string, Coverage>, area: number): LineFamily[] {
+  const pos = new Map(heads.map((h) => [h.id, h.position]));
+  const nodePos = new Map(network.nodes.map((n) => [n.id, n.position]));
+  const families: LineFamily[] = [];
+  for (const line of network.branchLines.filter((b) => b.headIds.length)) {
+    let fam = families.find((f) => Math.abs(cross(f.u, line.direction)) <= PARALLEL_SIN);
+    if (!fam) {
+      const d = line.direction;
+      const u = d.x < -1e-12 || (Math.abs(d.x) <= 1e-12 && d.y < 0) ? { x: -d.x, y: -d.y } : d;
+      fam = { u, v: { x: -u.y, y: u.x }, lines: [], spacing: 0, perHead: 0, shape: areaShape(area, 1, 1) };
+      families.push(fam);
+    }
+    const f = fam;
+    const hs = line.headIds.map((id) => ({ id, t: dot(pos.get(id)!, f.u) })).sort((a, b) => a.t - b.t);
+    const feed = line.feedNodeIds[0];
+    f.lines.push({
+      id: line.id, heads: hs, feedT: feed ? dot(nodePos.get(feed)!, f.u) : null,
+      offset: hs.reduce((s, h) => s + dot(pos.get(h.id)!, f.v), 0) / hs.length,
+    });
+  }
+  for (const f of families) {
+    f.lines.sort((a, b) => a.offset - b.offset);
+    const ids = f.lines.flatMap((l) => l.heads.map((h) => h.id));
+    const along = ids.map((id) => coverage.get(id)?.s).filter((x): x is number => typeof x === 'number' && x > 0);
+    const areas = ids.map((id) => coverage.get(id)?.area).filter((x): x is number => typeof x === 'number' && x > 0);
+    f.spacing = median(along);
+    f.perHead = median(areas);
+    if (!(f.spacing > 0) || !(f.perHead > 0)) continue;
+    f.shape = areaShape(area, f.spacing, f.perHead);
+  }
+  return families.filter((f) => f.spacing > 0 && f.perHead > 0);
+}
+
+/**
+ * The heads a window selects, in the order the rules add them: whole lines first, then on the next line the
+ * heads nearest the cross main (its feed end). Keeps adding until `count` heads and `area` ft² are reached.
+ */
+export function selectHeads(
+  fam: LineFamily, start: number, dir: 1 | -1, t0: number, count: number, area: number, areaOf: (id: string) => number,
+): Candidate {
+  const lo = t0 - fam.spacing / 2;
+  const hi = t0 + (fam.shape.headsAlong - 0.5) * fam.spacing;
+  const headIds: string[] = [];
+  const lineIds: string[] = [];
+  let covered = 0;
+  for (let j = start; j >= 0 && j < fam.lines.length; j += dir) {
+    const line = fam.lines[j]!;
+    const inWindow = line.heads.filter((h) => h.t >= lo - 1e-9 && h.t < hi - 1e-9);
+    if (!inWindow.length) continue;
+    const feedT = line.feedT ?? Math.min(...line.heads.map((h) => h.t));
+    inWindow.sort((a, b) => Math.abs(a.t - feedT) - Math.abs(b.t - feedT));
+    lineIds.push(line.id);
+    for (const h of inWindow) {
+      if (headIds.length >= count && covered >= area - 1e-6) break;
+      headIds.push(h.id);
+      covered += areaOf(h.id);
+    }
+    if (headIds.length >= count && covered >= area - 1e-6) break;
+  }
+  return { headIds, lineIds };
+}
+
+/** Every distinct candidate area of a family. */
+export function candidatesOf(fam: LineFamily, areaOf: (id: string) => number, area: number): Candidate[] {
+  const seen = new Set<string>();
+  const out: Candidate[] = [];
+  const n = fam.shape.headsAlong;
+  fam.lines.forEach((line, k) => {
+    const starts = line.heads.length >= n ? line.heads.slice(0, line.heads.length - n + 1) : line.heads.slice(0, 1);
+    for (const dir of [1, -1] as const) {
+      for (const h of starts) {
+        const c = selectHeads(fam, k, dir, h.t, fam.shape.totalHeads, area, areaOf);
+        const key = [...c.headIds].sort().join(',');
+        if (c.headIds.length && !seen.has(key)) { seen.add(key); out.push(c); }
+      }
+    }
+  });
+  return out;
+}
