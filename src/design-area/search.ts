@@ -7,7 +7,7 @@ import { buildModel, type FlowingHead } from '../hydraulics/model.js';
 import { availablePressure } from '../hydraulics/water-supply.js';
 import type { Network } from '../network/types.js';
 import type { Candidate } from './candidates.js';
-import { treeBound } from './demand-bound.js';
+import { treeBound } from '../hydraulics/k-factor-walk.js';
 
 export interface ScoredArea {
   candidate: Candidate;
@@ -40,6 +40,7 @@ export function searchMostDemanding(
   const upper = candidates.map((c) => {
     if (!bound) return Infinity;
     const b = bound.bound(c.headIds);
+    if (!b) return Infinity;
     return supply ? b.pressure - availablePressure(supply, b.flow + hose) : b.pressure;
   });
   const order = candidates.map((_, i) => i).sort((a, b) => upper[b]! - upper[a]!);

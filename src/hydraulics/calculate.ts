@@ -4,6 +4,7 @@
 import type { Settings } from '../config/settings.js';
 import type { Network } from '../network/types.js';
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
+import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
 import { buildModel, type FlowingHead, type HydraulicModel } from './model.js';
 import { NetworkSolver, type FlowState } from './solver.js';
 import { availablePressure } from './water-supply.js';
@@ -19,6 +20,8 @@ export interface AreaHydraulics {
   nodes: { id: string; pressure: number; flow: number; elevation: number }[];
   pipes: { id: string; flow: number; velocity: number; frictionLoss: number; length: number; fittingsLength: number; fittings: string[] }[];
   riser: HydraulicModel['riser'];
+  /** The classic hand method (K-factor balancing at junctions) on tree systems, for comparison; null otherwise. */
+  handMethod: { sourcePressure: number; sourceFlow: number } | null;
   solves: number;
   iterations: number;
 }
@@ -85,6 +88,7 @@ export function calculateArea(network: Network, flowing: FlowingHead[], settings
   const totalDemand = sourceFlow + hoseAllowance;
   const supplyAvailable = settings.supply ? availablePressure(settings.supply, totalDemand) : null;
   const emitterAt = new Map(model.emitters.map((e, k) => [e.node, k]));
+  const hand = kFactorWalk(model, HAND_METHOD_EXPONENT)?.bound(model.emitters.map((e) => e.headId)) ?? null;
   return {
     sourcePressure: P, sourceFlow, hoseAllowance, totalDemand, supplyAvailable,
     margin: supplyAvailable === null ? null : supplyAvailable - P,
@@ -96,6 +100,6 @@ export function calculateArea(network: Network, flowing: FlowingHead[], settings
       id: p.id, flow: s.flow[k]!, velocity: velocityFtPerS(s.flow[k]!, p.diameter), frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
       length: p.length, fittingsLength: p.fittingsLength, fittings: p.fittings,
     })),
-    riser: model.riser, solves, iterations,
+    riser: model.riser, handMethod: hand && { sourcePressure: hand.pressure, sourceFlow: hand.flow }, solves, iterations,
   };
 }

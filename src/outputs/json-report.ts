@@ -78,6 +78,7 @@ export interface ReportDesignArea {
     sourcePressure: number; sourceFlow: number; hoseAllowance: number; totalDemand: number;
     supplyAvailable: number | null; margin: number | null; criticalHead: string;
     riser: { modelled: string; length: number; nominalSize: string };
+    handMethod: { sourcePressure: number; sourceFlow: number } | null;
     nodes: { id: string; pressure: number; flow: number; elevation: number }[];
     pipes: { id: string; flow: number; velocity: number; frictionLoss: number; equivalentLength: number; fittings: string[] }[];
   };
@@ -196,6 +197,7 @@ function designAreasOf(r: ReportInput, c: ReturnType<typeof converterFor>): Repo
         supplyAvailable: h.supplyAvailable === null ? null : round(c.pressure(h.supplyAvailable)),
         margin: h.margin === null ? null : round(c.pressure(h.margin)), criticalHead: h.criticalHeadId,
         riser: { modelled: h.riser.modelled, length: round(c.length(h.riser.length)), nominalSize: h.riser.nominalSize },
+        handMethod: h.handMethod && { sourcePressure: round(c.pressure(h.handMethod.sourcePressure)), sourceFlow: round(c.flow(h.handMethod.sourceFlow)) },
         nodes: h.nodes.map((n) => ({ id: n.id, pressure: round(c.pressure(n.pressure)), flow: round(c.flow(n.flow)), elevation: round(c.length(n.elevation)) })),
         pipes: h.pipes.map((p) => ({
           id: p.id, flow: round(c.flow(p.flow)), velocity: round(c.velocity(p.velocity)), frictionLoss: round(c.pressure(p.frictionLoss)),

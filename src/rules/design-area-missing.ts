@@ -14,6 +14,9 @@ export const designAreaMissing: Rule = {
         message: 'no design area is drawn (a closed polyline on the design-area layer): only the searched area is reported',
       }));
     }
+    if (settings.design.velocityPressure) {
+      out.push(finding(this.meta, { handles: [], at, message: 'velocity pressure is not modelled: total pressures are used at the heads (conservative)' }));
+    }
     for (const a of design.areas.filter((x) => !x.hydraulics)) {
       out.push(finding(this.meta, { severity: 'warning', message: `a ${a.source} design area was not calculated: ${a.note}`, handles: a.handle ? [a.handle] : [], at: a.outline[0] ?? at }));
     }

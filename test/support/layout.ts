@@ -23,6 +23,8 @@ export interface LayoutSpec {
   unit?: { perFoot: number; insunits: number };
   /** Joins the far ends of the branch lines with a second cross main (a gridded system). */
   gridded?: boolean;
+  /** A design area drawn on layer FP-AREA, as plan points (ft, in the unturned frame). */
+  drawnArea?: Point[];
   /** Attributes added to every head. */
   headAttribs?: { tag: string; value: string }[];
 }
@@ -62,6 +64,7 @@ export function layoutDxf(spec: LayoutSpec): string {
     w.line('FP-PIPE', tf(farX, wc), tf(farX, wc + (spec.lines - 1) * spec.l));
     w.text('FP-PIPE', tf(farX + 0.4, wc + spec.l / 3), 0.5 * unit.perFoot, '2"');
   }
+  if (spec.drawnArea) w.polyline('FP-AREA', spec.drawnArea.map((q) => tf(q.x, q.y)), true);
   for (const e of spec.extraHeads ?? []) {
     w.insert('FP-HEAD', 'HEAD', tf(e.x, e.y), { attribs: spec.headAttribs ?? [] });
   }

@@ -1,0 +1,141 @@
+// The design-area search: pruning by the upper bound never drops the true most demanding area or its
+// runner-up (property test against brute force); the shape rules place the remainder heads at the
+// cross-main end of the next line (common practice, shared/TRADE.md).
+
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { checkLayout, findingsOf } from '../../test/support/check.js';
+import { parseSettings } from '../config/settings.js';
+import { candidatesOf, lineFamilies } from './candidates.js';
+import { designBasis } from './design-basis.js';
+import { searchMostDemanding } from './search.js';
+import { treeBound } from '../hydraulics/k-factor-walk.js';
+import { buildModel } from '../hydraulics/model.js';
+import { calculateArea } from '../hydraulics/calculate.js';
+
+function searchBoth(spec: Parameters<typeof checkLayout>[0], config: Record<string, unknown>) {
+  const r = checkLayout(spec, config);
+  const settings = parseSettings(config);
+  const basis = designBasis(settings);
+  const areaOf = (id: string) => r.coverage.get(id)?.area ?? r.limits.maxArea;
+  const fam = lineFamilies(r.network, r.plan.heads, r.coverage, basis.area)[0]!;
+  const cands = candidatesOf(fam, areaOf, basis.area);
+  const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
+  const flowingOf = (ids: string[]) => ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, (basis.density * areaOf(id) / byId.get(id)!.kFactor) ** 2) }));
+  const pruned = searchMostDemanding(r.network, cands, flowingOf, settings, basis.hoseAllowance);
+  const brute = searchMostDemanding(r.network, cands, flowingOf, settings, basis.hoseAllowance, { prune: false });
+  return { pruned, brute, r };
+}
+
+describe('design-area search', () => {
+  it('pruning never drops the most demanding area or the runner-up (brute force on random trees)', () => {
+    fc.assert(fc.property(
+      fc.record({
+        s: fc.double({ min: 8, max: 13, noNaN: true }), l: fc.double({ min: 8, max: 12, noNaN: true }),
+        heads: fc.integer({ min: 3, max: 8 }), lines: fc.integer({ min: 2, max: 6 }),
+        area: fc.integer({ min: 300, max: 1500 }), supply: fc.boolean(),
+      }),
+      (p) => {
+        const config = {
+          design: { density: 0.2, area: p.area }, defaults: { headElevation: 10, sourceElevation: 0 },
+          ...(p.supply ? { supply: { static: 90, residual: 70, flow: 1000 } } : {}),
+        };
+        const { pruned, brute } = searchBoth({ s: p.s, l: p.l, heads: p.heads, lines: p.lines }, config);
+        expect(brute.evaluated).toBe(brute.candidates);
+        expect(pruned.best!.score).toBeCloseTo(brute.best!.score, 6);
+        if (brute.runnerUp) expect(pruned.runnerUp!.score).toBeCloseTo(brute.runnerUp.score, 6);
+        expect(pruned.evaluated).toBeLessThanOrEqual(brute.evaluated);
+      },
+    ), { numRuns: 25 });
+  });
+
+  it('the bound is never below the exact demand (every candidate of random trees)', () => {
+    fc.assert(fc.property(
+      fc.record({ s: fc.double({ min: 8, max: 13, noNaN: true }), heads: fc.integer({ min: 3, max: 7 }), lines: fc.integer({ min: 2, max: 5 }), area: fc.integer({ min: 300, max: 1500 }) }),
+      (p) => {
+        const config = { design: { density: 0.2, area: p.area } };
+        const r = checkLayout({ s: p.s, l: 10, heads: p.heads, lines: p.lines }, config);
+        const settings = parseSettings(config);
+        const basis = designBasis(settings);
+        const areaOf = (id: string) => r.coverage.get(id)!.area!;
+        const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
+        const flowingOf = (ids: string[]) => ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, (0.2 * areaOf(id) / 5.6) ** 2) }));
+        const bound = treeBound(buildModel(r.network, flowingOf(r.plan.heads.map((h) => h.id)), settings))!;
+        const fam = lineFamilies(r.network, r.plan.heads, r.coverage, basis.area)[0]!;
+        for (const c of candidatesOf(fam, areaOf, basis.area)) {
+          const exact = calculateArea(r.network, flowingOf(c.headIds), settings, 0);
+          const b = bound.bound(c.headIds)!;
+          expect(b.pressure).toBeGreaterThanOrEqual(exact.sourcePressure - 1e-6);
+          expect(b.flow).toBeGreaterThanOrEqual(exact.sourceFlow - 1e-6);
+          expect(b.pressure).toBeLessThan(exact.sourcePressure * 1.05); // and it is tight
+        }
+      },
+    ), { numRuns: 15 });
+  });
+
+  it('prunes on a larger tree: 10 lines of 12 heads, far fewer solves than candidates', () => {
+    const { pruned, brute } = searchBoth({ s: 12, l: 10, heads: 12, lines: 10 }, { design: { density: 0.2, area: 1500 } });
+    expect(pruned.best!.score).toBeCloseTo(brute.best!.score, 6);
+    expect(pruned.evaluated).toBeLessThan(brute.evaluated / 2);
+  });
+
+  it('1500 ft² at 12 × 10 ft: 4 heads along, 13 heads, the 13th on the next line at the cross-main end', () => {
+    const r = checkLayout({ s: 12, l: 10, heads: 8, lines: 6 }, { design: { density: 0.2, area: 1500 } });
+    const best = r.design.areas.find((a) => a.rank === 'most-demanding')!;
+    expect(r.design.shape).toMatchObject({ headsAlong: 4, totalHeads: 13, fullLines: 3, remainder: 1 });
+    expect(best.headIds).toHaveLength(13);
+    expect(best.lineIds).toHaveLength(4);
+    // the remote end is the far end of the lines (x = 42..78); the 13th head is the one nearest the cross main
+    const xs = best.headIds.map((id) => r.plan.heads.find((h) => h.id === id)!.position.x);
+    const counts = new Map<number, number>();
+    for (const id of best.headIds) {
+      const line = r.network.branchLines.find((b) => b.headIds.includes(id))!.id;
+      counts.set(Number(line.slice(1)), (counts.get(Number(line.slice(1))) ?? 0) + 1);
+    }
+    expect([...counts.values()].sort()).toEqual([1, 4, 4, 4]);
+    expect(Math.max(...xs)).toBe(90);
+    const lone = best.headIds.find((id) => counts.get(Number(r.network.branchLines.find((b) => b.headIds.includes(id))!.id.slice(1))) === 1)!;
+    expect(r.plan.heads.find((h) => h.id === lone)!.position.x).toBe(54);
+    expect(best.length).toBeCloseTo(48, 9);
+    expect(best.actualArea).toBeCloseTo(13 * 120, 9);
+  });
+});
+
+describe('design-area findings', () => {
+  it('a drawn area near the riser is reported as not the most demanding, with the difference at the source', () => {
+    // 8 heads a line from x = 6 to 90, lines at y = 5..55; the drawn area takes the 13 heads nearest the riser side.
+    const drawnArea = [{ x: 0, y: 20 }, { x: 48, y: 20 }, { x: 48, y: 50 }, { x: 0, y: 50 }];
+    const r = checkLayout({ s: 12, l: 10, heads: 8, lines: 6, drawnArea, extraHeads: [] }, { design: { density: 0.2, area: 1500 } });
+    const drawn = r.design.areas.find((a) => a.source === 'drawn')!;
+    const best = r.design.areas.find((a) => a.rank === 'most-demanding')!;
+    expect(drawn.headIds.length).toBe(12);
+    expect(best.hydraulics!.sourcePressure).toBeGreaterThan(drawn.hydraulics!.sourcePressure + 0.5);
+    const f = findingsOf(r, 'design-area-not-remote');
+    expect(f).toHaveLength(1);
+    expect(f[0]!.measured).toBeCloseTo(drawn.hydraulics!.sourcePressure, 9);
+    expect(f[0]!.limit).toBeCloseTo(best.hydraulics!.sourcePressure, 9);
+    // 12 heads × 120 ft² = 1440 ft² < 1500 ft², and 48 ft ≥ 46.48 ft along the lines
+    expect(findingsOf(r, 'design-area-size')).toHaveLength(1);
+    expect(findingsOf(r, 'design-area-length')).toEqual([]);
+  });
+
+  it('the drawn area equal to the searched one raises no finding', () => {
+    const r0 = checkLayout({ s: 12, l: 10, heads: 8, lines: 6 }, { design: { density: 0.2, area: 1500 } });
+    const best = r0.design.areas.find((a) => a.rank === 'most-demanding')!;
+    const r = checkLayout({ s: 12, l: 10, heads: 8, lines: 6, drawnArea: best.outline }, { design: { density: 0.2, area: 1500 } });
+    const drawn = r.design.areas.find((a) => a.source === 'drawn')!;
+    expect([...drawn.headIds].sort()).toEqual([...best.headIds].sort());
+    expect(findingsOf(r, 'design-area-not-remote')).toEqual([]);
+    expect(findingsOf(r, 'design-area-size')).toEqual([]);
+  });
+
+  it('a short supply is an error finding and fails the check', () => {
+    const r = checkLayout({ s: 12, l: 10, heads: 8, lines: 6 }, { design: { density: 0.2, area: 1500 }, supply: { static: 40, residual: 30, flow: 500 } });
+    const short = findingsOf(r, 'supply-short').filter((f) => f.severity === 'error');
+    expect(short.length).toBeGreaterThan(0);
+    expect(r.report.summary.pass).toBe(false);
+    const best = r.report.designAreas.find((a) => a.rank === 'most-demanding')!;
+    expect(best.hydraulics!.margin).toBeLessThan(0);
+    expect(best.hydraulics!.totalDemand).toBeCloseTo(best.hydraulics!.sourceFlow + 250, 3);
+  });
+});
