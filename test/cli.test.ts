@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { main } from '../src/cli/main.js';
-import { layoutDxf } from './support/layout.js';
+import { layoutDxf } from '../src/demo/generated-layout.js';
 
 async function run(...args: string[]) {
   const out: string[] = [];

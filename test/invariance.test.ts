@@ -4,7 +4,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkText } from './support/check.js';
-import { layoutDxf, type LayoutSpec } from './support/layout.js';
+import { layoutDxf, type LayoutSpec } from '../src/demo/generated-layout.js';
 
 const spec = fc.record({
   s: fc.double({ min: 7, max: 16, noNaN: true }),

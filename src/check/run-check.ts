@@ -26,6 +26,8 @@ export interface CheckInput {
   sha256: string;
   settings: Settings;
   reportUnits: UnitSystem;
+  /** Called after each stage with its name and duration in ms (for the benchmark). */
+  onStage?: (stage: string, ms: number) => void;
 }
 
 export interface CheckResult {
@@ -41,8 +43,15 @@ export interface CheckResult {
 
 export function runCheck(input: CheckInput): CheckResult {
   const { settings } = input;
-  const drawing = readDrawing(input.bytes, settings.units ? { units: settings.units } : {});
-  const plan = planFromDrawing(drawing, settings);
+  let last = performance.now();
+  const stage = <T>(name: string, value: T): T => {
+    const now = performance.now();
+    input.onStage?.(name, now - last);
+    last = now;
+    return value;
+  };
+  const drawing = stage('read', readDrawing(input.bytes, settings.units ? { units: settings.units } : {}));
+  const plan = stage('plan', planFromDrawing(drawing, settings));
   if (plan.heads.length === 0) {
     const layers = plan.roles.heads.layers.length ? plan.roles.heads.layers.join(', ') : 'none chosen';
     fail(`no sprinkler heads found (head layers: ${layers}); set "layers.heads" and "headBlocks" in the config`);
@@ -51,12 +60,12 @@ export function runCheck(input: CheckInput): CheckResult {
     const layers = plan.roles.source.layers.length ? plan.roles.source.layers.join(', ') : 'none chosen';
     fail(`no water source found (source layers: ${layers}); draw the riser as a block or point and set "layers.source"`);
   }
-  const network = buildNetwork(plan, settings);
+  const network = stage('network', buildNetwork(plan, settings));
   const walls = indexWalls(plan.rooms, plan.walls);
-  const coverage = computeCoverage(plan.heads, network, walls);
+  const coverage = stage('coverage', computeCoverage(plan.heads, network, walls));
   const limits = resolveLimits(settings);
-  const design = evaluateDesignAreas(plan, network, coverage, limits, settings);
-  const findings = runRules({ plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) });
-  const report = buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings });
+  const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings));
+  const findings = stage('rules', runRules({ plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) }));
+  const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
   return { drawing, plan, network, coverage, limits, design, findings, report };
 }

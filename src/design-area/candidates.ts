@@ -103,5 +103,7 @@ export function candidatesOf(fam: LineFamily, areaOf: (id: string) => number, ar
       }
     }
   });
-  return out;
+  // A window at the edge of the system that runs out of lines is no design area, unless no window has room.
+  const full = out.filter((c) => c.headIds.length >= fam.shape.totalHeads);
+  return full.length ? full : out;
 }

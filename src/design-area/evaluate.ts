@@ -84,7 +84,7 @@ export function evaluateDesignAreas(plan: Plan, network: Network, coverage: Map<
     const connected = (ids: string[]) => ids.filter((id) => network.headNode[id]);
     try {
       const found = searchMostDemanding(network, candidates.map((c) => ({ ...c, headIds: connected(c.headIds) })), flowingOf, settings, basis.hoseAllowance);
-      out.search = { candidates: found.candidates, evaluated: found.evaluated, solves: found.solves, pruned: found.pruned };
+      out.search = { candidates: found.candidates, evaluated: found.evaluated, screened: found.screened, solves: found.solves, pruned: found.pruned };
       for (const [rank, s] of [['most-demanding', found.best], ['runner-up', found.runnerUp]] as const) {
         if (!s) continue;
         out.areas.push({ ...measureSearched(s.candidate.headIds, s.candidate.lineIds, main, headById, areaOf), rank, hydraulics: s.hydraulics, note: null });

@@ -1,13 +1,13 @@
-// Finds the hydraulically most demanding design area and the runner-up: every candidate is scored by a full
-// hydraulic solve, in order of a safe upper bound, skipping those whose bound cannot beat the runner-up.
+// Finds the hydraulically most demanding design area and the runner-up: candidates in order of a safe upper
+// bound (trees), each screened by one solve at the runner-up's pressure before a full calculation.
 
 import type { Settings } from '../config/settings.js';
-import { calculateArea, type AreaHydraulics } from '../hydraulics/calculate.js';
-import { buildModel, type FlowingHead } from '../hydraulics/model.js';
+import { AreaCalculator, type AreaHydraulics } from '../hydraulics/calculate.js';
+import type { FlowingHead } from '../hydraulics/model.js';
 import { availablePressure } from '../hydraulics/water-supply.js';
 import type { Network } from '../network/types.js';
 import type { Candidate } from './candidates.js';
-import { treeBound } from '../hydraulics/k-factor-walk.js';
+import { spanningTreeModel, treeBound } from '../hydraulics/k-factor-walk.js';
 
 export interface ScoredArea {
   candidate: Candidate;
@@ -20,7 +20,9 @@ export interface SearchOutcome {
   best: ScoredArea | null;
   runnerUp: ScoredArea | null;
   candidates: number;
+  /** Candidates fully calculated, and those ruled out by one solve at the runner-up's pressure. */
   evaluated: number;
+  screened: number;
   solves: number;
   /** Whether the bound was available (tree systems). */
   pruned: boolean;
@@ -35,7 +37,9 @@ export function searchMostDemanding(
   options: { prune?: boolean } = {},
 ): SearchOutcome {
   const all = flowingOf([...new Set(candidates.flatMap((c) => c.headIds))]);
-  const bound = options.prune === false || all.length === 0 ? null : treeBound(buildModel(network, all, settings));
+  if (all.length === 0) return { best: null, runnerUp: null, candidates: candidates.length, evaluated: 0, screened: 0, solves: 0, pruned: false };
+  const calculator = new AreaCalculator(network, all, settings);
+  const bound = options.prune === false ? null : treeBound(calculator.model);
   const supply = settings.supply;
   const upper = candidates.map((c) => {
     if (!bound) return Infinity;
@@ -43,21 +47,41 @@ export function searchMostDemanding(
     if (!b) return Infinity;
     return supply ? b.pressure - availablePressure(supply, b.flow + hose) : b.pressure;
   });
-  const order = candidates.map((_, i) => i).sort((a, b) => upper[b]! - upper[a]!);
+  // Without a bound (looped systems) the same walk on a spanning tree orders the candidates: a demanding
+  // runner-up found early lets the one-solve screening rule out the rest.
+  const estimate = bound ? upper : estimateOnTree(calculator.model, candidates, supply, hose);
+  const order = candidates.map((_, i) => i).sort((a, b) => estimate[b]! - estimate[a]! || upper[b]! - upper[a]!);
   let best: ScoredArea | null = null;
   let runnerUp: ScoredArea | null = null;
   let evaluated = 0;
+  let screened = 0;
   let solves = 0;
   for (const i of order) {
     // Sorted by bound: once the bound (with a margin over the solver tolerance) cannot beat the runner-up, stop.
     if (runnerUp && upper[i]! + 1e-6 <= runnerUp.score) break;
     const c = candidates[i]!;
-    const hydraulics = calculateArea(network, flowingOf(c.headIds), settings, hose);
+    if (runnerUp && options.prune !== false) {
+      // Node pressures rise with the source pressure: satisfied at the runner-up's pressure means needing no more.
+      const r = runnerUp.hydraulics;
+      const at = calculator.satisfiedAt(c.headIds, r.sourcePressure);
+      solves++;
+      if (at.satisfied && (!supply || at.flow <= r.sourceFlow + 1e-9)) { screened++; continue; }
+    }
+    const hydraulics = calculator.calculate(c.headIds, hose);
     evaluated++;
     solves += hydraulics.solves;
     const scored = { candidate: c, hydraulics, score: demandScore(hydraulics) };
     if (!best || scored.score > best.score) { runnerUp = best; best = scored; }
     else if (!runnerUp || scored.score > runnerUp.score) runnerUp = scored;
   }
-  return { best, runnerUp, candidates: candidates.length, evaluated, solves, pruned: bound !== null };
+  return { best, runnerUp, candidates: candidates.length, evaluated, screened, solves, pruned: bound !== null };
+}
+
+function estimateOnTree(model: AreaCalculator['model'], candidates: Candidate[], supply: Settings['supply'], hose: number): number[] {
+  const walk = treeBound(spanningTreeModel(model));
+  return candidates.map((c) => {
+    const b = walk?.bound(c.headIds);
+    if (!b) return 0;
+    return supply ? b.pressure - availablePressure(supply, b.flow + hose) : b.pressure;
+  });
 }

@@ -81,3 +81,28 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
     },
   };
 }
+
+/**
+ * The model cut to a breadth-first spanning tree from the source (loops opened). Not a bound on the looped
+ * system's demand, but a good estimate of which areas are demanding, used to order a search.
+ */
+export function spanningTreeModel(model: HydraulicModel): HydraulicModel {
+  const incident: number[][] = model.nodes.map(() => []);
+  model.pipes.forEach((p, k) => { incident[p.from]!.push(k); incident[p.to]!.push(k); });
+  const seen = new Uint8Array(model.nodes.length);
+  const keep: number[] = [];
+  const queue = [model.source];
+  seen[model.source] = 1;
+  for (let i = 0; i < queue.length; i++) {
+    const u = queue[i]!;
+    for (const k of incident[u]!) {
+      const p = model.pipes[k]!;
+      const v = p.from === u ? p.to : p.from;
+      if (seen[v]) continue;
+      seen[v] = 1;
+      keep.push(k);
+      queue.push(v);
+    }
+  }
+  return { ...model, pipes: keep.map((k) => model.pipes[k]!) };
+}

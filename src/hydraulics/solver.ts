@@ -26,6 +26,7 @@ export class NetworkSolver {
   private readonly system: EnvelopeSystem;
   private readonly unknown: Int32Array;
   private readonly nUnknown: number;
+  private readonly incident: number[][];
 
   constructor(private readonly model: HydraulicModel) {
     this.unknown = new Int32Array(model.nodes.length).fill(-1);
@@ -39,14 +40,53 @@ export class NetworkSolver {
       if (a >= 0 && b >= 0) edges.push([a, b]);
     }
     this.system = new EnvelopeSystem(k, edges);
+    this.incident = model.nodes.map(() => []);
+    model.pipes.forEach((p, i) => { this.incident[p.from]!.push(i); this.incident[p.to]!.push(i); });
   }
 
-  /** Solves for a fixed pressure at the source, starting from `warm` when given. */
-  solve(sourcePressure: number, warm?: FlowState): FlowState {
+  /**
+   * Pipes that can carry flow with the given heads open: dead ends leading only to closed heads are peeled
+   * off (their flow is exactly zero). Returns the live pipes, and for each idle node the node it hangs from.
+   */
+  private livePart(open?: Uint8Array): { livePipe: Uint8Array; hangsFrom: Int32Array } {
+    const { model, incident } = this;
+    const livePipe = new Uint8Array(model.pipes.length).fill(1);
+    const hangsFrom = new Int32Array(model.nodes.length).fill(-1);
+    if (!open) return { livePipe, hangsFrom };
+    const pinned = new Uint8Array(model.nodes.length);
+    pinned[model.source] = 1;
+    model.emitters.forEach((e, k) => { if (open[k]) pinned[e.node] = 1; });
+    const degree = Int32Array.from(incident, (l) => l.length);
+    const stack: number[] = [];
+    degree.forEach((d, v) => { if (d <= 1 && !pinned[v]) stack.push(v); });
+    const removed = new Uint8Array(model.nodes.length);
+    while (stack.length) {
+      const v = stack.pop()!;
+      if (removed[v] || pinned[v] || degree[v]! > 1) continue;
+      removed[v] = 1;
+      for (const k of incident[v]!) {
+        if (!livePipe[k]) continue;
+        livePipe[k] = 0;
+        const p = model.pipes[k]!;
+        const w = p.from === v ? p.to : p.from;
+        hangsFrom[v] = w;
+        if (--degree[w]! <= 1 && !pinned[w]) stack.push(w);
+      }
+    }
+    return { livePipe, hangsFrom };
+  }
+
+  /**
+   * Solves for a fixed pressure at the source, starting from `warm` when given. `open` says which emitters
+   * flow (all when omitted): a closed head is no link at all, so one solver serves many design areas.
+   */
+  solve(sourcePressure: number, warm?: FlowState, open?: Uint8Array): FlowState {
     const { model, unknown, system } = this;
     const z = (i: number) => PSI_PER_FT * model.nodes[i]!.elevation;
     const fixedHead = sourcePressure + z(model.source);
+    const { livePipe, hangsFrom } = this.livePart(open);
     const q = warm ? Float64Array.from(warm.flow) : new Float64Array(model.pipes.length).fill(10);
+    livePipe.forEach((live, k) => { if (!live) q[k] = 0; });
     const qe = warm ? Float64Array.from(warm.emitterFlow) : Float64Array.from(model.emitters, (e) => e.k * Math.sqrt(Math.max(sourcePressure, 1)));
     let head: Float64Array = new Float64Array(this.nUnknown);
     let iterations = 0;
@@ -55,7 +95,9 @@ export class NetworkSolver {
       const rhs = new Float64Array(this.nUnknown);
       const pipeP = new Float64Array(model.pipes.length);
       const pipeY = new Float64Array(model.pipes.length);
+      hangsFrom.forEach((w, v) => { if (w >= 0 && unknown[v]! >= 0) system.add(unknown[v]!, unknown[v]!, 1); });
       model.pipes.forEach((p, k) => {
+        if (!livePipe[k]) return;
         const aq = Math.abs(q[k]!);
         const slope = Math.max(HW_EXPONENT * p.r * aq ** (HW_EXPONENT - 1), MIN_SLOPE);
         const loss = p.r * aq ** (HW_EXPONENT - 1) * q[k]!;
@@ -71,6 +113,7 @@ export class NetworkSolver {
       const emP = new Float64Array(model.emitters.length);
       const emY = new Float64Array(model.emitters.length);
       model.emitters.forEach((e, k) => {
+        if (open && !open[k]) { qe[k] = 0; return; }
         // Emitter as a link to a fixed head at zero pressure: loss (q/K)², slope 2q/K².
         const slope = Math.max((2 * Math.abs(qe[k]!)) / (e.k * e.k), MIN_SLOPE);
         const pk = 1 / slope;
@@ -87,12 +130,14 @@ export class NetworkSolver {
       let dq = 0;
       let total = 0;
       model.pipes.forEach((p, k) => {
+        if (!livePipe[k]) return;
         const nq = q[k]! - pipeY[k]! + pipeP[k]! * (H(p.from) - H(p.to));
         dq += Math.abs(nq - q[k]!);
         total += Math.abs(nq);
         q[k] = nq;
       });
       model.emitters.forEach((e, k) => {
+        if (open && !open[k]) return;
         const nq = qe[k]! - emY[k]! + emP[k]! * (H(e.node) - z(e.node));
         dq += Math.abs(nq - qe[k]!);
         total += Math.abs(nq);
@@ -104,7 +149,13 @@ export class NetworkSolver {
       if (iterations > 0 && dq <= FLOW_TOL * Math.max(total, 1) && dh <= HEAD_TOL) { iterations++; break; }
     }
     if (iterations >= MAX_ITERATIONS) throw new Error(`hydraulic solve did not converge in ${MAX_ITERATIONS} iterations`);
-    const pressure = Float64Array.from(model.nodes, (_, i) => (unknown[i]! >= 0 ? head[unknown[i]!]! : fixedHead) - z(i));
+    // An idle node has the head of the live node it hangs from (no flow, no loss): resolve along the chain.
+    const headAt = (i: number): number => {
+      let v = i;
+      while (hangsFrom[v]! >= 0) v = hangsFrom[v]!;
+      return unknown[v]! >= 0 ? head[unknown[v]!]! : fixedHead;
+    };
+    const pressure = Float64Array.from(model.nodes, (_, i) => headAt(i) - z(i));
     return { pressure, flow: q, emitterFlow: qe, iterations };
   }
 }

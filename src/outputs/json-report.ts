@@ -50,7 +50,7 @@ export interface Report {
   design: {
     hazard: string; density: number; area: number; baseArea: number; hoseAllowance: number; durationMinutes: number;
     adjustments: string[]; basisFrom: string; minLength: number | null; headsAlong: number | null; totalHeads: number | null;
-    search: { candidates: number; evaluated: number; solves: number; pruned: boolean } | null;
+    search: { candidates: number; evaluated: number; screened: number; solves: number; pruned: boolean } | null;
   };
   summary: { heads: number; pipes: number; errors: number; warnings: number; pass: boolean };
   network: { topology: string; loops: number; branchLines: { id: string; heads: string[]; pipes: string[] }[]; source: string | null };

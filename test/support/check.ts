@@ -3,7 +3,7 @@
 import { parseSettings } from '../../src/config/settings.js';
 import { runCheck, type CheckResult } from '../../src/check/run-check.js';
 import type { UnitSystem } from '../../src/quantities/convert.js';
-import { encode, layoutDxf, type LayoutSpec } from './layout.js';
+import { encode, layoutDxf, type LayoutSpec } from '../../src/demo/generated-layout.js';
 
 export function checkText(dxf: string, config: Record<string, unknown> = {}, reportUnits: UnitSystem = 'us'): CheckResult {
   return runCheck({ bytes: encode(dxf), fileName: 'test.dxf', sha256: '0'.repeat(64), settings: parseSettings(config), reportUnits });

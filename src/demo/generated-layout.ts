@@ -1,8 +1,8 @@
-// Generates rectangular sprinkler layouts as DXF text for tests: a room, a riser, a cross main and
-// branch lines with heads at given spacings, optionally moved, turned and drawn in another unit.
+// Generates rectangular sprinkler layouts as DXF text, for tests and the benchmark: a room, a riser, a cross
+// main and branch lines with heads at given spacings, optionally gridded, moved, turned, in another unit.
 
-import type { Point } from '../../src/geometry/point.js';
-import { DxfWriter } from '../../src/demo/dxf-writer.js';
+import type { Point } from '../geometry/point.js';
+import { DxfWriter } from './dxf-writer.js';
 
 export interface LayoutSpec {
   /** Head spacing along the branch lines, ft. */
