@@ -58,14 +58,21 @@ export function searchMostDemanding(
   let solves = 0;
   for (const i of order) {
     // Sorted by bound: once the bound (with a margin over the solver tolerance) cannot beat the runner-up, stop.
-    if (runnerUp && upper[i]! + 1e-6 <= runnerUp.score) break;
+    if (runnerUp && upper[i]! + 1e-5 <= runnerUp.score) break;
     const c = candidates[i]!;
     if (runnerUp && options.prune !== false) {
-      // Node pressures rise with the source pressure: satisfied at the runner-up's pressure means needing no more.
+      // Node pressures and flows rise with the source pressure. If every head is satisfied at a trial pressure
+      // Pt, the candidate needs P ≤ Pt and flows no more than there, so its score is at most
+      // Pt − supply(flow at Pt + hose): when that cannot beat the runner-up, one solve rules it out. With a
+      // supply, Pt sits below the runner-up's pressure by what 3% more flow costs on the supply curve.
       const r = runnerUp.hydraulics;
-      const at = calculator.satisfiedAt(c.headIds, r.sourcePressure);
+      const Pt = supply
+        ? r.sourcePressure - (availablePressure(supply, r.sourceFlow + hose) - availablePressure(supply, 1.03 * r.sourceFlow + hose))
+        : r.sourcePressure;
+      const at = calculator.satisfiedAt(c.headIds, Pt);
       solves++;
-      if (at.satisfied && (!supply || at.flow <= r.sourceFlow + 1e-9)) { screened++; continue; }
+      const boundAtPt = supply ? Pt - availablePressure(supply, at.flow + hose) : Pt;
+      if (at.satisfied && boundAtPt <= runnerUp.score) { screened++; continue; }
     }
     const hydraulics = calculator.calculate(c.headIds, hose);
     evaluated++;

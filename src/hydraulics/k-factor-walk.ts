@@ -47,37 +47,49 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
   const rank = new Int32Array(n);
   order.forEach((v, i) => { rank[v] = i; });
   const emitterOf = new Map(model.emitters.map((e) => [e.headId, e]));
-  const z = (v: number) => model.nodes[v]!.elevation;
+  const z = Float64Array.from(model.nodes, (node) => node.elevation);
+  const rise = new Float64Array(n);
+  for (let v = 0; v < n; v++) if (parentNode[v]! >= 0) rise[v] = PSI_PER_FT * (z[v]! - z[parentNode[v]!]!);
+  const resistance = Float64Array.from({ length: n }, (_, v) => (parentPipe[v]! >= 0 ? model.pipes[parentPipe[v]!]!.r : 0));
+  // Per-call scratch, reused: a node's combined (pressure, flow) and the call that last touched it.
+  const P = new Float64Array(n);
+  const Q = new Float64Array(n);
+  const stamp = new Int32Array(n);
+  let epoch = 0;
+  /** Joins an input (p, q) into node u: the higher pressure wins, the other side's flow is raised to it. */
+  const join = (u: number, p: number, q: number) => {
+    if (Q[u] === 0) { P[u] = p; Q[u] = q; return; }
+    if (p <= P[u]!) Q[u] = Q[u]! + q * (P[u]! / p) ** raiseExponent;
+    else { Q[u] = Q[u]! * (p / P[u]!) ** raiseExponent + q; P[u] = p; }
+  };
   return {
     bound(headIds) {
-      // Nodes on the paths from the candidate's heads to the source, deepest first.
-      const own = new Map<number, { p: number; q: number }>();
-      const active = new Set<number>();
+      epoch++;
+      const touched: number[] = [];
+      let level: number | null = null;
       for (const id of headIds) {
         const e = emitterOf.get(id);
         if (!e) return null;
-        own.set(e.node, { p: e.required, q: e.k * Math.sqrt(e.required) });
-        for (let v = e.node; v >= 0 && !active.has(v); v = parentNode[v]!) active.add(v);
+        for (let v = e.node; v >= 0 && stamp[v] !== epoch; v = parentNode[v]!) {
+          stamp[v] = epoch; P[v] = 0; Q[v] = 0; touched.push(v);
+          if (v !== model.source) {
+            if (level === null) level = z[v]!;
+            else if (Math.abs(z[v]! - level) > 1e-9) return null;
+          }
+        }
       }
-      const level = z(headIds.length ? emitterOf.get(headIds[0]!)!.node : model.source);
-      for (const v of active) if (v !== model.source && Math.abs(z(v) - level) > 1e-9) return null;
-      const inputs = new Map<number, { p: number; q: number }[]>();
-      const nodes = [...active].sort((a, b) => rank[b]! - rank[a]!);
-      let top = { p: 0, q: 0 };
-      for (const v of nodes) {
-        const list = [...(inputs.get(v) ?? [])];
-        const self = own.get(v);
-        if (self) list.push(self);
-        const p = Math.max(...list.map((x) => x.p));
-        const q = list.reduce((s, x) => s + x.q * (p / x.p) ** raiseExponent, 0);
-        top = { p, q };
+      for (const id of headIds) {
+        const e = emitterOf.get(id)!;
+        join(e.node, e.required, e.k * Math.sqrt(e.required));
+      }
+      const ranks = Int32Array.from(touched, (v) => rank[v]!).sort();
+      for (let i = ranks.length - 1; i >= 0; i--) {
+        const v = order[ranks[i]!]!;
         const up = parentNode[v]!;
-        if (up < 0) break;
-        const pipe = model.pipes[parentPipe[v]!]!;
-        const atParent = p + pipe.r * q ** HW_EXPONENT + PSI_PER_FT * (z(v) - z(up));
-        inputs.set(up, [...(inputs.get(up) ?? []), { p: atParent, q }]);
+        if (up < 0) return { pressure: P[v]!, flow: Q[v]! };
+        join(up, P[v]! + resistance[v]! * Q[v]! ** HW_EXPONENT + rise[v]!, Q[v]!);
       }
-      return { pressure: top.p, flow: top.q };
+      return null;
     },
   };
 }

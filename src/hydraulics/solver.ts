@@ -3,7 +3,7 @@
 
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import type { HydraulicModel } from './model.js';
-import { EnvelopeSystem } from './sparse-cholesky.js';
+import { SparseSpdSystem } from './sparse-cholesky.js';
 
 export interface FlowState {
   /** Pressure at each model node, psi. */
@@ -23,7 +23,7 @@ const MAX_ITERATIONS = 200;
 const MIN_SLOPE = 1e-9;
 
 export class NetworkSolver {
-  private readonly system: EnvelopeSystem;
+  private readonly system: SparseSpdSystem;
   private readonly unknown: Int32Array;
   private readonly nUnknown: number;
   private readonly incident: number[][];
@@ -39,7 +39,7 @@ export class NetworkSolver {
       const b = this.unknown[p.to]!;
       if (a >= 0 && b >= 0) edges.push([a, b]);
     }
-    this.system = new EnvelopeSystem(k, edges);
+    this.system = new SparseSpdSystem(k, edges);
     this.incident = model.nodes.map(() => []);
     model.pipes.forEach((p, i) => { this.incident[p.from]!.push(i); this.incident[p.to]!.push(i); });
   }

@@ -1,9 +1,9 @@
-// The envelope Cholesky solver against a dense reference (Gaussian elimination, textbook method) on
+// The sparse LDLᵀ solver against a dense reference (Gaussian elimination, textbook method) on
 // random symmetric positive-definite graph Laplacians with a grounded node (common practice, no source).
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { EnvelopeSystem } from './sparse-cholesky.js';
+import { SparseSpdSystem } from './sparse-cholesky.js';
 
 function denseSolve(a: number[][], b: number[]): number[] {
   const n = b.length;
@@ -26,7 +26,7 @@ function denseSolve(a: number[][], b: number[]): number[] {
   return x;
 }
 
-describe('EnvelopeSystem', () => {
+describe('SparseSpdSystem', () => {
   it('solves random grounded Laplacians like dense elimination', () => {
     fc.assert(fc.property(fc.integer({ min: 2, max: 25 }), fc.integer({ min: 0, max: 1_000_000 }), (n, seed) => {
       let s = seed;
@@ -34,7 +34,7 @@ describe('EnvelopeSystem', () => {
       const edges: [number, number][] = [];
       for (let i = 1; i < n; i++) edges.push([i, Math.floor(rnd() * i)]);
       for (let e = 0; e < n / 2; e++) { const a = Math.floor(rnd() * n); const b = Math.floor(rnd() * n); if (a !== b) edges.push([a, b]); }
-      const sys = new EnvelopeSystem(n, edges);
+      const sys = new SparseSpdSystem(n, edges);
       const dense = Array.from({ length: n }, () => new Array(n).fill(0));
       for (const [a, b] of edges) {
         const w = 0.1 + rnd() * 10;
@@ -50,7 +50,7 @@ describe('EnvelopeSystem', () => {
   });
 
   it('refuses a singular system (an island without a fixed pressure)', () => {
-    const sys = new EnvelopeSystem(2, [[0, 1]]);
+    const sys = new SparseSpdSystem(2, [[0, 1]]);
     sys.add(0, 0, 1); sys.add(1, 1, 1); sys.add(0, 1, -1);
     expect(() => sys.solve(new Float64Array([1, -1]))).toThrow(/not positive definite/);
   });

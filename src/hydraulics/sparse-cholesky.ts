@@ -1,40 +1,68 @@
-// A sparse symmetric positive-definite solver for the network equations: reverse Cuthill-McKee ordering,
-// then an envelope (profile) Cholesky factorisation. The structure is fixed once; values change per solve.
+// A sparse symmetric positive-definite solver for the network equations: minimum-degree ordering, symbolic
+// factorisation once per structure, then numeric LDLᵀ per solve. Zero fill on trees; little on grids.
 
-export class EnvelopeSystem {
+export class SparseSpdSystem {
   readonly n: number;
-  /** perm[k] = original index at position k; pos[i] = position of original index i. */
-  private readonly perm: Int32Array;
+  /** Elimination position of each original index. */
   private readonly pos: Int32Array;
-  private readonly first: Int32Array;
-  private readonly rowStart: Int32Array;
+  /** Column j of L (elimination order): its rows colRows[colStart[j] .. colStart[j+1]) and their value slots. */
+  private readonly colStart: Int32Array;
+  private readonly colRows: Int32Array;
+  private readonly colSlot: Int32Array;
+  /** Slot of each diagonal entry; off-diagonal slots follow in `values`. */
+  private readonly diagSlot: Int32Array;
+  /** Right-looking updates of each column: target slot, and the two L slots multiplied. */
+  private readonly updStart: Int32Array;
+  private readonly updTarget: Int32Array;
+  private readonly updA: Int32Array;
+  private readonly updB: Int32Array;
+  private readonly slotOf: Map<number, number>;
   private readonly values: Float64Array;
 
   /** @param edges pairs of original indices with a non-zero off-diagonal entry */
   constructor(n: number, edges: readonly (readonly [number, number])[]) {
     this.n = n;
-    const adj: number[][] = Array.from({ length: n }, () => []);
-    const pairs = new Set<string>();
-    for (const [a, b] of edges) {
-      const key = a < b ? `${a},${b}` : `${b},${a}`;
-      if (a !== b && !pairs.has(key)) { pairs.add(key); adj[a]!.push(b); adj[b]!.push(a); }
-    }
-    this.perm = reverseCuthillMcKee(adj);
+    const { order, structure } = minimumDegree(n, edges);
     this.pos = new Int32Array(n);
-    this.perm.forEach((orig, k) => { this.pos[orig] = k; });
-    this.first = new Int32Array(n);
-    this.rowStart = new Int32Array(n + 1);
-    for (let k = 0; k < n; k++) {
-      let f = k;
-      for (const nb of adj[this.perm[k]!]!) f = Math.min(f, this.pos[nb]!);
-      this.first[k] = f;
-      this.rowStart[k + 1] = this.rowStart[k]! + (k - f + 1);
+    order.forEach((v, j) => { this.pos[v] = j; });
+    this.diagSlot = Int32Array.from({ length: n }, (_, j) => j);
+    this.colStart = new Int32Array(n + 1);
+    const rows: number[] = [];
+    const slots: number[] = [];
+    let next = n;
+    this.slotOf = new Map();
+    for (let j = 0; j < n; j++) {
+      const r = structure[j]!.map((v) => this.pos[v]!).sort((a, b) => a - b);
+      for (const i of r) { rows.push(i); slots.push(next); this.slotOf.set(i * n + j, next); next++; }
+      this.colStart[j + 1] = rows.length;
     }
-    this.values = new Float64Array(this.rowStart[n]!);
+    this.colRows = Int32Array.from(rows);
+    this.colSlot = Int32Array.from(slots);
+    this.values = new Float64Array(next);
+    // Updates: eliminating column j changes entry (a, b) for every pair of its rows a ≥ b (a = b: diagonal).
+    const target: number[] = [];
+    const ua: number[] = [];
+    const ub: number[] = [];
+    this.updStart = new Int32Array(n + 1);
+    for (let j = 0; j < n; j++) {
+      for (let x = this.colStart[j]!; x < this.colStart[j + 1]!; x++) {
+        for (let y = this.colStart[j]!; y <= x; y++) {
+          const a = this.colRows[x]!;
+          const b = this.colRows[y]!;
+          target.push(a === b ? this.diagSlot[a]! : this.slotOf.get(a * n + b)!);
+          ua.push(this.colSlot[x]!);
+          ub.push(this.colSlot[y]!);
+        }
+      }
+      this.updStart[j + 1] = target.length;
+    }
+    this.updTarget = Int32Array.from(target);
+    this.updA = Int32Array.from(ua);
+    this.updB = Int32Array.from(ub);
   }
 
-  /** Entries stored (the profile), a measure of the factorisation's cost. */
-  get profile(): number {
+  /** Entries of L (diagonal included), a measure of the factorisation's cost. */
+  get nonZeros(): number {
     return this.values.length;
   }
 
@@ -42,68 +70,77 @@ export class EnvelopeSystem {
     this.values.fill(0);
   }
 
-  /** Adds v to entry (i, j) and (j, i) of the matrix, original indices. */
+  /** Adds v to entry (i, j) and (j, i) of the matrix, original indices (only entries given as edges, or diagonal). */
   add(i: number, j: number, v: number): void {
-    let r = this.pos[i]!;
-    let c = this.pos[j]!;
-    if (c > r) [r, c] = [c, r];
-    this.values[this.rowStart[r]! + (c - this.first[r]!)]! += v;
+    let a = this.pos[i]!;
+    let b = this.pos[j]!;
+    if (a === b) { this.values[this.diagSlot[a]!]! += v; return; }
+    if (a < b) [a, b] = [b, a];
+    this.values[this.slotOf.get(a * this.n + b)!]! += v;
   }
 
-  /** Factorises in place and solves A·x = b (original indices). Throws if A is not positive definite. */
+  /** Factorises in place (LDLᵀ) and solves A·x = b (original indices). Throws if A is not positive definite. */
   solve(b: Float64Array): Float64Array {
-    const { n, first, rowStart, values: L } = this;
-    for (let i = 0; i < n; i++) {
-      const fi = first[i]!;
-      const ri = rowStart[i]! - fi;
-      for (let j = fi; j < i; j++) {
-        const fj = first[j]!;
-        const rj = rowStart[j]! - fj;
-        let s = L[ri + j]!;
-        for (let k = Math.max(fi, fj); k < j; k++) s -= L[ri + k]! * L[rj + k]!;
-        L[ri + j] = s / L[rj + j]!;
-      }
-      let d = L[ri + i]!;
-      for (let k = fi; k < i; k++) d -= L[ri + k]! * L[ri + k]!;
+    const { n, values: v, colStart, colRows, colSlot, diagSlot, updStart, updTarget, updA, updB } = this;
+    for (let j = 0; j < n; j++) {
+      const d = v[diagSlot[j]!]!;
       if (!(d > 0)) throw new Error('network matrix is not positive definite (a part of the network has no fixed pressure)');
-      L[ri + i] = Math.sqrt(d);
+      // The updates use L·d·L with L = a/d: multiply the raw entries and divide by d once.
+      for (let u = updStart[j]!; u < updStart[j + 1]!; u++) v[updTarget[u]!]! -= (v[updA[u]!]! * v[updB[u]!]!) / d;
+      for (let x = colStart[j]!; x < colStart[j + 1]!; x++) v[colSlot[x]!]! /= d;
     }
     const y = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      const fi = first[i]!;
-      const ri = rowStart[i]! - fi;
-      let s = b[this.perm[i]!]!;
-      for (let k = fi; k < i; k++) s -= L[ri + k]! * y[k]!;
-      y[i] = s / L[ri + i]!;
+    for (let i = 0; i < n; i++) y[this.pos[i]!] = b[i]!;
+    for (let j = 0; j < n; j++) {
+      const yj = y[j]!;
+      for (let x = colStart[j]!; x < colStart[j + 1]!; x++) y[colRows[x]!]! -= v[colSlot[x]!]! * yj;
     }
-    for (let i = n - 1; i >= 0; i--) {
-      const fi = first[i]!;
-      const ri = rowStart[i]! - fi;
-      y[i] = y[i]! / L[ri + i]!;
-      for (let k = fi; k < i; k++) y[k] = y[k]! - L[ri + k]! * y[i]!;
+    for (let j = 0; j < n; j++) y[j] = y[j]! / v[diagSlot[j]!]!;
+    for (let j = n - 1; j >= 0; j--) {
+      let s = y[j]!;
+      for (let x = colStart[j]!; x < colStart[j + 1]!; x++) s -= v[colSlot[x]!]! * y[colRows[x]!]!;
+      y[j] = s;
     }
-    const x = new Float64Array(n);
-    for (let k = 0; k < n; k++) x[this.perm[k]!] = y[k]!;
-    return x;
+    const out = new Float64Array(n);
+    for (let i = 0; i < n; i++) out[i] = y[this.pos[i]!]!;
+    return out;
   }
 }
 
-/** Reverse Cuthill-McKee order of a graph (each component from a low-degree start), as original indices. */
-function reverseCuthillMcKee(adj: number[][]): Int32Array {
-  const n = adj.length;
-  const seen = new Uint8Array(n);
+/**
+ * Minimum-degree elimination order, and the structure of each column of L (the neighbours a vertex has when it
+ * is eliminated, as original indices). Ties go to the lowest index, so the order is deterministic.
+ */
+function minimumDegree(n: number, edges: readonly (readonly [number, number])[]): { order: number[]; structure: number[][] } {
+  const adj: Set<number>[] = Array.from({ length: n }, () => new Set());
+  for (const [a, b] of edges) if (a !== b) { adj[a]!.add(b); adj[b]!.add(a); }
+  const buckets: Set<number>[] = [];
+  const degree = new Int32Array(n);
+  const place = (v: number) => {
+    const d = adj[v]!.size;
+    degree[v] = d;
+    (buckets[d] ??= new Set()).add(v);
+  };
+  for (let v = 0; v < n; v++) place(v);
+  const done = new Uint8Array(n);
   const order: number[] = [];
-  const byDegree = [...Array(n).keys()].sort((a, b) => adj[a]!.length - adj[b]!.length);
-  for (const start of byDegree) {
-    if (seen[start]) continue;
-    seen[start] = 1;
-    const queue = [start];
-    for (let q = 0; q < queue.length; q++) {
-      const v = queue[q]!;
-      order.push(v);
-      const next = adj[v]!.filter((w) => !seen[w]).sort((a, b) => adj[a]!.length - adj[b]!.length);
-      for (const w of next) if (!seen[w]) { seen[w] = 1; queue.push(w); }
+  const structure: number[][] = [];
+  let low = 0;
+  for (let k = 0; k < n; k++) {
+    while (!buckets[low]?.size) low++;
+    let v = -1;
+    for (const c of buckets[low]!) if (v < 0 || c < v) v = c;
+    buckets[low]!.delete(v);
+    done[v] = 1;
+    const nb = [...adj[v]!];
+    order.push(v);
+    structure.push(nb);
+    for (const a of nb) {
+      buckets[degree[a]!]!.delete(a);
+      adj[a]!.delete(v);
+      for (const b of nb) if (a !== b) adj[a]!.add(b);
     }
+    for (const a of nb) { place(a); if (degree[a]! < low) low = degree[a]!; }
   }
-  return Int32Array.from(order.reverse());
+  return { order, structure };
 }

@@ -31,6 +31,7 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
   const pos = new Map(heads.map((h) => [h.id, h.position]));
   const out = new Map<string, Coverage>();
   const lines = network.branchLines.filter((b) => b.headIds.length > 0);
+  const summaries = lines.map((l) => summarise(l, pos));
   for (const line of lines) {
     const u = line.direction;
     const v = { x: -u.y, y: u.x };
@@ -41,7 +42,7 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
       const after = i + 1 < along.length ? along[i + 1]!.t - t : null;
       const wallBack = before === null ? walls.along(p, { x: -u.x, y: -u.y }, REACH_FT) : null;
       const wallFwd = after === null ? walls.along(p, u, REACH_FT) : null;
-      const [left, right] = adjacentLines(p, line, lines, pos, v);
+      const [left, right] = adjacentLines(p, line, summaries, v);
       const wallLeft = left === null ? walls.along(p, v, REACH_FT) : null;
       const wallRight = right === null ? walls.along(p, { x: -v.x, y: -v.y }, REACH_FT) : null;
       const s = maxOf(before, after, twice(wallBack), twice(wallFwd));
@@ -55,21 +56,38 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
   return out;
 }
 
+/** What the neighbour search needs of a line, computed once: its centroid, its end heads, its head spacing. */
+interface LineSummary { line: BranchLine; centroid: Point; ends: [Point, Point]; spacing: number }
+
+function summarise(line: BranchLine, pos: Map<string, Point>): LineSummary {
+  const pts = line.headIds.map((id) => pos.get(id)!);
+  const ts = pts.map((q) => dot(q, line.direction));
+  const first = pts[ts.indexOf(Math.min(...ts))]!;
+  const last = pts[ts.indexOf(Math.max(...ts))]!;
+  const n = pts.length;
+  return {
+    line,
+    centroid: { x: pts.reduce((a, q) => a + q.x, 0) / n, y: pts.reduce((a, q) => a + q.y, 0) / n },
+    ends: [first, last],
+    spacing: (Math.max(...ts) - Math.min(...ts)) / Math.max(1, n - 1),
+  };
+}
+
 /** Perpendicular distance to the nearest parallel branch line on each side that spans the head's position. */
-function adjacentLines(p: Point, line: BranchLine, lines: BranchLine[], pos: Map<string, Point>, v: Point): [number | null, number | null] {
+function adjacentLines(p: Point, line: BranchLine, others: LineSummary[], v: Point): [number | null, number | null] {
   let left: number | null = null;
   let right: number | null = null;
   const u = line.direction;
   const tp = dot(p, u);
-  for (const other of lines) {
-    if (other === line || Math.abs(cross(other.direction, u)) > PARALLEL_SIN) continue;
-    const pts = other.headIds.map((id) => pos.get(id)!);
-    const ts = pts.map((q) => dot(q, u));
-    const span = Math.max(...ts) - Math.min(...ts);
-    const slack = Math.max(span / Math.max(1, pts.length - 1), 1) * 0.75;
-    if (tp < Math.min(...ts) - slack || tp > Math.max(...ts) + slack) continue;
-    const offsets = pts.map((q) => dot({ x: q.x - p.x, y: q.y - p.y }, v));
-    const off = offsets.reduce((a, b) => a + b, 0) / offsets.length;
+  for (const other of others) {
+    if (other.line === line || Math.abs(cross(other.line.direction, u)) > PARALLEL_SIN) continue;
+    // Heads on a straight line project monotonically, so its end heads give its extent along u.
+    const t0 = dot(other.ends[0], u);
+    const t1 = dot(other.ends[1], u);
+    const slack = Math.max(other.spacing, 1) * 0.75;
+    if (tp < Math.min(t0, t1) - slack || tp > Math.max(t0, t1) + slack) continue;
+    // The mean perpendicular offset of its heads is the offset of their centroid.
+    const off = dot({ x: other.centroid.x - p.x, y: other.centroid.y - p.y }, v);
     if (Math.abs(off) < 1e-6 || Math.abs(off) > REACH_FT) continue;
     if (off > 0 && (left === null || off < left)) left = off;
     if (off < 0 && (right === null || -off < right)) right = -off;
