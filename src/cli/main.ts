@@ -4,6 +4,7 @@
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { Command, CommanderError, Option } from 'commander';
+import { annotatedDrawing } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
 import { parseSettingsText, type Settings, DEFAULT_SETTINGS } from '../config/settings.js';
 import { demoDrawing, DEMO_CONFIG } from '../demo/scenario.js';
@@ -30,12 +31,14 @@ function loadSettings(path: string | undefined): Settings {
 /** Checks one drawing and writes the requested outputs; returns the exit code. */
 function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void): number {
   for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
-  if (opts.dxf || opts.html) throw new InputError(`${opts.dxf ? '--dxf' : '--html'}: this version writes the JSON report only`);
+  if (opts.html) throw new InputError('--html: this version does not write the HTML report yet');
   const settings = loadSettings(opts.config);
   const bytes = readInputFile(file);
-  const result = withFile(file, () => runCheck({ bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units }));
-  const files: { path: string; data: string }[] = [];
+  const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units };
+  const result = withFile(file, () => runCheck(input));
+  const files: { path: string; data: string | Uint8Array }[] = [];
   if (opts.json) files.push({ path: opts.json, data: `${JSON.stringify(result.report, null, 2)}\n` });
+  if (opts.dxf) files.push({ path: opts.dxf, data: withFile(file, () => annotatedDrawing(input, result)) });
   writeAllAtomically(files);
   out(summaryLine(file, result.report));
   return result.report.summary.pass ? 0 : 1;

@@ -11,6 +11,7 @@ export interface Formatter {
   area(ft2: number): string;
   flow(gpm: number): string;
   pressure(psi: number): string;
+  density(gpmPerFt2: number): string;
 }
 
 export function formatterFor(system: UnitSystem): Formatter {
@@ -24,5 +25,6 @@ export function formatterFor(system: UnitSystem): Formatter {
     area: (v) => `${c.area(v).toFixed(system === 'us' ? 1 : 2)} ${areaUnit}`,
     flow: (v) => `${c.flow(v).toFixed(1)} ${u.flow}`,
     pressure: (v) => `${c.pressure(v).toFixed(system === 'us' ? 1 : 3)} ${u.pressure}`,
+    density: (v) => (system === 'us' ? `${v.toFixed(2)} gpm/ft²` : `${c.density(v).toFixed(2)} mm/min`),
   };
 }

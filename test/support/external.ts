@@ -29,3 +29,8 @@ export function describeWith(tool: string, available: boolean, name: string, bod
     describe.skip(name, body);
   }
 }
+
+/** Whether a command is on PATH (looked up, not run: some GUI programs hang on --version). */
+export function hasCommand(cmd: string): boolean {
+  return spawnSync('sh', ['-c', `command -v ${cmd}`], { encoding: 'utf8' }).status === 0;
+}

@@ -1,0 +1,59 @@
+// Reads a DXF file's group structure without changing it: every group's code, value and byte range, and
+// the places an annotator needs (sections, tables, the handle seed). Works on a 1:1 byte-to-char view.
+
+export interface Group {
+  code: number;
+  value: string;
+  /** Byte offset where the group's code line starts, and just after its value line ends. */
+  start: number;
+  end: number;
+  /** Byte range of the value text alone (without the line break). */
+  valueStart: number;
+  valueEnd: number;
+}
+
+/** One char per byte (not TextDecoder: browsers decode "latin1" as windows-1252, which is not 1:1). */
+export function byteView(bytes: Uint8Array): string {
+  let s = '';
+  for (let i = 0; i < bytes.length; i += 0x8000) s += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+  return s;
+}
+
+export function readGroups(view: string): Group[] {
+  const groups: Group[] = [];
+  let i = 0;
+  const n = view.length;
+  const line = (): [number, number, number] => {
+    const s = i;
+    let e = view.indexOf('\n', i);
+    if (e < 0) e = n;
+    i = e + 1;
+    const valueEnd = e > s && view.charCodeAt(e - 1) === 13 ? e - 1 : e;
+    return [s, valueEnd, Math.min(i, n)];
+  };
+  while (i < n) {
+    const [cs, ce] = line();
+    if (i >= n && view.slice(cs, ce).trim() === '') break;
+    const [vs, ve, next] = line();
+    const code = Number.parseInt(view.slice(cs, ce).trim(), 10);
+    groups.push({ code, value: view.slice(vs, ve).trim(), start: cs, end: next, valueStart: vs, valueEnd: ve });
+  }
+  return groups;
+}
+
+/** The line break the file uses. */
+export const lineBreakOf = (view: string): string => (view.indexOf('\r\n') >= 0 && view.indexOf('\r\n') <= view.indexOf('\n') ? '\r\n' : '\n');
+
+/** Formats group code/value pairs as DXF lines. */
+export function formatGroups(pairs: readonly (string | number)[], eol = '\n'): string {
+  let s = '';
+  for (let i = 0; i < pairs.length; i += 2) {
+    const v = pairs[i + 1]!;
+    s += `${String(pairs[i]).padStart(3)}${eol}${typeof v === 'number' ? formatNumber(v) : v}${eol}`;
+  }
+  return s;
+}
+
+/** Plain decimal notation with ten decimals at most (readers differ on exponents). */
+export const formatNumber = (v: number): string =>
+  Number.isInteger(v) ? String(v) : Math.abs(v) < 1e-10 ? '0' : v.toFixed(10).replace(/0+$/, '').replace(/\.$/, '');

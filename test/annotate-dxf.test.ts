@@ -1,0 +1,149 @@
+// The annotated drawing: every original entity, layer, block and handle kept byte for byte, annotations on
+// HC- layers with fresh handles above $HANDSEED; checked by our reader, by ezdxf's audit (Debian
+// python3-ezdxf) and by LibreCAD's dxf2pdf as a real CAD client (rendered page must show the annotations).
+
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { annotatedDrawing } from '../src/check/outputs.js';
+import { runCheck } from '../src/check/run-check.js';
+import { parseSettings } from '../src/config/settings.js';
+import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
+import { byteView, readGroups } from '../src/outputs/dxf-groups.js';
+import { readDrawing } from '../src/read/read-drawing.js';
+import { describeWith, hasCommand, hasEzdxf, SYSTEM_PYTHON } from './support/external.js';
+
+const cases: { name: string; bytes: Uint8Array; config: Record<string, unknown> }[] = [
+  { name: 'bay2-r12', bytes: new Uint8Array(readFileSync('fixtures/bay2-r12.dxf')), config: { units: 'in' } },
+  { name: 'bay2-r2000', bytes: new Uint8Array(readFileSync('fixtures/bay2-r2000.dxf')), config: {} },
+  { name: 'bay2-r2018', bytes: new Uint8Array(readFileSync('fixtures/bay2-r2018.dxf')), config: {} },
+  { name: 'demo', bytes: new TextEncoder().encode(demoDrawing()), config: DEMO_CONFIG as unknown as Record<string, unknown> },
+];
+
+function annotate(c: (typeof cases)[number]) {
+  const input = { bytes: c.bytes, fileName: `${c.name}.dxf`, sha256: '', settings: parseSettings(c.config), reportUnits: 'us' as const };
+  const result = runCheck(input);
+  return { result, out: annotatedDrawing(input, result) };
+}
+
+const entitiesText = (bytes: Uint8Array) => {
+  const v = byteView(bytes);
+  const start = v.search(/\r?\n\s*2\r?\nENTITIES\r?\n/);
+  return v.slice(start, v.indexOf('\nENDSEC', start));
+};
+/** Entity and table handles (group 5 outside the HEADER section, where $HANDSEED also uses code 5). */
+const handlesOf = (bytes: Uint8Array) => {
+  const groups = readGroups(byteView(bytes));
+  const headerEnd = groups.findIndex((g) => g.code === 0 && g.value === 'ENDSEC');
+  return groups.filter((g, i) => i > headerEnd && g.code === 5 && /^[0-9A-F]+$/i.test(g.value)).map((g) => BigInt(`0x${g.value}`));
+};
+const seedOf = (bytes: Uint8Array) => {
+  const g = readGroups(byteView(bytes));
+  const i = g.findIndex((x) => x.code === 9 && x.value === '$HANDSEED');
+  return BigInt(`0x${g[i + 1]!.value}`);
+};
+
+describe.each(cases)('annotated $name', (c) => {
+  const { result, out } = annotate(c);
+  const units = c.config['units'] as 'in' | undefined;
+
+  it('keeps the original model space byte for byte and appends to it', () => {
+    const before = entitiesText(c.bytes);
+    const after = entitiesText(out);
+    expect(after.startsWith(before.slice(0, before.lastIndexOf('\n')))).toBe(true);
+    expect(after.length).toBeGreaterThan(before.length);
+  });
+
+  it('reads back with the same original entities plus annotations on HC- layers only', () => {
+    const a = readDrawing(c.bytes, units ? { units } : {});
+    const b = readDrawing(out, units ? { units } : {});
+    const original = (d: typeof a) => [...d.refs, ...d.strokes, ...d.texts].filter((x) => !x.layer.startsWith('HC-') && x.handle !== '');
+    const sig = (d: typeof a) => original(d).map((x) => `${x.handle}|${x.layer}`).sort();
+    // The legend block's contents sit on layer 0 inside a reference on HC-LEGEND; they take that layer.
+    expect(sig(b)).toEqual(sig(a));
+    const added = [...b.strokes, ...b.texts, ...b.outlines, ...b.refs].filter((x) => x.layer.startsWith('HC-'));
+    expect(added.length).toBeGreaterThan(result.findings.length);
+    expect(new Set(b.layers.map((l) => l.name))).toEqual(new Set([...a.layers.map((l) => l.name), 'HC-FINDINGS', 'HC-DESIGN-AREA', 'HC-HEAD-TAGS', 'HC-PIPE-TAGS', 'HC-LEGEND']));
+  });
+
+  it('gives new entities fresh handles above the old seed and moves $HANDSEED past them', () => {
+    const old = new Set(handlesOf(c.bytes));
+    const all = handlesOf(out);
+    expect(new Set(all).size).toBe(all.length); // every handle unique
+    const fresh = all.filter((h) => !old.has(h));
+    expect(fresh.length).toBeGreaterThan(result.findings.length);
+    const oldSeed = seedOf(c.bytes);
+    expect(fresh.every((h) => h >= oldSeed)).toBe(true);
+    const newSeed = seedOf(out);
+    expect(all.every((h) => h < newSeed)).toBe(true);
+  });
+});
+
+describeWith('python3-ezdxf', hasEzdxf(), 'annotated drawings in ezdxf', () => {
+  it('read and audit clean: no error; only the fix ezdxf 0.18 makes to its own R12 loads', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'hc-audit-'));
+    const files = cases.map((c) => {
+      const f = join(dir, `${c.name}.dxf`);
+      writeFileSync(f, annotate(c).out);
+      return f;
+    });
+    const r = spawnSync(SYSTEM_PYTHON, ['scripts/ezdxf-audit.py', ...files], { encoding: 'utf8', timeout: 120_000 });
+    expect(r.status, r.stderr).toBe(0);
+    const reports = r.stdout.trim().split('\n').map((l) => JSON.parse(l));
+    for (const rep of reports) {
+      expect(rep.readError).toBeUndefined();
+      expect(rep.errors).toEqual([]);
+      // ezdxf 0.18 invents SEQENDs when it loads R12 polylines and attributes, then deletes them in audit; it does
+      // the same to R12 files it wrote itself (fixtures/bay2-r12.dxf). Such a SEQEND's handle is in no file.
+      const handles = new Set(handlesOf(new Uint8Array(readFileSync(rep.file))).map((h) => h.toString(16).toUpperCase()));
+      for (const fix of rep.fixes) {
+        const m = /^Deleted SEQEND\(#([0-9A-F]+)\) entity with invalid owner handle #None\.$/.exec(fix);
+        expect(m, fix).not.toBeNull();
+        expect(handles.has(m![1]!)).toBe(false);
+      }
+      expect(rep.hcEntities).toBeGreaterThan(5);
+      expect(rep.blocks).toContain('HC-LEGEND');
+    }
+  });
+});
+
+const canRender = hasCommand('librecad') && hasCommand('pdftoppm');
+
+/** Share of dark pixels of page 1 of a PDF, from pdftoppm's greyscale PGM output. */
+function inkShare(pdf: string): number {
+  const base = pdf.replace(/\.pdf$/, '');
+  const r = spawnSync('pdftoppm', ['-r', '5', '-gray', '-singlefile', pdf, base], { timeout: 60_000 });
+  expect(r.status).toBe(0);
+  const pgm = readFileSync(`${base}.pgm`);
+  const header = pgm.subarray(0, 64).toString('latin1').split(/\s+/);
+  const [w, h] = [Number(header[1]), Number(header[2])];
+  const pixels = pgm.subarray(pgm.length - w * h);
+  let dark = 0;
+  for (const p of pixels) if (p < 200) dark++;
+  return dark / pixels.length;
+}
+
+describeWith('librecad and poppler-utils', canRender, 'annotated drawing in LibreCAD', () => {
+  it('renders with dxf2pdf, and the annotations add visible ink', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'hc-render-'));
+    const c = cases.find((x) => x.name === 'demo')!;
+    writeFileSync(join(dir, 'plain.dxf'), c.bytes);
+    writeFileSync(join(dir, 'annotated.dxf'), annotate(c).out);
+    for (const name of ['plain', 'annotated']) {
+      // dxf2pdf writes NAME.pdf beside the drawing; it can hang on broken files, hence the timeout.
+      const r = spawnSync('librecad', ['dxf2pdf', '-a', join(dir, `${name}.dxf`)], {
+        cwd: dir, timeout: 90_000, env: { ...process.env, QT_QPA_PLATFORM: 'offscreen' }, encoding: 'utf8',
+      });
+      expect(r.error).toBeUndefined();
+    }
+    expect(readdirSync(dir).filter((f) => f.endsWith('.pdf')).sort()).toEqual(['annotated.pdf', 'plain.pdf']);
+    const plain = inkShare(join(dir, 'plain.pdf'));
+    const annotated = inkShare(join(dir, 'annotated.pdf'));
+    expect(plain).toBeGreaterThan(0.001);
+    expect(annotated).toBeGreaterThan(plain * 1.05);
+    mkdirSync('test-artifacts', { recursive: true });
+    copyFileSync(join(dir, 'annotated.pdf'), join('test-artifacts', 'annotated-demo.pdf'));
+  });
+});
