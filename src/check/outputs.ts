@@ -3,6 +3,7 @@
 
 import { annotateDxf } from '../outputs/annotate-dxf.js';
 import { buildAnnotations } from '../outputs/annotations.js';
+import { htmlReport } from '../outputs/html-report.js';
 import { formatterFor } from '../quantities/format.js';
 import type { CheckInput, CheckResult } from './run-check.js';
 
@@ -13,3 +14,5 @@ export function annotatedDrawing(input: CheckInput, result: CheckResult): Uint8A
   });
   return annotateDxf(input.bytes, result.drawing.version, result.drawing.units, notes);
 }
+
+export const reportPage = (input: CheckInput, result: CheckResult): string => htmlReport(input, result);

@@ -64,7 +64,7 @@ export function runCheck(input: CheckInput): CheckResult {
   const walls = indexWalls(plan.rooms, plan.walls);
   const coverage = stage('coverage', computeCoverage(plan.heads, network, walls));
   const limits = resolveLimits(settings);
-  const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings));
+  const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings, walls.roomOf));
   const findings = stage('rules', runRules({ plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) }));
   const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
   return { drawing, plan, network, coverage, limits, design, findings, report };

@@ -4,7 +4,7 @@
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { Command, CommanderError, Option } from 'commander';
-import { annotatedDrawing } from '../check/outputs.js';
+import { annotatedDrawing, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
 import { parseSettingsText, type Settings, DEFAULT_SETTINGS } from '../config/settings.js';
 import { demoDrawing, DEMO_CONFIG } from '../demo/scenario.js';
@@ -31,7 +31,6 @@ function loadSettings(path: string | undefined): Settings {
 /** Checks one drawing and writes the requested outputs; returns the exit code. */
 function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void): number {
   for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
-  if (opts.html) throw new InputError('--html: this version does not write the HTML report yet');
   const settings = loadSettings(opts.config);
   const bytes = readInputFile(file);
   const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units };
@@ -39,6 +38,7 @@ function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void
   const files: { path: string; data: string | Uint8Array }[] = [];
   if (opts.json) files.push({ path: opts.json, data: `${JSON.stringify(result.report, null, 2)}\n` });
   if (opts.dxf) files.push({ path: opts.dxf, data: withFile(file, () => annotatedDrawing(input, result)) });
+  if (opts.html) files.push({ path: opts.html, data: reportPage(input, result) });
   writeAllAtomically(files);
   out(summaryLine(file, result.report));
   return result.report.summary.pass ? 0 : 1;

@@ -2,6 +2,7 @@
 // area with its runner-up, each with its shape figures and a full hydraulic calculation.
 
 import type { Settings } from '../config/settings.js';
+import { clipPolygon } from '../geometry/clip.js';
 import { dot, type Point } from '../geometry/point.js';
 import type { AreaHydraulics } from '../hydraulics/calculate.js';
 import { calculateArea } from '../hydraulics/calculate.js';
@@ -46,7 +47,9 @@ export interface DesignAreas {
   notes: string[];
 }
 
-export function evaluateDesignAreas(plan: Plan, network: Network, coverage: Map<string, Coverage>, limits: Limits, settings: Settings): DesignAreas {
+export function evaluateDesignAreas(
+  plan: Plan, network: Network, coverage: Map<string, Coverage>, limits: Limits, settings: Settings, roomOf: (p: Point) => Outline | null,
+): DesignAreas {
   const basis = designBasis(settings);
   const headById = new Map(plan.heads.map((h) => [h.id, h]));
   const areaOf = (id: string) => coverage.get(id)?.area ?? limits.maxArea;
@@ -87,7 +90,10 @@ export function evaluateDesignAreas(plan: Plan, network: Network, coverage: Map<
       out.search = { candidates: found.candidates, evaluated: found.evaluated, screened: found.screened, solves: found.solves, pruned: found.pruned };
       for (const [rank, s] of [['most-demanding', found.best], ['runner-up', found.runnerUp]] as const) {
         if (!s) continue;
-        out.areas.push({ ...measureSearched(s.candidate.headIds, s.candidate.lineIds, main, headById, areaOf), rank, hydraulics: s.hydraulics, note: null });
+        const measured = measureSearched(s.candidate.headIds, s.candidate.lineIds, main, headById, areaOf);
+        // Draw the area inside the room that holds its heads (the S × L bands may reach past a wall).
+        const room = roomOf(headById.get(s.candidate.headIds[0]!)!.position);
+        out.areas.push({ ...measured, outline: room ? clipPolygon(measured.outline, room.points) : measured.outline, rank, hydraulics: s.hydraulics, note: null });
       }
     } catch (err) {
       notes.push(`design-area search failed: ${err instanceof Error ? err.message : String(err)}`);

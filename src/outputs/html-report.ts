@@ -1,0 +1,162 @@
+// The HTML report: one self-contained page (no network, no external script) with the verdict, the plan as SVG
+// (zoom, pan, findings that highlight), findings, design areas, hydraulics and the water-supply graph.
+
+import type { CheckInput, CheckResult } from '../check/run-check.js';
+import { boundsOf, type Point } from '../geometry/point.js';
+import type { PipeRole } from '../network/types.js';
+import { converterFor, REPORT_UNITS } from '../quantities/convert.js';
+import { formatterFor } from '../quantities/format.js';
+import { CAUTION } from './caution.js';
+import { supplyGraph } from './supply-graph.js';
+
+const esc = (s: unknown): string =>
+  String(s).replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+const ROLE_COLOR: Record<PipeRole, string> = {
+  branch: '#1f6fd1', 'cross-main': '#7a3fc4', 'feed-main': '#b3261e', riser: '#b3261e', drop: '#2e7d32', unknown: '#888',
+};
+
+export function htmlReport(input: CheckInput, result: CheckResult): string {
+  const r = result.report;
+  const fmt = formatterFor(input.reportUnits);
+  const c = converterFor(input.reportUnits);
+  const u = REPORT_UNITS[input.reportUnits];
+  const verdict = r.summary.pass ? 'PASS' : 'FAIL';
+  const body = [
+    `<header class="${r.summary.pass ? 'pass' : 'fail'}"><h1>${verdict}: ${esc(r.input.file)}</h1>`,
+    `<p>${r.summary.heads} heads, ${r.summary.pipes} pipes, <b>${r.summary.errors} errors</b>, ${r.summary.warnings} warnings.`,
+    ` Limits: ${esc(r.limits.edition)}, hazard ${esc(r.design.hazard)}. Units: ${esc(u.length)}, ${esc(u.flow)}, ${esc(u.pressure)}.</p>`,
+    `<p class="caution">${esc(CAUTION)}</p></header>`,
+    '<section><h2>Plan</h2><div class="tools"><button type="button" id="fit">Fit</button> <span>wheel or pinch to zoom, drag to pan</span></div>',
+    planSvg(result), legendHtml(), '</section>',
+    findingsTable(r.findings),
+    designAreasHtml(result, fmt),
+    supplyHtml(input, result, c, u),
+    `<footer><p>${esc(r.tool.name)} ${esc(r.tool.version)} · drawing SHA-256 ${esc(r.input.sha256)} · ${esc(r.input.dxfVersion)}, units ${esc(r.input.drawingUnits)}</p></footer>`,
+  ];
+  return `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:">
+<title>headcheck: ${verdict} ${esc(r.input.file)}</title><style>${STYLE}</style></head>
+<body>${body.join('\n')}<script>${SCRIPT}</script></body></html>
+`;
+}
+
+function planSvg(result: CheckResult): string {
+  const { plan, network, design, findings } = result;
+  const pts: Point[] = [...plan.heads.map((h) => h.position), ...network.nodes.map((n) => n.position), ...plan.rooms.flatMap((x) => x.points)];
+  const b = boundsOf(pts.length ? pts : [{ x: 0, y: 0 }]);
+  const pad = Math.max(b.maxX - b.minX, b.maxY - b.minY, 1) * 0.04;
+  const w = b.maxX - b.minX + 2 * pad;
+  const h = b.maxY - b.minY + 2 * pad;
+  const X = (p: Point) => (p.x - b.minX + pad).toFixed(3);
+  const Y = (p: Point) => (b.maxY - p.y + pad).toFixed(3);
+  const path = (ps: Point[], close: boolean) => `M${ps.map((p) => `${X(p)} ${Y(p)}`).join(' L')}${close ? ' Z' : ''}`;
+  const unit = Math.max(w, h) / 250;
+  const parts: string[] = [];
+  parts.push(...plan.rooms.map((room) => `<path class="room" d="${path(room.points, true)}"/>`));
+  parts.push(...plan.walls.map((s) => `<path class="wall" d="${path([s.a, ...s.via, s.b], false)}"/>`));
+  for (const a of design.areas) {
+    if (a.outline.length < 3) continue;
+    parts.push(`<path class="area area-${a.rank ?? 'drawn'}" d="${path(a.outline, true)}"><title>${esc(a.rank ?? 'drawn')} design area: ${a.headIds.length} heads</title></path>`);
+  }
+  parts.push(...network.pipes.map((p) => `<path class="pipe" data-role="${p.role}" stroke="${ROLE_COLOR[p.role]}" d="${path(p.points, false)}"><title>${esc(p.id)} ${esc(p.role)} ${esc(p.nominalSize)}"</title></path>`));
+  const flowing = new Set(design.areas.find((a) => a.rank === 'most-demanding')?.headIds ?? []);
+  parts.push(...plan.heads.map((hd) => `<circle class="head${flowing.has(hd.id) ? ' flowing' : ''}" cx="${X(hd.position)}" cy="${Y(hd.position)}" r="${(unit * 1.1).toFixed(3)}"><title>${esc(hd.id)} (${esc(hd.handle)}) K ${hd.kFactor.toFixed(1)}</title></circle>`));
+  parts.push(...findings.map((f, i) => `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(f.message)}</title></circle>`));
+  return `<svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" style="--u:${unit.toFixed(4)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg>`;
+}
+
+function legendHtml(): string {
+  const roles = (Object.entries(ROLE_COLOR) as [PipeRole, string][]).filter(([r]) => r !== 'riser');
+  return `<p class="key">${roles.map(([r, col]) => `<span><i style="background:${col}"></i>${esc(r)}</span>`).join(' ')}
+<span><i class="k-head"></i>head</span> <span><i class="k-flow"></i>flowing head</span> <span><i class="k-err"></i>error</span> <span><i class="k-warn"></i>warning</span> <span><i class="k-info"></i>info</span></p>`;
+}
+
+function findingsTable(findings: CheckResult['report']['findings']): string {
+  if (!findings.length) return '<section><h2>Findings</h2><p>None.</p></section>';
+  const rows = findings.map((f, i) => `<tr class="${f.severity}" data-finding="${i}" tabindex="0"><td>${esc(f.severity)}</td><td><code>${esc(f.rule)}</code></td><td>${esc(f.message)}</td><td>${f.measured ?? ''}</td><td>${f.limit ?? ''}</td><td>${esc(f.handles.join(' '))}</td><td class="ref">${esc(f.reference)}</td></tr>`);
+  return `<section><h2>Findings (${findings.length})</h2><div class="scroll"><table id="findings"><thead><tr><th>severity</th><th>rule</th><th>message</th><th>measured</th><th>limit</th><th>handles</th><th>reference</th></tr></thead><tbody>${rows.join('')}</tbody></table></div></section>`;
+}
+
+function designAreasHtml(result: CheckResult, fmt: ReturnType<typeof formatterFor>): string {
+  const { design } = result;
+  const basis = design.basis;
+  const head = `<p>Design basis: ${esc(fmt.density(basis.density))} over ${esc(fmt.area(basis.area))} (${esc(basis.source)})` +
+    `${basis.adjustments.length ? `; ${basis.adjustments.map(esc).join('; ')}` : ''}; hose allowance ${esc(fmt.flow(basis.hoseAllowance))}, ${basis.durationMinutes} min.` +
+    `${design.shape ? ` Shape: length ≥ 1.2·√A = ${esc(fmt.length(design.shape.minLength))}, ${design.shape.headsAlong} heads along a line, ${design.shape.totalHeads} heads.` : ''}` +
+    `${design.search ? ` Search: ${design.search.candidates} candidate areas, ${design.search.evaluated} calculated, ${design.search.screened} ruled out by one solve${design.search.pruned ? ', the rest by a proven bound' : ''}.` : ''}</p>`;
+  const rows = design.areas.map((a) => {
+    const hy = a.hydraulics;
+    return `<tr><td>${esc(a.rank ?? 'drawn')}</td><td>${a.headIds.length}</td><td>${esc(fmt.length(a.length))}</td><td>${esc(fmt.length(a.width))}</td><td>${esc(fmt.area(a.actualArea))}</td>` +
+      `<td>${hy ? esc(fmt.pressure(hy.sourcePressure)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.sourceFlow)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.totalDemand)) : '-'}</td>` +
+      `<td>${hy?.supplyAvailable != null ? esc(fmt.pressure(hy.supplyAvailable)) : '-'}</td><td>${hy?.margin != null ? esc(fmt.pressure(hy.margin)) : '-'}</td>` +
+      `<td>${hy?.handMethod ? esc(fmt.pressure(hy.handMethod.sourcePressure)) : '-'}</td></tr>`;
+  });
+  const best = design.areas.find((a) => a.rank === 'most-demanding')?.hydraulics ?? design.areas.find((a) => a.hydraulics)?.hydraulics;
+  const nodeRows = best ? best.nodes.map((n) => `<tr><td>${esc(n.id)}</td><td>${esc(fmt.pressure(n.pressure))}</td><td>${n.flow > 0 ? esc(fmt.flow(n.flow)) : ''}</td><td>${esc(fmt.length(n.elevation))}</td></tr>`).join('') : '';
+  const c = converterFor(fmt.system);
+  const pipeRows = best ? best.pipes.map((p) => `<tr><td>${esc(p.id)}</td><td>${esc(fmt.flow(Math.abs(p.flow)))}</td><td>${c.velocity(p.velocity).toFixed(2)}</td><td>${esc(fmt.pressure(p.frictionLoss))}</td><td>${esc(fmt.length(p.length))}</td><td>${esc(p.fittings.join(', '))}</td></tr>`).join('') : '';
+  return `<section><h2>Design areas</h2>${head}
+<div class="scroll"><table id="areas"><thead><tr><th>area</th><th>heads</th><th>length</th><th>width</th><th>actual area</th><th>source pressure</th><th>source flow</th><th>with hose</th><th>supply</th><th>margin</th><th>hand method</th></tr></thead><tbody>${rows.join('')}</tbody></table></div>
+${best ? `<h3>Hydraulics of the most demanding area${best.riser.modelled === 'virtual' ? ` (riser modelled as a vertical ${esc(best.riser.nominalSize)}" pipe of ${esc(fmt.length(best.riser.length))}: static head and friction)` : ''}</h3>
+<details open><summary>Nodes (${best.nodes.length})</summary><div class="scroll"><table><thead><tr><th>node</th><th>pressure</th><th>flow</th><th>elevation</th></tr></thead><tbody>${nodeRows}</tbody></table></div></details>
+<details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>` : ''}</section>`;
+}
+
+function supplyHtml(input: CheckInput, result: CheckResult, c: ReturnType<typeof converterFor>, u: (typeof REPORT_UNITS)['us']): string {
+  const supply = input.settings.supply;
+  const demands = result.design.areas.flatMap((a) => (a.hydraulics ? [{ label: a.rank ?? 'drawn', flow: a.hydraulics.sourceFlow, withHose: a.hydraulics.totalDemand, pressure: a.hydraulics.sourcePressure }] : []));
+  if (!supply && !demands.length) return '';
+  return `<section><h2>Water supply</h2>${supply ? '' : '<p>No flow test given: demand points only.</p>'}${supplyGraph(supply, demands, c, u)}</section>`;
+}
+
+const STYLE = `
+:root{font-family:system-ui,-apple-system,Segoe UI,Roboto,sans-serif;color:#1b1b1b;line-height:1.4}
+body{margin:0 auto;max-width:1200px;padding:0 12px 24px}
+header{border-left:8px solid #2e7d32;padding:4px 12px;margin:12px 0}header.fail{border-color:#b3261e}
+h1{font-size:1.4rem;margin:.3em 0}h2{font-size:1.15rem;border-bottom:1px solid #ccc;padding-bottom:2px}
+.caution{font-size:.9rem;background:#fff6d6;padding:6px 8px;border-radius:4px}
+#plan{width:100%;height:70vh;border:1px solid #ccc;background:#fff;touch-action:none;cursor:grab}
+.room{fill:#f4f4f4;stroke:#555;stroke-width:calc(var(--u)*.5)}.wall{stroke:#555;fill:none;stroke-width:calc(var(--u)*.5)}
+.pipe{fill:none;stroke-width:calc(var(--u)*.7);stroke-linecap:round}
+.head{fill:#fff;stroke:#c62828;stroke-width:calc(var(--u)*.35)}.head.flowing{fill:#c62828}
+.area{fill:none;stroke-width:calc(var(--u)*.6);stroke-dasharray:calc(var(--u)*2) calc(var(--u)*1)}
+.area-most-demanding{stroke:#c2185b;fill:rgba(194,24,91,.06)}.area-runner-up{stroke:#00838f}.area-drawn{stroke:#f9a825}
+.marker{fill:none;stroke-width:calc(var(--u)*.6);cursor:pointer}.marker.error{stroke:#b3261e}.marker.warning{stroke:#ef6c00}.marker.info{stroke:#0277bd}
+.marker.hl{stroke-width:calc(var(--u)*1.6);fill:rgba(255,214,0,.35)}
+.key span{margin-right:10px;white-space:nowrap}.key i{display:inline-block;width:14px;height:4px;margin-right:4px;vertical-align:middle}
+.k-head{border:2px solid #c62828;border-radius:50%;width:8px!important;height:8px!important}.k-flow{background:#c62828;border-radius:50%;width:10px!important;height:10px!important}
+.k-err{border:2px solid #b3261e;border-radius:50%;width:10px!important;height:10px!important}.k-warn{border:2px solid #ef6c00;border-radius:50%;width:10px!important;height:10px!important}.k-info{border:2px solid #0277bd;border-radius:50%;width:10px!important;height:10px!important}
+table{border-collapse:collapse;width:100%;font-size:.88rem}th,td{border-bottom:1px solid #e2e2e2;padding:3px 6px;text-align:left;vertical-align:top}
+tr.error td:first-child{color:#b3261e;font-weight:600}tr.warning td:first-child{color:#ef6c00}tr.info td:first-child{color:#0277bd}
+tr[data-finding]{cursor:pointer}tr.hl{background:#fff3b0}.ref{font-size:.78rem;color:#555}.scroll{overflow-x:auto}
+.chart{width:100%;max-width:760px}.chart text{font-size:11px}.chart .axis{stroke:#333}.chart .grid{stroke:#e5e5e5}.chart .supply{stroke:#1f6fd1;stroke-width:2;fill:none}
+.chart .demand{fill:#c2185b}.chart .hose{stroke:#c2185b;stroke-dasharray:4 3}
+footer{font-size:.8rem;color:#666;margin-top:24px}
+@media (max-width:640px){#plan{height:50vh}td.ref,th:last-child{display:none}}
+@media print{.tools{display:none}#plan{height:auto;max-height:60vh;border:none}details{display:block}details>*{display:block}
+section{break-inside:avoid-page}header{border-left-width:4px}a{color:inherit}}
+`;
+
+/** Zoom and pan by viewBox; finding rows and markers highlight each other. Inline: the page loads nothing. */
+const SCRIPT = `
+(function(){
+var svg=document.getElementById('plan');if(!svg)return;
+var W=+svg.dataset.w,H=+svg.dataset.h,vb=[0,0,W,H];
+function set(){svg.setAttribute('viewBox',vb.join(' '));}
+function pt(e){var r=svg.getBoundingClientRect();return[vb[0]+(e.clientX-r.left)/r.width*vb[2],vb[1]+(e.clientY-r.top)/r.height*vb[3]];}
+svg.addEventListener('wheel',function(e){e.preventDefault();var p=pt(e),k=e.deltaY<0?0.8:1.25;vb=[p[0]-(p[0]-vb[0])*k,p[1]-(p[1]-vb[1])*k,vb[2]*k,vb[3]*k];set();},{passive:false});
+var drag=null;svg.addEventListener('pointerdown',function(e){drag=[e.clientX,e.clientY,vb[0],vb[1]];svg.setPointerCapture(e.pointerId);});
+svg.addEventListener('pointermove',function(e){if(!drag)return;var r=svg.getBoundingClientRect();vb[0]=drag[2]-(e.clientX-drag[0])/r.width*vb[2];vb[1]=drag[3]-(e.clientY-drag[1])/r.height*vb[3];set();});
+svg.addEventListener('pointerup',function(){drag=null;});
+document.getElementById('fit').addEventListener('click',function(){vb=[0,0,W,H];set();});
+function highlight(i){document.querySelectorAll('.hl').forEach(function(x){x.classList.remove('hl');});
+var m=svg.querySelector('.marker[data-finding="'+i+'"]'),row=document.querySelector('tr[data-finding="'+i+'"]');
+if(m){m.classList.add('hl');var cx=+m.getAttribute('cx'),cy=+m.getAttribute('cy'),s=Math.max(W,H)/6;vb=[cx-s/2,cy-s/2,s,s];set();}
+if(row)row.classList.add('hl');return m;}
+document.querySelectorAll('tr[data-finding]').forEach(function(row){row.addEventListener('click',function(){highlight(row.dataset.finding);svg.scrollIntoView({block:'nearest'});});
+row.addEventListener('keydown',function(e){if(e.key==='Enter')highlight(row.dataset.finding);});});
+svg.querySelectorAll('.marker').forEach(function(m){m.addEventListener('click',function(e){e.stopPropagation();var row=document.querySelector('tr[data-finding="'+m.dataset.finding+'"]');highlight(m.dataset.finding);if(row)row.scrollIntoView({block:'center'});});});
+})();
+`;
