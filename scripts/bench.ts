@@ -38,5 +38,26 @@ for (const heads of sizes) {
     );
   }
 }
-writeFileSync(join(OUT, 'bench.json'), `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows }, null, 2)}\n`);
+// Batch throughput: 200 generated drawings of 60 to 600 heads, checked with 1 and with 2 workers.
+const batch: Record<string, number> = {};
+if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
+  const set = join(OUT, 'batch-set');
+  mkdirSync(set, { recursive: true });
+  for (let i = 0; i < 200; i++) {
+    const heads = 6 + (i % 10) * 2;
+    const lines = 10 + (i % 5) * 5;
+    writeFileSync(join(set, `plan-${String(i).padStart(3, '0')}.dxf`), layoutDxf({ s: 12, l: 10, heads, lines, gridded: i % 7 === 0 }));
+  }
+  writeFileSync(join(set, 'headcheck.json'), JSON.stringify(config));
+  for (const workers of [1, 2]) {
+    const t0 = performance.now();
+    const r = spawnSync(process.execPath, ['bin/headcheck.js', 'batch', set, '--out', join(OUT, `batch-out-${workers}`), '--workers', String(workers), '--force'], { encoding: 'utf8', timeout: 3_600_000 });
+    const s = (performance.now() - t0) / 1000;
+    batch[`workers${workers}`] = 200 / s;
+    console.log(`batch of 200 drawings, ${workers} worker(s): ${s.toFixed(1)} s, ${(200 / s).toFixed(2)} drawings/s (exit ${r.status})`);
+  }
+  batch['speedup'] = batch['workers2']! / batch['workers1']!;
+  console.log(`2 workers / 1 worker: ${batch['speedup']!.toFixed(2)}×`);
+}
+writeFileSync(join(OUT, 'bench.json'), `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, batch }, null, 2)}\n`);
 console.log(`figures written to ${join(OUT, 'bench.json')}`);

@@ -3,7 +3,9 @@
 
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Option } from 'commander';
+import { defaultWorkers, runBatch } from '../batch/run-batch.js';
 import { annotatedDrawing, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
 import { parseSettingsText, type Settings, DEFAULT_SETTINGS } from '../config/settings.js';
@@ -15,6 +17,19 @@ import { TOOL } from '../version.js';
 import { assertNotInput, readConfigText, readInputFile, sha256Hex, writeAllAtomically } from './files.js';
 import { describeLayers } from './layers-table.js';
 import { summaryLine } from './summary-line.js';
+
+interface BatchCliOptions {
+  out: string;
+  config?: string;
+  units: UnitSystem;
+  workers: string;
+  timeLimit: string;
+  memoryLimit: string;
+  force?: boolean;
+  json: boolean;
+  dxf: boolean;
+  html: boolean;
+}
 
 interface CheckOptions {
   config?: string;
@@ -72,6 +87,39 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .option('--html <file>', 'write the HTML report')
     .addOption(unitsOption())
     .action((drawing: string, opts: CheckOptions) => { code = checkCommand(drawing, opts, io.out); });
+
+  program.command('batch <inputs...>')
+    .description('audit many drawings (folders are searched for .dxf files); one bad file never stops the rest')
+    .requiredOption('--out <dir>', 'folder for the reports and summaries')
+    .option('--config <file>', 'config JSON for drawings without their own')
+    .addOption(unitsOption())
+    .option('--workers <n>', 'worker threads', String(defaultWorkers()))
+    .option('--time-limit <s>', 'seconds per drawing', '300')
+    .option('--memory-limit <mb>', 'heap per worker, MB', '4096')
+    .option('--force', 'check every drawing again, even unchanged ones')
+    .option('--no-json', 'skip the JSON reports')
+    .option('--no-dxf', 'skip the annotated drawings')
+    .option('--no-html', 'skip the HTML reports')
+    .action(async (inputs: string[], opts: BatchCliOptions) => {
+      const positive = (v: string, name: string) => {
+        const n = Number(v);
+        if (!Number.isFinite(n) || n <= 0) throw new InputError(`${name}: must be a positive number, not "${v}"`);
+        return n;
+      };
+      mkdirSync(opts.out, { recursive: true });
+      const tty = process.stderr.isTTY === true;
+      const outcome = await runBatch({
+        inputs, out: opts.out, ...(opts.config ? { config: opts.config } : {}), units: opts.units,
+        outputs: { json: opts.json, dxf: opts.dxf, html: opts.html },
+        workers: Math.floor(positive(opts.workers, '--workers')), timeLimit: positive(opts.timeLimit, '--time-limit'),
+        memoryLimit: positive(opts.memoryLimit, '--memory-limit'), force: opts.force === true,
+        workerFile: fileURLToPath(new URL('../batch/worker.js', import.meta.url)),
+        progress: (line, final) => (tty ? process.stderr.write(`\r${line.padEnd(79)}${final ? '\n' : ''}`) : io.err(line)),
+      });
+      const count = (st: string) => outcome.rows.filter((r) => r.status === st).length;
+      io.out(`batch: ${outcome.rows.length} drawings: ${count('pass')} pass, ${count('fail')} fail, ${count('error')} could not be checked; summary in ${join(opts.out, 'index.html')}`);
+      code = outcome.exitCode;
+    });
 
   program.command('layers <drawing>')
     .description('list layers, entity counts and the role each would get')

@@ -153,7 +153,7 @@ svg.addEventListener('pointerup',function(){drag=null;});
 document.getElementById('fit').addEventListener('click',function(){vb=[0,0,W,H];set();});
 function highlight(i){document.querySelectorAll('.hl').forEach(function(x){x.classList.remove('hl');});
 var m=svg.querySelector('.marker[data-finding="'+i+'"]'),row=document.querySelector('tr[data-finding="'+i+'"]');
-if(m){m.classList.add('hl');var cx=+m.getAttribute('cx'),cy=+m.getAttribute('cy'),s=Math.max(W,H)/6;vb=[cx-s/2,cy-s/2,s,s];set();}
+if(m){m.classList.add('hl');var cx=+m.getAttribute('cx'),cy=+m.getAttribute('cy'),s=Math.max(W,H)/3;vb=[cx-s/2,cy-s/2,s,s];set();}
 if(row)row.classList.add('hl');return m;}
 document.querySelectorAll('tr[data-finding]').forEach(function(row){row.addEventListener('click',function(){highlight(row.dataset.finding);svg.scrollIntoView({block:'nearest'});});
 row.addEventListener('keydown',function(e){if(e.key==='Enter')highlight(row.dataset.finding);});});

@@ -1,0 +1,67 @@
+// A batch worker (run by the pool in a worker thread): checks one drawing, writes its outputs atomically
+// and returns its summary row. Unusable input becomes a row with status "error", never a thrown error.
+
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { annotatedDrawing, reportPage } from '../check/outputs.js';
+import { runCheck } from '../check/run-check.js';
+import { DEFAULT_SETTINGS, parseSettingsText } from '../config/settings.js';
+import type { UnitSystem } from '../quantities/convert.js';
+import { InputError } from '../read/errors.js';
+import { readInputFile, sha256Hex, writeAllAtomically } from '../cli/files.js';
+
+export interface BatchTask {
+  file: string;
+  name: string;
+  config: string | null;
+  outDir: string;
+  outputs: { json: boolean; dxf: boolean; html: boolean };
+  units: UnitSystem;
+}
+
+export interface BatchRow {
+  file: string;
+  name: string;
+  config: string | null;
+  status: 'pass' | 'fail' | 'error';
+  heads: number | null;
+  errors: number | null;
+  warnings: number | null;
+  /** Most demanding area: source pressure and flow (with hose), and the supply margin, in the report's units. */
+  demandPressure: number | null;
+  demandFlow: number | null;
+  margin: number | null;
+  message: string | null;
+  ms: number;
+  outputs: string[];
+}
+
+export default function checkOne(task: BatchTask): BatchRow {
+  const t0 = performance.now();
+  const row: BatchRow = {
+    file: task.file, name: task.name, config: task.config, status: 'error', heads: null, errors: null, warnings: null,
+    demandPressure: null, demandFlow: null, margin: null, message: null, ms: 0, outputs: [],
+  };
+  try {
+    const settings = task.config ? parseSettingsText(readFileSync(task.config, 'utf8'), task.config) : structuredClone(DEFAULT_SETTINGS);
+    const bytes = readInputFile(task.file);
+    const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units };
+    const result = runCheck(input);
+    const files: { path: string; data: string | Uint8Array }[] = [];
+    if (task.outputs.json) files.push({ path: join(task.outDir, `${task.name}.json`), data: `${JSON.stringify(result.report, null, 2)}\n` });
+    if (task.outputs.dxf) files.push({ path: join(task.outDir, `${task.name}.dxf`), data: annotatedDrawing(input, result) });
+    if (task.outputs.html) files.push({ path: join(task.outDir, `${task.name}.html`), data: reportPage(input, result) });
+    writeAllAtomically(files);
+    const s = result.report.summary;
+    const best = result.report.designAreas.find((a) => a.rank === 'most-demanding')?.hydraulics;
+    Object.assign(row, {
+      status: s.pass ? 'pass' : 'fail', heads: s.heads, errors: s.errors, warnings: s.warnings,
+      demandPressure: best?.sourcePressure ?? null, demandFlow: best?.totalDemand ?? null, margin: best?.margin ?? null,
+      outputs: files.map((f) => f.path.slice(task.outDir.length + 1)),
+    });
+  } catch (err) {
+    row.message = err instanceof InputError ? err.message.replace(`${task.file}: `, '') : `internal error: ${err instanceof Error ? err.message : String(err)}`;
+  }
+  row.ms = Math.round(performance.now() - t0);
+  return row;
+}

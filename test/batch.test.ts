@@ -1,0 +1,91 @@
+// Batch screening through the installed command: every file accounted for with its verdict, a corrupt or
+// non-DXF file never affects the others, per-drawing configs, reuse of unchanged results, --force, same-named
+// files in two folders, and per-file time and memory limits.
+
+import { spawnSync } from 'node:child_process';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
+import { layoutDxf } from '../src/demo/generated-layout.js';
+
+const run = (...args: string[]) => spawnSync(process.execPath, ['bin/headcheck.js', 'batch', ...args], { encoding: 'utf8', timeout: 300_000 });
+const summary = (out: string) => JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')).drawings as Record<string, any>[];
+
+let set: string;
+beforeAll(() => {
+  set = mkdtempSync(join(tmpdir(), 'hc-batch-'));
+  mkdirSync(join(set, 'east', 'level1'), { recursive: true });
+  mkdirSync(join(set, 'west'), { recursive: true });
+  // A clean layout with an ample supply passes; the demo fails on its planted findings.
+  writeFileSync(join(set, 'clean.dxf'), layoutDxf({ s: 12, l: 10, heads: 4, lines: 3 }));
+  writeFileSync(join(set, 'headcheck.json'), JSON.stringify({ supply: { static: 120, residual: 100, flow: 1500 } }));
+  writeFileSync(join(set, 'east', 'level1', 'plan.dxf'), demoDrawing());
+  writeFileSync(join(set, 'east', 'level1', 'plan.config.json'), JSON.stringify(DEMO_CONFIG));
+  copyFileSync('fixtures/bay2-r2018.dxf', join(set, 'west', 'plan.DXF'));
+  writeFileSync(join(set, 'west', 'broken.dxf'), readFileSync('fixtures/bay2-r2000.dxf').subarray(0, 6000));
+  writeFileSync(join(set, 'west', 'notes.dxf'), 'meeting notes, not a drawing\n');
+  writeFileSync(join(set, 'west', 'readme.txt'), 'not a dxf by its name');
+});
+
+describe('headcheck batch', () => {
+  it('accounts for every drawing with the right verdict; bad files do not stop the rest', () => {
+    const out = join(set, 'out');
+    const r = run(set, '--out', out, '--workers', '2');
+    expect(r.status, r.stderr).toBe(2);
+    const rows = summary(out);
+    const verdict = Object.fromEntries(rows.map((x) => [x.file.slice(set.length + 1), x.status]));
+    expect(verdict).toEqual({
+      'clean.dxf': 'pass', 'east/level1/plan.dxf': 'fail', 'west/broken.dxf': 'error', 'west/notes.dxf': 'error', 'west/plan.DXF': 'fail',
+    });
+    const byFile = (f: string) => rows.find((x) => x.file.endsWith(f))!;
+    expect(byFile('broken.dxf').message).toMatch(/truncated/);
+    expect(byFile('notes.dxf').message).toMatch(/not a DXF file/);
+    // configs: beside the drawing, else headcheck.json up the tree
+    expect(byFile('level1/plan.dxf').config).toBe(join(set, 'east', 'level1', 'plan.config.json'));
+    expect(byFile('west/plan.DXF').config).toBe(join(set, 'headcheck.json'));
+    expect(byFile('clean.dxf').margin).toBeGreaterThan(0);
+    // same-named drawings in two folders get distinct outputs; nothing is written outside --out
+    const files = readdirSync(out);
+    expect(files.filter((f) => f.endsWith('.json') && f.includes('plan'))).toHaveLength(2);
+    for (const f of ['summary.json', 'summary.csv', 'index.html']) expect(files).toContain(f);
+    expect(readFileSync(join(out, 'summary.csv'), 'utf8').trim().split('\n')).toHaveLength(6);
+    const index = readFileSync(join(out, 'index.html'), 'utf8');
+    expect(index.indexOf('broken.dxf')).toBeLessThan(index.indexOf('clean.dxf')); // worst first
+    expect(index).toMatch(/authority having jurisdiction/);
+  });
+
+  it('reuses unchanged results, redoes changed ones, and redoes all with --force', () => {
+    const out = join(set, 'out-reuse');
+    run(set, '--out', out);
+    const again = run(set, '--out', out);
+    expect(again.stderr).toMatch(/5 reused/);
+    writeFileSync(join(set, 'clean.dxf'), layoutDxf({ s: 12, l: 10, heads: 5, lines: 3 }));
+    const changed = run(set, '--out', out);
+    expect(changed.stderr).toMatch(/4 reused/);
+    expect(summary(out).find((x) => x.file.endsWith('clean.dxf'))!.heads).toBe(15);
+    const forced = run(set, '--out', out, '--force');
+    expect(forced.stderr).not.toMatch(/reused/);
+  });
+
+  it('marks a drawing that runs too long or too big as failed, with the reason', () => {
+    const big = mkdtempSync(join(tmpdir(), 'hc-batch-big-'));
+    writeFileSync(join(big, 'large.dxf'), layoutDxf({ s: 12, l: 10, heads: 100, lines: 60 }));
+    writeFileSync(join(big, 'small.dxf'), layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }));
+    const slow = run(big, '--out', join(big, 'o1'), '--time-limit', '0.2', '--workers', '1', '--no-dxf', '--no-html');
+    const rows = summary(join(big, 'o1'));
+    expect(rows.find((x) => x.file.endsWith('large.dxf'))!.message).toMatch(/timed out after 0.2 s/);
+    expect(slow.status).toBe(2);
+    const hungry = run(big, '--out', join(big, 'o2'), '--memory-limit', '24', '--workers', '1', '--no-dxf', '--no-html');
+    const rows2 = summary(join(big, 'o2'));
+    expect(rows2.find((x) => x.file.endsWith('large.dxf'))!.message).toMatch(/out of memory|worker failed/);
+    expect(hungry.status).toBe(2);
+  });
+
+  it('refuses a missing input with exit 2 and one line', () => {
+    const r = run(join(set, 'nowhere'), '--out', join(set, 'o3'));
+    expect(r.status).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+  });
+});
