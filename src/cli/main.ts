@@ -10,6 +10,7 @@ import { annotatedDrawing, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
 import { parseSettingsText, type Settings, DEFAULT_SETTINGS } from '../config/settings.js';
 import { demoDrawing, DEMO_CONFIG } from '../demo/scenario.js';
+import { serve } from '../serve/server.js';
 import { parseSettings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../read/errors.js';
@@ -128,6 +129,18 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       const settings = loadSettings(opts.config);
       const bytes = readInputFile(drawing);
       io.out(withFile(drawing, () => describeLayers(bytes, settings)));
+    });
+
+  program.command('serve')
+    .description('local page: drop a drawing in, see the plan and the findings, download the outputs')
+    .option('--port <n>', 'port (0: any free one)', '8377')
+    .option('--host <address>', 'address to listen on', '127.0.0.1')
+    .action(async (opts: { port: string; host: string }) => {
+      const port = Number(opts.port);
+      if (!Number.isInteger(port) || port < 0 || port > 65535) throw new InputError(`--port: must be a port number, not "${opts.port}"`);
+      const s = await serve(fileURLToPath(new URL('../web/', import.meta.url)), port, opts.host);
+      io.out(`headcheck: the local page is at ${s.url} (the drawing stays on this machine; Ctrl-C stops)`);
+      await new Promise<void>((done) => process.once('SIGINT', () => { void s.close().then(done); }));
     });
 
   program.command('demo')

@@ -38,7 +38,7 @@ export function htmlReport(input: CheckInput, result: CheckResult): string {
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:">
 <title>headcheck: ${verdict} ${esc(r.input.file)}</title><style>${STYLE}</style></head>
-<body>${body.join('\n')}<script>${SCRIPT}</script></body></html>
+<body>${body.join('\n')}<script>${REPORT_SCRIPT}</script></body></html>
 `;
 }
 
@@ -140,7 +140,7 @@ section{break-inside:avoid-page}header{border-left-width:4px}a{color:inherit}}
 `;
 
 /** Zoom and pan by viewBox; finding rows and markers highlight each other. Inline: the page loads nothing. */
-const SCRIPT = `
+export const REPORT_SCRIPT = `
 (function(){
 var svg=document.getElementById('plan');if(!svg)return;
 var W=+svg.dataset.w,H=+svg.dataset.h,vb=[0,0,W,H];

@@ -1,0 +1,72 @@
+// `headcheck serve`: a local server for the built page. It serves only the files of that build (a fixed
+// table, so no request path reaches the file system), with a strict Content-Security-Policy; no outside requests.
+
+import { createHash } from 'node:crypto';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { createServer, type Server } from 'node:http';
+import { extname, join, relative, sep } from 'node:path';
+import { REPORT_SCRIPT } from '../outputs/html-report.js';
+import { InputError } from '../read/errors.js';
+
+const TYPES: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8', '.js': 'text/javascript; charset=utf-8', '.css': 'text/css; charset=utf-8',
+  '.svg': 'image/svg+xml', '.png': 'image/png', '.json': 'application/json', '.ico': 'image/x-icon',
+};
+
+/** Scripts only from the page itself, plus the report's one inline script (shown in an iframe) by its hash. */
+export function contentSecurityPolicy(): string {
+  const hash = createHash('sha256').update(REPORT_SCRIPT).digest('base64');
+  return [
+    "default-src 'none'", `script-src 'self' 'sha256-${hash}'`, "style-src 'self' 'unsafe-inline'", "img-src 'self' data: blob:",
+    "worker-src 'self'", "connect-src 'self'", "frame-src 'self' blob:", "base-uri 'none'", "form-action 'none'", "frame-ancestors 'self'",
+  ].join('; ');
+}
+
+function filesOf(root: string): Map<string, string> {
+  const table = new Map<string, string>();
+  const walk = (dir: string) => {
+    for (const e of readdirSync(dir, { withFileTypes: true })) {
+      const p = join(dir, e.name);
+      if (e.isDirectory()) walk(p);
+      else table.set(`/${relative(root, p).split(sep).join('/')}`, p);
+    }
+  };
+  walk(root);
+  return table;
+}
+
+export interface Serving { url: string; server: Server; close(): Promise<void> }
+
+export function serve(root: string, port: number, host = '127.0.0.1'): Promise<Serving> {
+  if (!existsSync(join(root, 'index.html'))) throw new InputError(`${root}: the page is not built (run "npm run build")`);
+  const table = filesOf(root);
+  const csp = contentSecurityPolicy();
+  const server = createServer((req, res) => {
+    const headers = {
+      'Content-Security-Policy': csp, 'X-Content-Type-Options': 'nosniff', 'Referrer-Policy': 'no-referrer',
+      'Cache-Control': 'no-store', 'Cross-Origin-Opener-Policy': 'same-origin',
+    };
+    let path = '/';
+    try {
+      path = decodeURIComponent(new URL(req.url ?? '/', 'http://local').pathname);
+    } catch {
+      path = '';
+    }
+    const file = table.get(path === '/' ? '/index.html' : path);
+    if ((req.method !== 'GET' && req.method !== 'HEAD') || !file) {
+      res.writeHead(404, { ...headers, 'Content-Type': 'text/plain; charset=utf-8' });
+      res.end('not found\n');
+      return;
+    }
+    res.writeHead(200, { ...headers, 'Content-Type': TYPES[extname(file)] ?? 'application/octet-stream' });
+    res.end(req.method === 'HEAD' ? undefined : readFileSync(file));
+  });
+  return new Promise((resolvePromise, reject) => {
+    server.once('error', (err) => reject(new InputError(`--port ${port}: ${(err as NodeJS.ErrnoException).code ?? err.message}`)));
+    server.listen(port, host, () => {
+      const address = server.address();
+      const actual = typeof address === 'object' && address ? address.port : port;
+      resolvePromise({ url: `http://${host}:${actual}/`, server, close: () => new Promise((r) => server.close(() => r())) });
+    });
+  });
+}

@@ -1,0 +1,91 @@
+// The local page in Debian chromium (playwright-core): drop the demo drawing, wait for the verdict, compare
+// the page's downloads with what the CLI writes for the same file and config (byte for byte), change the hazard
+// and see the result change; path traversal gets 404. A screenshot is kept in test-artifacts/.
+
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { request } from 'node:http';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { chromium } from 'playwright-core';
+import { expect, it } from 'vitest';
+import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
+import { serve } from '../src/serve/server.js';
+import { describeWith, hasCommand } from './support/external.js';
+
+const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+
+/** A raw request path, not normalised by a client. */
+function statusOf(url: string, rawPath: string): Promise<number> {
+  const u = new URL(url);
+  return new Promise((res, rej) => {
+    const r = request({ host: u.hostname, port: u.port, path: rawPath, method: 'GET' }, (resp) => { resp.resume(); res(resp.statusCode ?? 0); });
+    r.on('error', rej);
+    r.end();
+  });
+}
+
+describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
+  it('checks a dropped drawing in the browser exactly as the CLI does', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'hc-serve-'));
+    writeFileSync(join(dir, 'demo-plan.dxf'), demoDrawing());
+    const s = await serve(resolve('dist/web'), 0);
+    const browser = await chromium.launchPersistentContext(join(dir, 'profile'), {
+      executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS, viewport: { width: 1280, height: 1400 }, acceptDownloads: true,
+    });
+    try {
+      expect(await statusOf(s.url, '/../package.json')).toBe(404);
+      expect(await statusOf(s.url, '/%2e%2e/%2e%2e/package.json')).toBe(404);
+      expect(await statusOf(s.url, '/assets/../../src/cli/main.ts')).toBe(404);
+      const page = await browser.newPage();
+      const outside: string[] = [];
+      page.on('request', (r) => { if (!r.url().startsWith(s.url) && !r.url().startsWith('blob:') && !r.url().startsWith('about:')) outside.push(r.url()); });
+      await page.goto(s.url);
+      await expect.poll(() => page.locator('#caution').textContent()).toMatch(/authority having jurisdiction/);
+      const d = DEMO_CONFIG.design;
+      await page.selectOption('select[name=hazard]', d.hazard);
+      await page.fill('input[name=density]', String(d.density));
+      await page.fill('input[name=area]', String(d.area));
+      await page.fill('input[name=static]', String(DEMO_CONFIG.supply.static));
+      await page.fill('input[name=residual]', String(DEMO_CONFIG.supply.residual));
+      await page.fill('input[name=flow]', String(DEMO_CONFIG.supply.flow));
+      await page.setInputFiles('#file', join(dir, 'demo-plan.dxf'));
+      await expect.poll(() => page.locator('#verdict').textContent(), { timeout: 60_000 }).toMatch(/^FAIL: 49 heads/);
+      const save = async (id: string, name: string) => {
+        const [dl] = await Promise.all([page.waitForEvent('download'), page.click(`#${id}`)]);
+        const p = join(dir, name);
+        await dl.saveAs(p);
+        return readFileSync(p);
+      };
+      const config = await save('dl-config', 'page.config.json');
+      const json = await save('dl-json', 'page.json');
+      const dxf = await save('dl-dxf', 'page.dxf');
+      const html = await save('dl-html', 'page.html');
+      // The CLI on the same file name and config writes the same bytes.
+      writeFileSync(join(dir, 'demo-plan.config.json'), config);
+      const cli = spawnSync(process.execPath, [resolve('bin/headcheck.js'), 'check', 'demo-plan.dxf', '--config', 'demo-plan.config.json',
+        '--json', 'cli.json', '--dxf', 'cli.dxf', '--html', 'cli.html'], { cwd: dir, encoding: 'utf8' });
+      expect(cli.status).toBe(1);
+      expect(json.equals(readFileSync(join(dir, 'cli.json')))).toBe(true);
+      expect(dxf.equals(readFileSync(join(dir, 'cli.dxf')))).toBe(true);
+      expect(html.equals(readFileSync(join(dir, 'cli.html')))).toBe(true);
+      const report = JSON.parse(json.toString('utf8'));
+      expect(report.designAreas.map((a: { rank: string | null }) => a.rank)).toEqual([null, 'most-demanding', 'runner-up']);
+      // The report in the page highlights a finding from its row.
+      const frame = page.frameLocator('#report');
+      expect(await frame.locator('#plan circle.head').count()).toBe(49);
+      await frame.locator('tr[data-finding="0"]').click();
+      await expect.poll(() => frame.locator('#plan circle.marker[data-finding="0"]').getAttribute('class')).toContain('hl');
+      mkdirSync('test-artifacts', { recursive: true });
+      await page.screenshot({ path: 'test-artifacts/serve-demo.png' });
+      // Light hazard allows 225 ft² a head: the two protection-area errors go.
+      const errorsBefore = report.summary.errors;
+      await page.selectOption('select[name=hazard]', 'LH');
+      await expect.poll(() => page.locator('#verdict').textContent(), { timeout: 60_000 }).not.toContain(`${errorsBefore} errors`);
+      expect(outside).toEqual([]);
+    } finally {
+      await browser.close();
+      await s.close();
+    }
+  });
+});
