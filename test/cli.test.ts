@@ -141,7 +141,7 @@ describe('headcheck layers and demo', () => {
     const out = join(dir, 'demo');
     const r = await run('demo', '--out', out);
     expect(r.code).toBe(0);
-    expect(readdirSync(out).sort()).toEqual(['demo-plan.config.json', 'demo-plan.dxf', 'demo-plan.json']);
+    expect(readdirSync(out).sort()).toEqual(['demo-plan.annotated.dxf', 'demo-plan.config.json', 'demo-plan.dxf', 'demo-plan.html', 'demo-plan.json']);
     const report = JSON.parse(readFileSync(join(out, 'demo-plan.json'), 'utf8'));
     expect(report.summary.heads).toBe(49);
   });

@@ -156,8 +156,12 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
         { path: configPath, data: `${JSON.stringify(DEMO_CONFIG, null, 2)}\n` },
       ]);
       parseSettings(DEMO_CONFIG, configPath);
-      const verdict = checkCommand(dxfPath, { config: configPath, json: join(opts.out, 'demo-plan.json'), units: opts.units }, io.out);
-      io.out(`demo: drawing, config and report in ${opts.out}/ (the demo plan has planted findings; exit ${verdict} would be the check's verdict)`);
+      const verdict = checkCommand(dxfPath, {
+        config: configPath, json: join(opts.out, 'demo-plan.json'), dxf: join(opts.out, 'demo-plan.annotated.dxf'),
+        html: join(opts.out, 'demo-plan.html'), units: opts.units,
+      }, io.out);
+      io.out(`demo: drawing, config, JSON and HTML reports and the annotated drawing in ${opts.out}/ ` +
+        `(the demo plan has planted findings: the check's own verdict would be exit ${verdict})`);
       code = 0;
     });
 
