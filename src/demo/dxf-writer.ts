@@ -2,7 +2,7 @@
 // and generated test drawings, built on the same records the annotator writes.
 
 import type { Point } from '../geometry/point.js';
-import { formatGroups } from '../outputs/dxf-groups.js';
+import { formatGroups } from '../outputs/dxf-format.js';
 import * as rec from '../outputs/dxf-records.js';
 
 export interface AttribValue { tag: string; value: string }

@@ -5,7 +5,8 @@ import type { Point } from '../geometry/point.js';
 import type { LengthUnit } from '../read/types.js';
 import { FEET_PER_UNIT } from '../read/units.js';
 import type { Annotations, Primitive } from './annotations.js';
-import { byteView, formatGroups, lineBreakOf, readGroups, type Group } from './dxf-groups.js';
+import { byteView, lineBreakOf, readGroups, type Group } from '../read/groups.js';
+import { formatGroups } from './dxf-format.js';
 import * as rec from './dxf-records.js';
 
 interface Splice { at: number; end: number; text: string }

@@ -17,7 +17,7 @@ export interface ReadOptions {
 
 export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawing {
   const decoded = decodeDrawing(bytes);
-  const dxf = parseDxfText(decoded.text);
+  const { dxf, layerNames } = parseDxfText(decoded.text);
   const header = dxf.header ?? {};
   const fromHeader = unitFromInsunits(header['$INSUNITS']);
   const units = options.units ?? fromHeader;
@@ -25,7 +25,7 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
     fail('the drawing does not state its length unit ($INSUNITS is missing or unitless); set "units" in the config (in, ft, mm, cm or m)');
   }
   const flat = flattenDxf(dxf, FEET_PER_UNIT[units!], options.limits ?? DEFAULT_FLATTEN_LIMITS);
-  const tableLayers = Object.keys(dxf.tables?.layer?.layers ?? {}).map(decodeUnicodeEscapes);
+  const tableLayers = layerNames.map(decodeUnicodeEscapes);
   const names = new Set([...tableLayers, ...flat.counts.keys()]);
   const layers: LayerSummary[] = [...names]
     .sort((a, b) => a.localeCompare(b))

@@ -1,5 +1,5 @@
-// Reads a DXF file's group structure without changing it: every group's code, value and byte range, and
-// the places an annotator needs (sections, tables, the handle seed). Works on a 1:1 byte-to-char view.
+// Reads a DXF file's group structure without changing it: every group's code, value and character range,
+// on a text or a 1:1 byte-to-char view. The reader checks structure with it; the annotator splices by it.
 
 export interface Group {
   code: number;
@@ -44,16 +44,3 @@ export function readGroups(view: string): Group[] {
 /** The line break the file uses. */
 export const lineBreakOf = (view: string): string => (view.indexOf('\r\n') >= 0 && view.indexOf('\r\n') <= view.indexOf('\n') ? '\r\n' : '\n');
 
-/** Formats group code/value pairs as DXF lines. */
-export function formatGroups(pairs: readonly (string | number)[], eol = '\n'): string {
-  let s = '';
-  for (let i = 0; i < pairs.length; i += 2) {
-    const v = pairs[i + 1]!;
-    s += `${String(pairs[i]).padStart(3)}${eol}${typeof v === 'number' ? formatNumber(v) : v}${eol}`;
-  }
-  return s;
-}
-
-/** Plain decimal notation with ten decimals at most (readers differ on exponents). */
-export const formatNumber = (v: number): string =>
-  Number.isInteger(v) ? String(v) : Math.abs(v) < 1e-10 ? '0' : v.toFixed(10).replace(/0+$/, '').replace(/\.$/, '');
