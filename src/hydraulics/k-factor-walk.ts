@@ -27,22 +27,7 @@ export const treeBound = (model: HydraulicModel): TreeBound | null => kFactorWal
 export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeBound | null {
   const n = model.nodes.length;
   if (model.pipes.length !== n - 1) return null;
-  const parentPipe = new Int32Array(n).fill(-1);
-  const parentNode = new Int32Array(n).fill(-1);
-  const incident: number[][] = model.nodes.map(() => []);
-  model.pipes.forEach((p, k) => { incident[p.from]!.push(k); incident[p.to]!.push(k); });
-  const seen = new Uint8Array(n);
-  const order = [model.source];
-  seen[model.source] = 1;
-  for (let i = 0; i < order.length; i++) {
-    const u = order[i]!;
-    for (const k of incident[u]!) {
-      const p = model.pipes[k]!;
-      const v = p.from === u ? p.to : p.from;
-      if (seen[v]) continue;
-      seen[v] = 1; parentPipe[v] = k; parentNode[v] = u; order.push(v);
-    }
-  }
+  const { order, parentPipe, parentNode } = breadthFirst(model);
   if (order.length !== n) return null;
   const rank = new Int32Array(n);
   order.forEach((v, i) => { rank[v] = i; });
@@ -99,22 +84,28 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
  * system's demand, but a good estimate of which areas are demanding, used to order a search.
  */
 export function spanningTreeModel(model: HydraulicModel): HydraulicModel {
+  const { parentPipe } = breadthFirst(model);
+  return { ...model, pipes: [...parentPipe].filter((k) => k >= 0).sort((a, b) => a - b).map((k) => model.pipes[k]!) };
+}
+
+/** Breadth-first from the source: visiting order, and each reached node's pipe and node towards the source. */
+function breadthFirst(model: HydraulicModel): { order: number[]; parentPipe: Int32Array; parentNode: Int32Array } {
+  const n = model.nodes.length;
+  const parentPipe = new Int32Array(n).fill(-1);
+  const parentNode = new Int32Array(n).fill(-1);
   const incident: number[][] = model.nodes.map(() => []);
   model.pipes.forEach((p, k) => { incident[p.from]!.push(k); incident[p.to]!.push(k); });
-  const seen = new Uint8Array(model.nodes.length);
-  const keep: number[] = [];
-  const queue = [model.source];
+  const seen = new Uint8Array(n);
+  const order = [model.source];
   seen[model.source] = 1;
-  for (let i = 0; i < queue.length; i++) {
-    const u = queue[i]!;
+  for (let i = 0; i < order.length; i++) {
+    const u = order[i]!;
     for (const k of incident[u]!) {
       const p = model.pipes[k]!;
       const v = p.from === u ? p.to : p.from;
       if (seen[v]) continue;
-      seen[v] = 1;
-      keep.push(k);
-      queue.push(v);
+      seen[v] = 1; parentPipe[v] = k; parentNode[v] = u; order.push(v);
     }
   }
-  return { ...model, pipes: keep.map((k) => model.pipes[k]!) };
+  return { order, parentPipe, parentNode };
 }
