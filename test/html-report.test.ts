@@ -12,6 +12,7 @@ import { runCheck } from '../src/check/run-check.js';
 import { parseSettings } from '../src/config/settings.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
 import { describeWith, hasCommand } from './support/external.js';
+import { headsDrawn } from './support/plan.js';
 
 /** Chromium as root with nothing reaching out (playwright adds --headless; the profile is a fresh folder). */
 const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
@@ -31,9 +32,9 @@ describeWith('chromium', hasCommand('chromium'), 'HTML report in Chromium', () =
       const requests: string[] = [];
       page.on('request', (r) => requests.push(r.url()));
       await page.goto(`file://${file}`);
-      expect(await page.locator('#plan circle.head').count()).toBe(result.plan.heads.length);
+      expect(await headsDrawn(page.locator('#plan'))).toBe(result.plan.heads.length);
       expect(await page.locator('#plan circle.marker').count()).toBe(result.findings.length);
-      expect(await page.locator('#plan circle.head.flowing').count()).toBe(result.design.areas.find((a) => a.rank === 'most-demanding')!.headIds.length);
+      expect(await headsDrawn(page.locator('#plan'), '.flowing')).toBe(result.design.areas.find((a) => a.rank === 'most-demanding')!.headIds.length);
       const row = page.locator('tr[data-finding="0"]');
       await row.click();
       await expect.poll(() => page.locator('#plan circle.marker[data-finding="0"]').getAttribute('class')).toContain('hl');

@@ -12,6 +12,7 @@ import { expect, it } from 'vitest';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
 import { serve } from '../src/serve/server.js';
 import { describeWith, hasCommand } from './support/external.js';
+import { headsDrawn } from './support/plan.js';
 
 const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
 
@@ -73,7 +74,7 @@ describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
       expect(report.designAreas.map((a: { rank: string | null }) => a.rank)).toEqual([null, 'most-demanding', 'runner-up']);
       // The report in the page highlights a finding from its row.
       const frame = page.frameLocator('#report');
-      expect(await frame.locator('#plan circle.head').count()).toBe(49);
+      expect(await headsDrawn(frame.locator('#plan'))).toBe(49);
       await frame.locator('tr[data-finding="0"]').click();
       await expect.poll(() => frame.locator('#plan circle.marker[data-finding="0"]').getAttribute('class')).toContain('hl');
       mkdirSync('test-artifacts', { recursive: true });

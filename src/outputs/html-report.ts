@@ -60,11 +60,19 @@ function planSvg(result: CheckResult): string {
     if (a.outline.length < 3) continue;
     parts.push(`<path class="area area-${a.rank ?? 'drawn'}" d="${path(a.outline, true)}"><title>${esc(a.rank ?? 'drawn')} design area: ${a.headIds.length} heads</title></path>`);
   }
-  parts.push(...network.pipes.map((p) => `<path class="pipe" data-role="${p.role}" stroke="${ROLE_COLOR[p.role]}" d="${path(p.points, false)}"><title>${esc(p.id)} ${esc(p.role)} ${esc(p.nominalSize)}"</title></path>`));
+  // Few large paths, not one element per pipe or head: a plan of 20,000 heads stays smooth to zoom and pan.
+  for (const role of Object.keys(ROLE_COLOR) as PipeRole[]) {
+    const mine = network.pipes.filter((p) => p.role === role);
+    if (mine.length) parts.push(`<path class="pipe" data-role="${role}" data-count="${mine.length}" stroke="${ROLE_COLOR[role]}" d="${mine.map((p) => path(p.points, false)).join(' ')}"/>`);
+  }
   const flowing = new Set(design.areas.find((a) => a.rank === 'most-demanding')?.headIds ?? []);
-  parts.push(...plan.heads.map((hd) => `<circle class="head${flowing.has(hd.id) ? ' flowing' : ''}" cx="${X(hd.position)}" cy="${Y(hd.position)}" r="${(unit * 1.1).toFixed(3)}"><title>${esc(hd.id)} (${esc(hd.handle)}) K ${hd.kFactor.toFixed(1)}</title></circle>`));
+  const r = unit * 1.1;
+  const ring = (p: Point) => `M${(Number(X(p)) - r).toFixed(3)} ${Y(p)}a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(2 * r).toFixed(3)} 0a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(-2 * r).toFixed(3)} 0`;
+  for (const [cls, heads] of [['head', plan.heads.filter((h) => !flowing.has(h.id))], ['head flowing', plan.heads.filter((h) => flowing.has(h.id))]] as const) {
+    if (heads.length) parts.push(`<path class="${cls}" data-count="${heads.length}" d="${heads.map((h) => ring(h.position)).join('')}"/>`);
+  }
   parts.push(...findings.map((f, i) => `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(f.message)}</title></circle>`));
-  return `<svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" style="--u:${unit.toFixed(4)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg>`;
+  return `<div class="planbox"><svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg></div>`;
 }
 
 function legendHtml(): string {
@@ -117,14 +125,15 @@ body{margin:0 auto;max-width:1200px;padding:0 12px 24px}
 header{border-left:8px solid #2e7d32;padding:4px 12px;margin:12px 0}header.fail{border-color:#b3261e}
 h1{font-size:1.4rem;margin:.3em 0}h2{font-size:1.15rem;border-bottom:1px solid #ccc;padding-bottom:2px}
 .caution{font-size:.9rem;background:#fff6d6;padding:6px 8px;border-radius:4px}
-#plan{width:100%;height:70vh;border:1px solid #ccc;background:#fff;touch-action:none;cursor:grab}
-.room{fill:#f4f4f4;stroke:#555;stroke-width:calc(var(--u)*.5)}.wall{stroke:#555;fill:none;stroke-width:calc(var(--u)*.5)}
-.pipe{fill:none;stroke-width:calc(var(--u)*.7);stroke-linecap:round}
-.head{fill:#fff;stroke:#c62828;stroke-width:calc(var(--u)*.35)}.head.flowing{fill:#c62828}
-.area{fill:none;stroke-width:calc(var(--u)*.6);stroke-dasharray:calc(var(--u)*2) calc(var(--u)*1)}
+.planbox{width:100%;height:70vh;border:1px solid #ccc;background:#fff;overflow:hidden;touch-action:none;cursor:grab}
+#plan{width:100%;height:100%;display:block;transform-origin:0 0;will-change:transform}
+.room{fill:#f4f4f4;stroke:#555;stroke-width:1.2px;vector-effect:non-scaling-stroke}.wall{stroke:#555;fill:none;stroke-width:1.2px;vector-effect:non-scaling-stroke}
+.pipe{fill:none;stroke-width:2px;stroke-linecap:round;vector-effect:non-scaling-stroke}
+.head{fill:#fff;stroke:#c62828;stroke-width:1px;vector-effect:non-scaling-stroke}.head.flowing{fill:#c62828}
+.area{fill:none;stroke-width:1.6px;stroke-dasharray:8 4;vector-effect:non-scaling-stroke}
 .area-most-demanding{stroke:#c2185b;fill:rgba(194,24,91,.06)}.area-runner-up{stroke:#00838f}.area-drawn{stroke:#f9a825}
-.marker{fill:none;stroke-width:calc(var(--u)*.6);cursor:pointer}.marker.error{stroke:#b3261e}.marker.warning{stroke:#ef6c00}.marker.info{stroke:#0277bd}
-.marker.hl{stroke-width:calc(var(--u)*1.6);fill:rgba(255,214,0,.35)}
+.marker{fill:none;stroke-width:1.6px;cursor:pointer;vector-effect:non-scaling-stroke}.marker.error{stroke:#b3261e}.marker.warning{stroke:#ef6c00}.marker.info{stroke:#0277bd}
+.marker.hl{stroke-width:4px;fill:rgba(255,214,0,.35)}
 .key span{margin-right:10px;white-space:nowrap}.key i{display:inline-block;width:14px;height:4px;margin-right:4px;vertical-align:middle}
 .k-head{border:2px solid #c62828;border-radius:50%;width:8px!important;height:8px!important}.k-flow{background:#c62828;border-radius:50%;width:10px!important;height:10px!important}
 .k-err{border:2px solid #b3261e;border-radius:50%;width:10px!important;height:10px!important}.k-warn{border:2px solid #ef6c00;border-radius:50%;width:10px!important;height:10px!important}.k-info{border:2px solid #0277bd;border-radius:50%;width:10px!important;height:10px!important}
@@ -134,28 +143,36 @@ tr[data-finding]{cursor:pointer}tr.hl{background:#fff3b0}.ref{font-size:.78rem;c
 .chart{width:100%;max-width:760px}.chart text{font-size:11px}.chart .axis{stroke:#333}.chart .grid{stroke:#e5e5e5}.chart .supply{stroke:#1f6fd1;stroke-width:2;fill:none}
 .chart .demand{fill:#c2185b}.chart .hose{stroke:#c2185b;stroke-dasharray:4 3}
 footer{font-size:.8rem;color:#666;margin-top:24px}
-@media (max-width:640px){#plan{height:50vh}td.ref,th:last-child{display:none}}
-@media print{.tools{display:none}#plan{height:auto;max-height:60vh;border:none}details{display:block}details>*{display:block}
+@media (max-width:640px){.planbox{height:50vh}td.ref,th:last-child{display:none}}
+@media print{.tools{display:none}.planbox{height:auto;border:none}#plan{height:auto;max-height:60vh}details{display:block}details>*{display:block}
 section{break-inside:avoid-page}header{border-left-width:4px}a{color:inherit}}
 `;
 
-/** Zoom and pan by viewBox; finding rows and markers highlight each other. Inline: the page loads nothing. */
+/**
+ * Zoom and pan: during a gesture the drawn plan moves by a CSS transform (composited, nothing redrawn); when it
+ * pauses, the transform becomes the viewBox. Finding rows and markers highlight each other. Inline: loads nothing.
+ */
 export const REPORT_SCRIPT = `
 (function(){
 var svg=document.getElementById('plan');if(!svg)return;
-var W=+svg.dataset.w,H=+svg.dataset.h,vb=[0,0,W,H];
-function set(){svg.setAttribute('viewBox',vb.join(' '));}
-function pt(e){var r=svg.getBoundingClientRect();return[vb[0]+(e.clientX-r.left)/r.width*vb[2],vb[1]+(e.clientY-r.top)/r.height*vb[3]];}
-svg.addEventListener('wheel',function(e){e.preventDefault();var p=pt(e),k=e.deltaY<0?0.8:1.25;vb=[p[0]-(p[0]-vb[0])*k,p[1]-(p[1]-vb[1])*k,vb[2]*k,vb[3]*k];set();},{passive:false});
-var drag=null;svg.addEventListener('pointerdown',function(e){drag=[e.clientX,e.clientY,vb[0],vb[1]];svg.setPointerCapture(e.pointerId);});
-svg.addEventListener('pointermove',function(e){if(!drag)return;var r=svg.getBoundingClientRect();vb[0]=drag[2]-(e.clientX-drag[0])/r.width*vb[2];vb[1]=drag[3]-(e.clientY-drag[1])/r.height*vb[3];set();});
-svg.addEventListener('pointerup',function(){drag=null;});
-document.getElementById('fit').addEventListener('click',function(){vb=[0,0,W,H];set();});
+var box=svg.parentNode,W=+svg.dataset.w,H=+svg.dataset.h,vb,k=1,tx=0,ty=0,timer=0;
+function aspect(){var r=box.getBoundingClientRect();return r.height>0?r.width/r.height:1;}
+function fitTo(x,y,w,h){var a=aspect();if(w/h<a){x-=(h*a-w)/2;w=h*a;}else{y-=(w/a-h)/2;h=w/a;}vb=[x,y,w,h];commit();}
+function commit(){svg.setAttribute('viewBox',vb.join(' '));k=1;tx=0;ty=0;svg.style.transform='';}
+function settle(){var r=box.getBoundingClientRect(),s=r.width/vb[2];vb=[vb[0]-tx/(k*s),vb[1]-ty/(k*s),vb[2]/k,vb[3]/k];commit();}
+function move(){svg.style.transform='translate('+tx+'px,'+ty+'px) scale('+k+')';clearTimeout(timer);timer=setTimeout(settle,160);}
+box.addEventListener('wheel',function(e){e.preventDefault();var r=box.getBoundingClientRect(),cx=e.clientX-r.left,cy=e.clientY-r.top,f=e.deltaY<0?1.25:0.8;
+k*=f;tx=cx-(cx-tx)*f;ty=cy-(cy-ty)*f;move();},{passive:false});
+var drag=null;box.addEventListener('pointerdown',function(e){drag=[e.clientX-tx,e.clientY-ty];box.setPointerCapture(e.pointerId);});
+box.addEventListener('pointermove',function(e){if(!drag)return;tx=e.clientX-drag[0];ty=e.clientY-drag[1];move();});
+box.addEventListener('pointerup',function(){drag=null;});
+document.getElementById('fit').addEventListener('click',function(){fitTo(0,0,W,H);});
+fitTo(0,0,W,H);
 function highlight(i){document.querySelectorAll('.hl').forEach(function(x){x.classList.remove('hl');});
 var m=svg.querySelector('.marker[data-finding="'+i+'"]'),row=document.querySelector('tr[data-finding="'+i+'"]');
-if(m){m.classList.add('hl');var cx=+m.getAttribute('cx'),cy=+m.getAttribute('cy'),s=Math.max(W,H)/3;vb=[cx-s/2,cy-s/2,s,s];set();}
+if(m){m.classList.add('hl');var cx=+m.getAttribute('cx'),cy=+m.getAttribute('cy'),s=Math.max(W,H)/3;fitTo(cx-s/2,cy-s/2,s,s);}
 if(row)row.classList.add('hl');return m;}
-document.querySelectorAll('tr[data-finding]').forEach(function(row){row.addEventListener('click',function(){highlight(row.dataset.finding);svg.scrollIntoView({block:'nearest'});});
+document.querySelectorAll('tr[data-finding]').forEach(function(row){row.addEventListener('click',function(){highlight(row.dataset.finding);box.scrollIntoView({block:'nearest'});});
 row.addEventListener('keydown',function(e){if(e.key==='Enter')highlight(row.dataset.finding);});});
 svg.querySelectorAll('.marker').forEach(function(m){m.addEventListener('click',function(e){e.stopPropagation();var row=document.querySelector('tr[data-finding="'+m.dataset.finding+'"]');highlight(m.dataset.finding);if(row)row.scrollIntoView({block:'center'});});});
 })();
