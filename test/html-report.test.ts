@@ -5,17 +5,14 @@
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { chromium } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { reportPage } from '../src/check/outputs.js';
 import { runCheck } from '../src/check/run-check.js';
 import { parseSettings } from '../src/config/settings.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
-import { describeWith, hasCommand } from './support/external.js';
+import { describeWith, hasCommand, launchChromium } from './support/external.js';
 import { headsDrawn } from './support/plan.js';
 
-/** Chromium as root with nothing reaching out (playwright adds --headless; the profile is a fresh folder). */
-const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
 
 describeWith('chromium', hasCommand('chromium'), 'HTML report in Chromium', () => {
   it('shows the plan, highlights a finding from its row, and loads nothing from outside', async () => {
@@ -24,9 +21,7 @@ describeWith('chromium', hasCommand('chromium'), 'HTML report in Chromium', () =
     const dir = mkdtempSync(join(tmpdir(), 'hc-html-'));
     const file = join(dir, 'report.html');
     writeFileSync(file, reportPage(input, result));
-    const browser = await chromium.launchPersistentContext(join(dir, 'profile'), {
-      executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS, viewport: { width: 1200, height: 1600 },
-    });
+    const browser = await launchChromium(join(dir, 'profile'), { width: 1200, height: 1600 });
     try {
       const page = await browser.newPage();
       const requests: string[] = [];

@@ -7,14 +7,12 @@ import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { chromium } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
 import { serve } from '../src/serve/server.js';
-import { describeWith, hasCommand } from './support/external.js';
+import { describeWith, hasCommand, launchChromium } from './support/external.js';
 import { headsDrawn } from './support/plan.js';
 
-const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
 
 /** A raw request path, not normalised by a client. */
 function statusOf(url: string, rawPath: string): Promise<number> {
@@ -31,9 +29,7 @@ describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
     const dir = mkdtempSync(join(tmpdir(), 'hc-serve-'));
     writeFileSync(join(dir, 'demo-plan.dxf'), demoDrawing());
     const s = await serve(resolve('dist/web'), 0);
-    const browser = await chromium.launchPersistentContext(join(dir, 'profile'), {
-      executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS, viewport: { width: 1280, height: 1400 }, acceptDownloads: true,
-    });
+    const browser = await launchChromium(join(dir, 'profile'), { width: 1280, height: 1400, downloads: true });
     try {
       expect(await statusOf(s.url, '/../package.json')).toBe(404);
       expect(await statusOf(s.url, '/%2e%2e/%2e%2e/package.json')).toBe(404);

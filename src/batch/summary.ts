@@ -2,6 +2,7 @@
 // (worst first, each drawing linked to its report), with the caution.
 
 import { CAUTION } from '../outputs/caution.js';
+import { escapeHtml } from '../outputs/html-escape.js';
 import type { ReportUnits } from '../quantities/convert.js';
 import { TOOL } from '../version.js';
 import type { BatchRow } from './worker.js';
@@ -23,7 +24,7 @@ export function summaryCsv(rows: BatchRow[]): string {
   return `${head.join(',')}\n${lines.join('\n')}\n`;
 }
 
-const esc = (s: unknown) => String(s ?? '').replace(/[&<>"]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;' })[c]!);
+const esc = escapeHtml;
 
 export function summaryHtml(rows: BatchRow[], units: ReportUnits): string {
   const body = worstFirst(rows).map((r) => {

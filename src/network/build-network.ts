@@ -248,16 +248,11 @@ function buildBranchLines(
   return lines;
 }
 
+/** The two farthest-apart points of a run (two sweeps: exact for the points of a straight line). */
 function farthestPair(pts: Point[]): [Point, Point] {
-  let best: [Point, Point] = [pts[0]!, pts[pts.length - 1]!];
-  let bestD = -1;
-  const a = pts[0]!;
-  let b = a;
-  for (const p of pts) if (distance(a, p) > distance(a, b)) b = p;
-  let c = b;
-  for (const p of pts) if (distance(b, p) > distance(b, c)) c = p;
-  if (distance(b, c) > bestD) { best = [b, c]; bestD = distance(b, c); }
-  return best;
+  const farthestFrom = (a: Point) => pts.reduce((b, p) => (distance(a, p) > distance(a, b) ? p : b), a);
+  const b = farthestFrom(pts[0]!);
+  return [b, farthestFrom(b)];
 }
 
 function disconnectedParts(

@@ -140,9 +140,9 @@ export function buildReport(r: ReportInput): Report {
         id: h.id, handle: h.handle, x: len(h.position.x), y: len(h.position.y), kFactor: round(c.kFactor(h.kFactor), 3),
         elevation: len(h.elevation),
         coverage: {
-          s: roundOrNull(cov?.s === undefined || cov.s === null ? null : c.length(cov.s)),
-          l: roundOrNull(cov?.l === undefined || cov.l === null ? null : c.length(cov.l)),
-          area: roundOrNull(cov?.area === undefined || cov.area === null ? null : c.area(cov.area)),
+          s: roundOrNull(cov?.s == null ? null : c.length(cov.s)),
+          l: roundOrNull(cov?.l == null ? null : c.length(cov.l)),
+          area: roundOrNull(cov?.area == null ? null : c.area(cov.area)),
         },
         branchLine: headLine.get(h.id) ?? null,
       };

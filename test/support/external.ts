@@ -34,3 +34,13 @@ export function describeWith(tool: string, available: boolean, name: string, bod
 export function hasCommand(cmd: string): boolean {
   return spawnSync('sh', ['-c', `command -v ${cmd}`], { encoding: 'utf8' }).status === 0;
 }
+
+/** Chromium as root with nothing reaching out (playwright adds --headless), on a fresh profile folder. */
+export async function launchChromium(profileDir: string, options: { width: number; height: number; downloads?: boolean }) {
+  const { chromium } = await import('playwright-core');
+  return chromium.launchPersistentContext(profileDir, {
+    executablePath: '/usr/bin/chromium', headless: true, viewport: { width: options.width, height: options.height },
+    acceptDownloads: options.downloads ?? false,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+  });
+}
