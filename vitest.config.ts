@@ -3,7 +3,9 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['src/**/*.test.ts', 'test/**/*.test.ts'],
+    setupFiles: ['test/support/property-seed.ts'],
     testTimeout: 60_000,
     hookTimeout: 120_000,
+    teardownTimeout: 30_000,
   },
 });

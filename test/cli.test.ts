@@ -149,10 +149,10 @@ describe('headcheck layers and demo', () => {
 
 describe('the installed command', () => {
   it('runs as a process and returns the contract exit code', () => {
-    const r = spawnSync(process.execPath, ['bin/headcheck.js', 'check', 'fixtures/bay2-r2000.dxf'], { encoding: 'utf8' });
+    const r = spawnSync(process.execPath, ['bin/headcheck.js', 'check', 'fixtures/bay2-r2000.dxf'], { encoding: 'utf8', timeout: 60_000 });
     expect(existsSync('dist/cli/main.js')).toBe(true);
     expect(r.status).toBe(1);
-    const bad = spawnSync(process.execPath, ['bin/headcheck.js', 'check', 'package.json'], { encoding: 'utf8' });
+    const bad = spawnSync(process.execPath, ['bin/headcheck.js', 'check', 'package.json'], { encoding: 'utf8', timeout: 60_000 });
     expect(bad.status).toBe(2);
     expect(bad.stderr.trim().split('\n')).toHaveLength(1);
   });

@@ -1,22 +1,29 @@
 // Fuzzing the whole pipeline (fast-check): mutated and truncated fixtures — dropped lines, swapped group
 // codes, huge numbers, NaN/Infinity, negative counts, enormous strings — end in a report or an InputError,
-// never another exception. Failing seeds found are kept as regression cases below.
+// never another exception or a hang. Failing cases found are kept in fixtures/fuzz as regression cases.
+//
+// Seeds are fixed so the suite is repeatable; FUZZ_SEED (a number, or "random") and FUZZ_RUNS explore further
+// (`npm run fuzz`); a failure prints its seed and path to replay it. Other property tests: PROPERTY_SEED.
 
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
-import { describe, expect, it } from 'vitest';
-import { annotatedDrawing, reportPage } from '../src/check/outputs.js';
-import { runCheck } from '../src/check/run-check.js';
-import { parseSettings } from '../src/config/settings.js';
+import { afterAll, describe, expect, it } from 'vitest';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
-import { InputError } from '../src/read/errors.js';
+import { GuardedPipeline, type Outcome } from './support/guarded-pipeline.js';
 
-const sources = [
-  readFileSync('fixtures/bay2-r2000.dxf', 'latin1'),
-  readFileSync('fixtures/bay2-r2018.dxf', 'utf8'),
-  demoDrawing(),
+const sources: { text: string; encoding: 'latin1' | 'utf8'; config: unknown }[] = [
+  { text: readFileSync('fixtures/bay2-r2000.dxf', 'latin1'), encoding: 'latin1', config: {} },
+  { text: readFileSync('fixtures/bay2-r2018.dxf', 'utf8'), encoding: 'utf8', config: {} },
+  { text: demoDrawing(), encoding: 'utf8', config: DEMO_CONFIG },
 ];
-const settings = [parseSettings({}), parseSettings({}), parseSettings(DEMO_CONFIG)];
+
+const seed = (fallback: number) => {
+  const given = process.env['FUZZ_SEED'];
+  return !given ? fallback : given === 'random' ? Math.floor(Math.random() * 2 ** 31) : Number(given);
+};
+const runs = (fallback: number) => (process.env['FUZZ_RUNS'] ? Number(process.env['FUZZ_RUNS']) : fallback);
+/** Generous for the three small drawings (each checks in well under a second); a stall is a hang. */
+const TIME_LIMIT_MS = 20_000;
 
 type Mutation = { kind: number; at: number; value: string };
 
@@ -38,32 +45,31 @@ function mutate(text: string, ms: Mutation[]): string {
   return lines.join('\n');
 }
 
-function runWhole(bytes: Uint8Array, i: number): void {
-  try {
-    const input = { bytes, fileName: 'fuzz.dxf', sha256: '', settings: settings[i]!, reportUnits: 'us' as const };
-    const result = runCheck(input);
-    annotatedDrawing(input, result);
-    reportPage(input, result);
-    JSON.stringify(result.report);
-  } catch (err) {
-    if (!(err instanceof InputError)) throw new Error(`not an InputError: ${err instanceof Error ? err.stack : String(err)}`);
-    expect(err.message.split('\n')).toHaveLength(1);
-  }
+const pipeline = new GuardedPipeline(TIME_LIMIT_MS);
+afterAll(() => pipeline.close());
+
+function expectHandled(outcome: Outcome): void {
+  if (outcome.outcome === 'hang' || outcome.outcome === 'crash') throw new Error(`${outcome.outcome}: ${outcome.message}`);
+  if (outcome.outcome === 'input-error') expect(outcome.message.split('\n')).toHaveLength(1);
 }
 
 describe('fuzzing the pipeline', () => {
-  it('mutated drawings end in a report or a one-line InputError', () => {
-    fc.assert(fc.property(
+  it('mutated drawings end in a report or a one-line InputError', async () => {
+    await fc.assert(fc.asyncProperty(
       fc.integer({ min: 0, max: sources.length - 1 }),
       fc.array(fc.record({ kind: fc.nat(), at: fc.nat(), value: fc.constantFrom(...VALUES) }), { minLength: 1, maxLength: 6 }),
-      (i, ms) => runWhole(new TextEncoder().encode(mutate(sources[i]!, ms)), i),
-    ), { numRuns: 300 });
+      async (i, ms) => {
+        const { text, encoding, config } = sources[i]!;
+        expectHandled(await pipeline.run(new Uint8Array(Buffer.from(mutate(text, ms), encoding)), config));
+      },
+    ), { numRuns: runs(300), seed: seed(20261202), endOnFailure: true });
   });
 
-  it('truncated drawings (cut anywhere) end in a report or an InputError', () => {
-    fc.assert(fc.property(fc.integer({ min: 0, max: sources.length - 1 }), fc.double({ min: 0, max: 1, noNaN: true }), (i, f) => {
-      const bytes = new TextEncoder().encode(sources[i]!);
-      runWhole(bytes.subarray(0, Math.floor(bytes.length * f)), i);
-    }), { numRuns: 100 });
+  it('truncated drawings (cut anywhere) end in a report or an InputError', async () => {
+    await fc.assert(fc.asyncProperty(fc.integer({ min: 0, max: sources.length - 1 }), fc.double({ min: 0, max: 1, noNaN: true }), async (i, f) => {
+      const { text, encoding, config } = sources[i]!;
+      const bytes = new Uint8Array(Buffer.from(text, encoding));
+      expectHandled(await pipeline.run(bytes.subarray(0, Math.floor(bytes.length * f)), config));
+    }), { numRuns: runs(100), seed: seed(1202), endOnFailure: true });
   });
 });

@@ -19,6 +19,10 @@ export function byteView(bytes: Uint8Array): string {
   return s;
 }
 
+/** A group code line holds an integer and nothing else ("1e308" or "10.5" is damage, not code 1 or 10). */
+const INTEGER = /^[-+]?\d{1,6}$/;
+
+/** Every group of the file; a code line that is not an integer gives code NaN, for the caller to reject. */
 export function readGroups(view: string): Group[] {
   const groups: Group[] = [];
   let i = 0;
@@ -35,7 +39,8 @@ export function readGroups(view: string): Group[] {
     const [cs, ce] = line();
     if (i >= n && view.slice(cs, ce).trim() === '') break;
     const [vs, ve, next] = line();
-    const code = Number.parseInt(view.slice(cs, ce).trim(), 10);
+    const codeText = view.slice(cs, ce).trim();
+    const code = INTEGER.test(codeText) ? Number(codeText) : Number.NaN;
     groups.push({ code, value: view.slice(vs, ve).trim(), start: cs, end: next, valueStart: vs, valueEnd: ve });
   }
   return groups;

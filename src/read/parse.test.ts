@@ -1,5 +1,6 @@
 // Damaged files that once hung the reader (found by the fuzz test, kept as regression cases): a POLYLINE
-// whose vertex run is not closed by SEQEND, a LAYER table not closed by ENDTAB, and a non-numeric group code.
+// whose vertex run is not closed by SEQEND, an unknown code among LWPOLYLINE vertices, a LAYER table not
+// closed by ENDTAB, and group codes that are not integers.
 
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
@@ -22,6 +23,36 @@ describe('damaged structure', () => {
     expect((parsed.dxf.entities[0] as unknown as { vertices: unknown[] }).vertices).toHaveLength(2);
   });
 
+  it('an unknown code among LWPOLYLINE vertices is passed over, not read again forever', () => {
+    const text = dxf(0, 'SECTION', 2, 'ENTITIES', 0, 'LWPOLYLINE', 5, '4A', 8, 'A-WALL', 90, 3, 70, 1, 10, 0, 20, 0, 10, 5, -5, '0.0', 20, 0,
+      10, 5, 20, 4, 0, 'LINE', 8, 'P', 10, 0, 20, 1, 11, 5, 21, 1, 0, 'ENDSEC', 0, 'EOF');
+    const parsed = parseDxfText(text);
+    expect(parsed.dxf.entities.map((e) => e.type)).toEqual(['LWPOLYLINE', 'LINE']);
+    const poly = parsed.dxf.entities[0] as unknown as { vertices: { x: number; y: number }[]; shape: boolean; layer: string };
+    expect(poly.vertices).toEqual([{ x: 0, y: 0 }, { x: 5, y: 0 }, { x: 5, y: 4 }]);
+    expect(poly.shape).toBe(true);
+    expect(poly.layer).toBe('A-WALL');
+  });
+
+  it('fixtures/fuzz/lwpolyline-stray-code.dxf: read whole, the damaged vertex with the value its code 10 gives', () => {
+    const read = (file: string) => readDrawing(new Uint8Array(readFileSync(file)), { units: 'in' });
+    const damaged = read('fixtures/fuzz/lwpolyline-stray-code.dxf');
+    const original = read('fixtures/bay2-r2000.dxf');
+    // The file's wall outline 4A reads "10 / -5 / -5 / 0.0 / 20 / 360.0" for its last vertex: x = -5 in.
+    const [wall, ...rest] = damaged.outlines;
+    expect(wall!.points.slice(0, 3)).toEqual(original.outlines[0]!.points.slice(0, 3));
+    expect(wall!.points[3]!.x).toBeCloseTo(-5 / 12, 12);
+    expect(wall!.points[3]!.y).toBe(30);
+    expect(rest).toEqual(original.outlines.slice(1));
+    expect(damaged.refs).toEqual(original.refs);
+    expect(damaged.strokes.length).toBe(original.strokes.length);
+  });
+
+  it('types no stage reads are skipped but keep their layer for the layer counts', () => {
+    const text = dxf(0, 'SECTION', 2, 'ENTITIES', 0, 'SPLINE', 8, 'A-DETAIL', 10, 0, 20, 0, 10, 1, -7, 'x', 0, 'DIMENSION', 8, 'A-DIMS', 0, 'ENDSEC', 0, 'EOF');
+    expect(parseDxfText(text).dxf.entities.map((e) => [e.type, e.layer])).toEqual([['SPLINE', 'A-DETAIL'], ['DIMENSION', 'A-DIMS']]);
+  });
+
   it('a LAYER table without ENDTAB still gives its layer names and the entities', () => {
     const text = dxf(0, 'SECTION', 2, 'TABLES', 0, 'TABLE', 2, 'LAYER', 70, 2, 0, 'LAYER', 2, 'FP-PIPE', 70, 0, 0, 'TABLE', 2, 'LTYPE', 0, 'ENDTAB', 0, 'ENDSEC',
       0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'FP-PIPE', 10, 0, 20, 0, 11, 1, 21, 0, 0, 'ENDSEC', 0, 'EOF');
@@ -32,7 +63,8 @@ describe('damaged structure', () => {
 
   it.each([
     ['fixtures/fuzz/nan-group-code.dxf', /line 2279: "NaN" is not a group code/],
-    ['fixtures/fuzz/truncated-tables.dxf', /line 1463: "ENDTAB" is not a group code/],
+    ['fixtures/fuzz/truncated-tables.dxf', /line 1461: "0.0" is not a group code/],
+    ['fixtures/fuzz/float-group-code.dxf', /line 2979: "-1e308" is not a group code/],
   ])('%s: a one-line error naming the line', (file, message) => {
     const read = () => readDrawing(new Uint8Array(readFileSync(file)), { units: 'in' });
     expect(read).toThrow(InputError);

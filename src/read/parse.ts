@@ -1,90 +1,16 @@
 // Parses DXF text with dxf-parser, adding what its stock handlers drop (ATTRIB values) and avoiding what hangs
-// it on damaged files (its POLYLINE and table-record loops can spin forever). Failures become one InputError.
+// it on damaged files (its POLYLINE, LWPOLYLINE and table-record loops can spin forever). Failures become one InputError.
 
 import * as dxfParserModule from 'dxf-parser';
-import type { IDxf, IEntity } from 'dxf-parser';
+import type { IDxf } from 'dxf-parser';
+import { ENTITY_HANDLERS } from './entity-handlers.js';
 import { InputError } from './errors.js';
 import { readGroups } from './groups.js';
-
-export interface AttribEntity extends IEntity {
-  tag: string;
-  value: string;
-}
-
-interface Group {
-  code: number;
-  value: number | string | boolean;
-}
-interface Scanner {
-  next(): Group;
-  isEOF(): boolean;
-}
-
-/** dxf-parser handler for ATTRIB: the stock parser skips these, losing head K-factors and elevations. */
-class AttribHandler {
-  readonly ForEntityName = 'ATTRIB';
-  parseEntity(scanner: Scanner, curr: Group): IEntity {
-    const entity = { type: 'ATTRIB', tag: '', value: '' } as unknown as AttribEntity;
-    curr = scanner.next();
-    while (!scanner.isEOF() && curr.code !== 0) {
-      if (curr.code === 1) entity.value = String(curr.value);
-      else if (curr.code === 2) entity.tag = String(curr.value);
-      else if (curr.code === 5) entity.handle = curr.value as unknown as number;
-      else if (curr.code === 8) entity.layer = String(curr.value);
-      else if (curr.code === 330) entity.ownerHandle = String(curr.value);
-      else if (curr.code === 67) entity.inPaperSpace = curr.value === 1 || curr.value === true;
-      curr = scanner.next();
-    }
-    return entity;
-  }
-}
 
 /** The parser class: a named export from its ES build (bundlers), the CommonJS default under Node. */
 const DxfParser: typeof dxfParserModule.DxfParser =
   (dxfParserModule as { DxfParser?: typeof dxfParserModule.DxfParser }).DxfParser ??
   (dxfParserModule as unknown as { default: typeof dxfParserModule.DxfParser }).default;
-
-/**
- * dxf-parser handler for old-style POLYLINE with its VERTEX run and SEQEND. The stock one (1.1.2) loops
- * without advancing when anything but VERTEX or SEQEND follows a vertex, so a damaged file would hang.
- */
-class PolylineHandler {
-  readonly ForEntityName = 'POLYLINE';
-  parseEntity(scanner: Scanner, curr: Group): IEntity {
-    const entity = { type: 'POLYLINE', vertices: [] as Record<string, number>[] } as unknown as IEntity & Record<string, any>;
-    const num = (v: unknown) => (typeof v === 'number' ? v : Number.NaN);
-    curr = scanner.next();
-    while (!scanner.isEOF() && curr.code !== 0) {
-      if (curr.code === 5) entity.handle = curr.value as unknown as number;
-      else if (curr.code === 8) entity.layer = String(curr.value);
-      else if (curr.code === 67) entity.inPaperSpace = curr.value === 1 || curr.value === true;
-      else if (curr.code === 70) {
-        const f = num(curr.value);
-        entity['shape'] = (f & 1) !== 0; entity['is3dPolyline'] = (f & 8) !== 0;
-        entity['is3dPolygonMesh'] = (f & 16) !== 0; entity['isPolyfaceMesh'] = (f & 64) !== 0;
-      } else if (curr.code === 230) entity['extrusionDirection'] = { x: 0, y: 0, z: num(curr.value) };
-      curr = scanner.next();
-    }
-    while (!scanner.isEOF() && curr.code === 0 && curr.value === 'VERTEX') {
-      const vertex: Record<string, number> = {};
-      curr = scanner.next();
-      while (!scanner.isEOF() && curr.code !== 0) {
-        if (curr.code === 10) vertex['x'] = num(curr.value);
-        else if (curr.code === 20) vertex['y'] = num(curr.value);
-        else if (curr.code === 30) vertex['z'] = num(curr.value);
-        else if (curr.code === 42) vertex['bulge'] = num(curr.value);
-        else if (curr.code === 70) vertex['flags'] = num(curr.value);
-        curr = scanner.next();
-      }
-      (entity['vertices'] as Record<string, number>[]).push(vertex);
-    }
-    if (!scanner.isEOF() && curr.code === 0 && curr.value === 'SEQEND') {
-      curr = scanner.next();
-      while (!scanner.isEOF() && curr.code !== 0) curr = scanner.next();
-    }
-    return entity;
-  }
-}
 
 export interface ParsedDxf {
   dxf: IDxf;
@@ -120,8 +46,7 @@ function splitTables(text: string): { rest: string; layerNames: string[] } {
 export function parseDxfText(text: string): ParsedDxf {
   const { rest, layerNames } = splitTables(text);
   const parser = new DxfParser();
-  parser.registerEntityHandler(AttribHandler as never);
-  parser.registerEntityHandler(PolylineHandler as never);
+  for (const handler of ENTITY_HANDLERS) parser.registerEntityHandler(handler as never);
   let dxf: IDxf | null;
   // dxf-parser logs every group it cannot type to the console; the reader reports problems itself.
   const saved = { log: console.log, warn: console.warn, error: console.error };
