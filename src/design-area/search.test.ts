@@ -1,6 +1,6 @@
-// The design-area search: pruning by the upper bound never drops the true most demanding area or its
-// runner-up (property test against brute force); the shape rules place the remainder heads at the
-// cross-main end of the next line (common practice, shared/TRADE.md).
+// The design-area search: pruning (the bound on trees, proving solves on any network) never drops the true
+// most demanding area or its runner-up (property test against brute force, trees and grids); the shape rules
+// place the remainder heads at the cross-main end of the next line (common practice, shared/TRADE.md).
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -28,26 +28,26 @@ function searchBoth(spec: Parameters<typeof checkLayout>[0], config: Record<stri
 }
 
 describe('design-area search', () => {
-  it('pruning never drops the most demanding area or the runner-up (brute force on random trees)', () => {
+  it('pruning never drops the most demanding area or the runner-up (brute force on random trees and grids)', () => {
     fc.assert(fc.property(
       fc.record({
         s: fc.double({ min: 8, max: 13, noNaN: true }), l: fc.double({ min: 8, max: 12, noNaN: true }),
         heads: fc.integer({ min: 3, max: 8 }), lines: fc.integer({ min: 2, max: 6 }),
-        area: fc.integer({ min: 300, max: 1500 }), supply: fc.boolean(),
+        area: fc.integer({ min: 300, max: 1500 }), supply: fc.boolean(), gridded: fc.boolean(),
       }),
       (p) => {
         const config = {
           design: { density: 0.2, area: p.area }, defaults: { headElevation: 10, sourceElevation: 0 },
           ...(p.supply ? { supply: { static: 90, residual: 70, flow: 1000 } } : {}),
         };
-        const { pruned, brute } = searchBoth({ s: p.s, l: p.l, heads: p.heads, lines: p.lines }, config);
+        const { pruned, brute } = searchBoth({ s: p.s, l: p.l, heads: p.heads, lines: p.lines, gridded: p.gridded }, config);
         expect(brute.evaluated).toBe(brute.candidates);
         // equal to the pressure search's tolerance (1e-6 psi; warm starts differ between the two runs)
         expect(pruned.best!.score).toBeCloseTo(brute.best!.score, 4);
         if (brute.runnerUp) expect(pruned.runnerUp!.score).toBeCloseTo(brute.runnerUp.score, 4);
         expect(pruned.evaluated).toBeLessThanOrEqual(brute.evaluated);
       },
-    ), { numRuns: 25 });
+    ), { numRuns: 40 });
   });
 
   it('the bound is never below the exact demand (every candidate of random trees)', () => {
@@ -74,11 +74,16 @@ describe('design-area search', () => {
     ), { numRuns: 15 });
   });
 
-  it('prunes on a larger tree: 10 lines of 12 heads, far fewer solves than candidates', () => {
-    const { pruned, brute } = searchBoth({ s: 12, l: 10, heads: 12, lines: 10 }, { design: { density: 0.2, area: 1500 } });
-    expect(pruned.best!.score).toBeCloseTo(brute.best!.score, 4);
-    expect(pruned.evaluated).toBeLessThan(brute.evaluated / 2);
-  });
+  for (const gridded of [false, true]) {
+    it(`prunes on a larger ${gridded ? 'grid' : 'tree'}: 10 lines of 12 heads, few areas calculated, fewer solves than brute force`, () => {
+      const config = { design: { density: 0.2, area: 1500 }, supply: { static: 90, residual: 70, flow: 1000 } };
+      const { pruned, brute } = searchBoth({ s: 12, l: 10, heads: 12, lines: 10, gridded }, config);
+      expect(pruned.best!.score).toBeCloseTo(brute.best!.score, 4);
+      expect(pruned.runnerUp!.score).toBeCloseTo(brute.runnerUp!.score, 4);
+      expect(pruned.evaluated).toBeLessThan(brute.evaluated / 4);
+      expect(pruned.solves).toBeLessThan(brute.solves / 2);
+    });
+  }
 
   it('1500 ft² at 12 × 10 ft: 4 heads along, 13 heads, the 13th on the next line at the cross-main end', () => {
     const r = checkLayout({ s: 12, l: 10, heads: 8, lines: 6 }, { design: { density: 0.2, area: 1500 } });

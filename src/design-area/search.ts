@@ -1,8 +1,14 @@
 // Finds the hydraulically most demanding design area and the runner-up: candidates in order of a safe upper
-// bound (trees), each screened by one solve at the runner-up's pressure before a full calculation.
+// bound (trees) or an estimate (loops), each ruled out by one or two solves that prove it, or calculated.
+//
+// Why a solve proves it (any topology, with elevations): raising the source pressure raises every node's
+// pressure and every flow (each pipe's and head's flow rises with its pressure difference, and no water is
+// stored: a comparison principle). So if every head of an area gets its required pressure at a trial pressure
+// P, the area needs at most P and then flows at most Q(P): its score (source pressure, or pressure short of the
+// supply) is at most P − supply(Q(P) + hose).
 
 import type { Settings } from '../config/settings.js';
-import { AreaCalculator, type AreaHydraulics } from '../hydraulics/calculate.js';
+import { AreaCalculator, type AreaDemand, type AreaHydraulics } from '../hydraulics/calculate.js';
 import type { FlowingHead } from '../hydraulics/model.js';
 import { availablePressure } from '../hydraulics/water-supply.js';
 import type { Network } from '../network/types.js';
@@ -20,7 +26,7 @@ export interface SearchOutcome {
   best: ScoredArea | null;
   runnerUp: ScoredArea | null;
   candidates: number;
-  /** Candidates fully calculated, and those ruled out by one solve at the runner-up's pressure. */
+  /** Candidates fully calculated, and those ruled out by the proof above. */
   evaluated: number;
   screened: number;
   solves: number;
@@ -28,9 +34,10 @@ export interface SearchOutcome {
   pruned: boolean;
 }
 
-export function demandScore(h: AreaHydraulics): number {
-  return h.margin === null ? h.sourcePressure : -h.margin;
-}
+interface Scored { candidate: Candidate; demand: AreaDemand; score: number }
+
+/** Margin over the solver's pressure tolerance when comparing scores, psi. */
+const SCORE_TOL = 1e-5;
 
 export function searchMostDemanding(
   network: Network, candidates: Candidate[], flowingOf: (ids: string[]) => FlowingHead[], settings: Settings, hose: number,
@@ -38,57 +45,66 @@ export function searchMostDemanding(
 ): SearchOutcome {
   const all = flowingOf([...new Set(candidates.flatMap((c) => c.headIds))]);
   if (all.length === 0) return { best: null, runnerUp: null, candidates: candidates.length, evaluated: 0, screened: 0, solves: 0, pruned: false };
+  const prune = options.prune !== false;
   const calculator = new AreaCalculator(network, all, settings);
-  const bound = options.prune === false ? null : treeBound(calculator.model);
+  const bound = prune ? treeBound(calculator.model) : null;
   const supply = settings.supply;
+  const scoreAt = (pressure: number, flow: number) => (supply ? pressure - availablePressure(supply, flow + hose) : pressure);
   const upper = candidates.map((c) => {
-    if (!bound) return Infinity;
-    const b = bound.bound(c.headIds);
-    if (!b) return Infinity;
-    return supply ? b.pressure - availablePressure(supply, b.flow + hose) : b.pressure;
+    const b = bound?.bound(c.headIds);
+    return b ? scoreAt(b.pressure, b.flow) : Infinity;
   });
-  // Without a bound (looped systems) the same walk on a spanning tree orders the candidates: a demanding
-  // runner-up found early lets the one-solve screening rule out the rest.
-  const estimate = bound ? upper : estimateOnTree(calculator.model, candidates, supply, hose);
-  const order = candidates.map((_, i) => i).sort((a, b) => estimate[b]! - estimate[a]! || upper[b]! - upper[a]!);
-  let best: ScoredArea | null = null;
-  let runnerUp: ScoredArea | null = null;
+  // Without a bound (looped systems) the same walk on a spanning tree estimates which areas are demanding, so
+  // that a demanding runner-up is found early and rules out the rest.
+  const estimate = bound ? upper : estimateOnTree(calculator.model, candidates, scoreAt);
+  /** The two most demanding areas calculated so far. */
+  const top: { best: Scored | null; runnerUp: Scored | null } = { best: null, runnerUp: null };
   let evaluated = 0;
   let screened = 0;
   let solves = 0;
-  for (const i of order) {
-    // Sorted by bound: once the bound (with a margin over the solver tolerance) cannot beat the runner-up, stop.
-    if (runnerUp && upper[i]! + 1e-5 <= runnerUp.score) break;
-    const c = candidates[i]!;
-    if (runnerUp && options.prune !== false) {
-      // Node pressures and flows rise with the source pressure. If every head is satisfied at a trial pressure
-      // Pt, the candidate needs P ≤ Pt and flows no more than there, so its score is at most
-      // Pt − supply(flow at Pt + hose): when that cannot beat the runner-up, one solve rules it out. With a
-      // supply, Pt sits below the runner-up's pressure by what 3% more flow costs on the supply curve.
-      const r = runnerUp.hydraulics;
-      const Pt = supply
-        ? r.sourcePressure - (availablePressure(supply, r.sourceFlow + hose) - availablePressure(supply, 1.03 * r.sourceFlow + hose))
-        : r.sourcePressure;
-      const at = calculator.satisfiedAt(c.headIds, Pt);
+
+  /** The flow of the last area ruled out: neighbouring areas flow alike, so it guesses the next one's. */
+  let lastFlow = 0;
+  /** Whether the area scores no more than the runner-up, proved by at most two solves. */
+  const ruledOut = (heads: string[]): boolean => {
+    if (!top.runnerUp) return false;
+    const target = top.runnerUp.score;
+    const r = top.runnerUp.demand;
+    // First at the pressure where a guessed flow would tie with the runner-up; then, if the flow there was
+    // larger, at the (lower) pressure where that flow ties.
+    let P = supply ? target + availablePressure(supply, (lastFlow ? 1.01 * lastFlow : 1.03 * r.sourceFlow) + hose) : r.sourcePressure;
+    for (let attempt = 0; attempt < 2; attempt++) {
+      const at = calculator.satisfiedAt(heads, P);
       solves++;
-      const boundAtPt = supply ? Pt - availablePressure(supply, at.flow + hose) : Pt;
-      if (at.satisfied && boundAtPt <= runnerUp.score) { screened++; continue; }
+      if (!at.satisfied) return false;
+      if (scoreAt(P, at.flow) <= target) { lastFlow = at.flow; return true; }
+      if (!supply) return false;
+      P = target + availablePressure(supply, at.flow + hose);
     }
-    const hydraulics = calculator.calculate(c.headIds, hose);
+    return false;
+  };
+
+  const order = candidates.map((_, i) => i).sort((a, b) => estimate[b]! - estimate[a]! || upper[b]! - upper[a]!);
+  for (const i of order) {
+    const c = candidates[i]!;
+    // On trees the order is by bound: once it cannot beat the runner-up, neither can any candidate left.
+    if (top.runnerUp && upper[i]! + SCORE_TOL <= top.runnerUp.score) break;
+    if (prune && ruledOut(c.headIds)) { screened++; continue; }
+    const demand = calculator.demand(c.headIds);
     evaluated++;
-    solves += hydraulics.solves;
-    const scored = { candidate: c, hydraulics, score: demandScore(hydraulics) };
-    if (!best || scored.score > best.score) { runnerUp = best; best = scored; }
-    else if (!runnerUp || scored.score > runnerUp.score) runnerUp = scored;
+    solves += demand.solves;
+    const scored = { candidate: c, demand, score: scoreAt(demand.sourcePressure, demand.sourceFlow) };
+    if (!top.best || scored.score > top.best.score) { top.runnerUp = top.best; top.best = scored; }
+    else if (!top.runnerUp || scored.score > top.runnerUp.score) top.runnerUp = scored;
   }
-  return { best, runnerUp, candidates: candidates.length, evaluated, screened, solves, pruned: bound !== null };
+  const withTables = (x: Scored | null): ScoredArea | null => x && { candidate: x.candidate, score: x.score, hydraulics: calculator.hydraulicsOf(x.demand, hose) };
+  return { best: withTables(top.best), runnerUp: withTables(top.runnerUp), candidates: candidates.length, evaluated, screened, solves, pruned: bound !== null };
 }
 
-function estimateOnTree(model: AreaCalculator['model'], candidates: Candidate[], supply: Settings['supply'], hose: number): number[] {
+function estimateOnTree(model: AreaCalculator['model'], candidates: Candidate[], scoreAt: (p: number, q: number) => number): number[] {
   const walk = treeBound(spanningTreeModel(model));
   return candidates.map((c) => {
     const b = walk?.bound(c.headIds);
-    if (!b) return 0;
-    return supply ? b.pressure - availablePressure(supply, b.flow + hose) : b.pressure;
+    return b ? scoreAt(b.pressure, b.flow) : 0;
   });
 }

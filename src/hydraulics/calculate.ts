@@ -6,7 +6,7 @@ import type { Network } from '../network/types.js';
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
 import { buildModel, type FlowingHead, type HydraulicModel } from './model.js';
-import { NetworkSolver, type FlowState } from './solver.js';
+import { NetworkSolver, type SolveResult } from './solver.js';
 import { availablePressure } from './water-supply.js';
 
 export interface AreaHydraulics {
@@ -35,7 +35,19 @@ const IDLE_SHARE = 1e-9;
 /** Velocity in ft/s of `q` gpm in a pipe of inside diameter `d` inches: 0.4085·q/d² (derived from 1 gpm = 0.002228 ft³/s). */
 export const velocityFtPerS = (q: number, d: number): number => (0.4085 * Math.abs(q)) / (d * d);
 
-interface Trial { P: number; value: number; critical: number; state: FlowState }
+interface Trial { P: number; value: number; critical: number; state: SolveResult }
+
+/** What a design area needs at the source, before its tables are drawn up. */
+export interface AreaDemand {
+  headIds: string[];
+  sourcePressure: number;
+  sourceFlow: number;
+  criticalHeadId: string;
+  solves: number;
+  iterations: number;
+  /** The solve at the source pressure found. */
+  readonly state: SolveResult;
+}
 
 /**
  * Calculates design areas on one network: built once with every head that may flow, then each area opens its
@@ -45,9 +57,7 @@ export class AreaCalculator {
   readonly model: HydraulicModel;
   private readonly solver: NetworkSolver;
   private readonly emitterOf: Map<string, number>;
-  private readonly emitterAtNode: Map<number, number>;
   private readonly hand: ReturnType<typeof kFactorWalk>;
-  private warm: FlowState | undefined;
   private lastPressure: number | undefined;
 
   constructor(network: Network, mayFlow: FlowingHead[], private readonly settings: Settings) {
@@ -55,80 +65,89 @@ export class AreaCalculator {
     if (this.model.emitters.length === 0) throw new Error('no flowing head is connected to the source');
     this.solver = new NetworkSolver(this.model);
     this.emitterOf = new Map(this.model.emitters.map((e, k) => [e.headId, k]));
-    this.emitterAtNode = new Map(this.model.emitters.map((e, k) => [e.node, k]));
     this.hand = kFactorWalk(this.model, HAND_METHOD_EXPONENT);
   }
 
-  private openMask(headIds: string[]): Uint8Array {
-    const open = new Uint8Array(this.model.emitters.length);
-    for (const id of headIds) {
+  private openList(headIds: string[]): Int32Array {
+    return Int32Array.from(new Set(headIds), (id) => {
       const k = this.emitterOf.get(id);
       if (k === undefined) throw new Error(`head ${id} is not on the piping`);
-      open[k] = 1;
-    }
-    return open;
+      return k;
+    });
   }
 
   /** One solve at source pressure P: the source flow, and whether every open head gets its required pressure. */
   satisfiedAt(headIds: string[], P: number): { satisfied: boolean; flow: number } {
-    const open = this.openMask(headIds);
-    this.warm = this.solver.solve(P, this.warm, open);
+    const s = this.solver.solve(P, this.openList(headIds));
     let flow = 0;
     let satisfied = true;
-    this.model.emitters.forEach((e, k) => {
-      if (!open[k]) return;
-      flow += this.warm!.emitterFlow[k]!;
-      if (this.warm!.pressure[e.node]! < e.required - PRESSURE_TOL) satisfied = false;
+    s.open.forEach((k, x) => {
+      flow += s.flow[x]!;
+      if (s.pressure[x]! < this.model.emitters[k]!.required - PRESSURE_TOL) satisfied = false;
     });
     return { satisfied, flow };
   }
 
-  calculate(headIds: string[], hoseAllowance: number): AreaHydraulics {
-    const { model, settings } = this;
-    const open = this.openMask(headIds);
-    const active = model.emitters.map((e, k) => ({ e, k })).filter(({ k }) => open[k]);
+  /** The least source pressure at which every head of the area gets its required pressure, and the flow then. */
+  demand(headIds: string[]): AreaDemand {
+    const { model } = this;
+    const open = this.openList(headIds);
     let solves = 0;
     let iterations = 0;
     /** Slack of the most demanding open head at source pressure P (≥ 0: every head is satisfied). */
     const slack = (P: number): Trial => {
-      this.warm = this.solver.solve(P, this.warm, open);
+      const state = this.solver.solve(P, open);
       solves++;
-      iterations += this.warm.iterations;
+      iterations += state.iterations;
       let value = Infinity;
-      let critical = active[0]!.k;
-      for (const { e, k } of active) {
-        const v = this.warm.pressure[e.node]! - e.required;
+      let critical = state.open[0]!;
+      state.open.forEach((k, x) => {
+        const v = state.pressure[x]! - model.emitters[k]!.required;
         if (v < value) { value = v; critical = k; }
-      }
-      return { P, value, critical, state: this.warm };
+      });
+      return { P, value, critical, state };
     };
     const zSource = model.nodes[model.source]!.elevation;
-    const staticHead = Math.max(...active.map(({ e }) => e.required + PSI_PER_FT * (model.nodes[e.node]!.elevation - zSource)));
+    const staticHead = Math.max(...Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)));
     const found = findPressure(slack, staticHead, this.lastPressure, () => solves);
     this.lastPressure = found.P;
-    const s = found.state;
-    const P = found.P;
-    const sourceFlow = active.reduce((sum, { k }) => sum + s.emitterFlow[k]!, 0);
+    return {
+      headIds, sourcePressure: found.P, sourceFlow: found.state.flow.reduce((sum, q) => sum + q, 0),
+      criticalHeadId: model.emitters[found.critical]!.headId, solves, iterations, state: found.state,
+    };
+  }
+
+  /** The full calculation of a design area: demand, supply, and the node and pipe tables. */
+  calculate(headIds: string[], hoseAllowance: number): AreaHydraulics {
+    return this.hydraulicsOf(this.demand(headIds), hoseAllowance);
+  }
+
+  /** The tables and supply comparison of an area whose demand was found. */
+  hydraulicsOf(d: AreaDemand, hoseAllowance: number): AreaHydraulics {
+    const { model, settings } = this;
+    const s = this.solver.expand(d.state);
+    const { sourcePressure: P, sourceFlow } = d;
     const totalDemand = sourceFlow + hoseAllowance;
     const supplyAvailable = settings.supply ? availablePressure(settings.supply, totalDemand) : null;
     const busy = model.pipes.map((_, k) => Math.abs(s.flow[k]!) > IDLE_SHARE * sourceFlow);
     const onBusy = new Set<number>([model.source]);
     model.pipes.forEach((p, k) => { if (busy[k]) { onBusy.add(p.from); onBusy.add(p.to); } });
-    const hand = this.hand?.bound(headIds) ?? null;
+    const emitterAtNode = new Map(model.emitters.map((e, k) => [e.node, k]));
+    const hand = this.hand?.bound(d.headIds) ?? null;
     return {
       sourcePressure: P, sourceFlow, hoseAllowance, totalDemand, supplyAvailable,
       margin: supplyAvailable === null ? null : supplyAvailable - P,
-      criticalHeadId: model.emitters[found.critical]!.headId,
+      criticalHeadId: d.criticalHeadId,
       nodes: model.nodes.flatMap((n, i) => {
         if (!onBusy.has(i)) return [];
-        const k = this.emitterAtNode.get(i);
-        return [{ id: n.id, pressure: s.pressure[i]!, flow: k !== undefined && open[k] ? s.emitterFlow[k]! : 0, elevation: n.elevation }];
+        const k = emitterAtNode.get(i);
+        return [{ id: n.id, pressure: s.pressure[i]!, flow: k !== undefined ? s.emitterFlow[k]! : 0, elevation: n.elevation }];
       }),
       pipes: model.pipes.flatMap((p, k) => busy[k] ? [{
         id: p.id, flow: s.flow[k]!, velocity: velocityFtPerS(s.flow[k]!, p.diameter), frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
         length: p.length, fittingsLength: p.fittingsLength, fittings: p.fittings,
       }] : []),
-      riser: model.riser, handMethod: hand && { sourcePressure: hand.pressure, sourceFlow: hand.flow }, solves, iterations,
+      riser: model.riser, handMethod: hand && { sourcePressure: hand.pressure, sourceFlow: hand.flow }, solves: d.solves, iterations: d.iterations,
     };
   }
 }
@@ -159,17 +178,14 @@ function findPressure(slack: (P: number) => Trial, staticHead: number, previous:
   let fl = lo.value;
   let fh = hi.value;
   let side = 0;
-  let last = hi;
   while (solves() < MAX_SOLVES && hi.P - lo.P > PRESSURE_TOL) {
     const m = slack(hi.P - (fh * (hi.P - lo.P)) / (fh - fl));
-    last = m;
     if (Math.abs(m.value) <= PRESSURE_TOL) return m;
     if (m.value < 0) { lo = m; fl = m.value; if (side === -1) fh /= 2; side = -1; }
     else { hi = m; fh = m.value; if (side === 1) fl /= 2; side = 1; }
   }
   if (hi.value < -PRESSURE_TOL) throw new Error('the required source pressure could not be found');
-  // The solver state is shared: the tables must come from a solve at hi itself.
-  return last === hi ? hi : slack(hi.P);
+  return hi;
 }
 
 /** One design area on its own. */

@@ -1,161 +1,469 @@
 // Steady flow in a sprinkler network by the global gradient method (Todini-Pilati; the method of EPANET):
-// Newton iterations on pipe flows and node pressures together, heads as emitters q = K·√p, any topology.
+// Newton iterations on flows and pressures together, heads as emitters q = K·√p, any topology.
+//
+// The Newton system is kept to the skeleton's anchors: pipes in series are one link (their resistances add,
+// exactly, as every Hazen-Williams pipe has the same exponent), and the open heads inside a chain are
+// eliminated along it (a tridiagonal solve), so a design area costs what its junctions and open heads cost.
 
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import type { HydraulicModel } from './model.js';
+import { buildSkeleton, type Skeleton } from './skeleton.js';
 import { SparseSpdSystem } from './sparse-cholesky.js';
 
+/** Pressures and flows of the whole model. */
 export interface FlowState {
   /** Pressure at each model node, psi. */
   pressure: Float64Array;
   /** Flow in each pipe from `from` to `to`, gpm (negative: the other way). */
   flow: Float64Array;
-  /** Flow out of each emitter, gpm. */
+  /** Flow out of each emitter, gpm (0 for a closed head). */
   emitterFlow: Float64Array;
   iterations: number;
+}
+
+/** One solve: the open heads' pressures and flows; `NetworkSolver.expand` gives the whole model's. */
+export interface SolveResult {
+  /** The open emitters, and the pressure (psi) and flow (gpm) at each. */
+  open: Int32Array;
+  pressure: Float64Array;
+  flow: Float64Array;
+  iterations: number;
+  readonly solution: Solution;
 }
 
 /** Convergence: flow changes below 1e-9 of the total flow and head changes below 1e-8 psi (stated tolerances). */
 const FLOW_TOL = 1e-9;
 const HEAD_TOL = 1e-8;
 const MAX_ITERATIONS = 200;
-/** Smallest slope of a head-loss curve, psi per gpm, so that a pipe with no flow still couples its nodes. */
-const MIN_SLOPE = 1e-9;
+/**
+ * Least slope of a link's loss curve in the Newton step, psi per gpm. Near zero flow the Hazen-Williams slope
+ * vanishes and the step would amplify rounding without end; the floor damps the step there and leaves the
+ * converged flows, which satisfy the exact loss law, unchanged.
+ */
+const MIN_SLOPE = 1e-5;
+/** First guess of the flow in a chain not solved before, gpm. */
+const COLD_FLOW = 10;
+
+/**
+ * The chains and anchors that carry flow with a given set of open heads, in flat arrays. Live chain i has
+ * open heads headStart[i] .. headStart[i + 1] − 1 and segments headStart[i] + i .. headStart[i + 1] + i:
+ * segment j runs from point j to point j + 1, where point 0 is anchor a, point h + 1 open head h, and the
+ * last point anchor b. A segment to an unlinked end (a dead end past the last open head) carries nothing.
+ */
+interface LivePart {
+  chain: Int32Array;
+  aLinked: Uint8Array;
+  bLinked: Uint8Array;
+  headStart: Int32Array;
+  headIndex: Int32Array;
+  headEmitter: Int32Array;
+  liveAnchor: Uint8Array;
+  anchorEmitters: Int32Array;
+  /** Anchors peeled off as dead ends, in order, each with the chain it hangs on (−1: none). */
+  peeled: { anchor: number; chain: number }[];
+  /** Live chain of each skeleton chain, or −1. */
+  liveIndex: Int32Array;
+}
+
+interface Solution {
+  live: LivePart;
+  anchorHead: Float64Array;
+  headPotential: Float64Array;
+  segmentFlow: Float64Array;
+}
 
 export class NetworkSolver {
+  readonly skeleton: Skeleton;
   private readonly system: SparseSpdSystem;
-  private readonly unknown: Int32Array;
-  private readonly nUnknown: number;
-  private readonly incident: number[][];
+  /** Where each emitter sits: its anchor, or its chain and interior index. */
+  private readonly emitterAnchor: Int32Array;
+  private readonly emitterChain: Int32Array;
+  private readonly emitterIndex: Int32Array;
+  /** End anchors of each skeleton chain. */
+  private readonly chainA: Int32Array;
+  private readonly chainB: Int32Array;
+  /** Matrix slots of each anchor's diagonal, and of each chain's (a, b) entry (−1 when it has none). */
+  private readonly diagSlot: Int32Array;
+  private readonly pairSlot: Int32Array;
+  /** Warm start: each chain's flow at its a end, and each emitter's flow, from the last solve that had them. */
+  private readonly lastChainFlow: Float64Array;
+  private readonly lastEmitterFlow: Float64Array;
+  private readonly work: Workspace;
 
   constructor(private readonly model: HydraulicModel) {
-    this.unknown = new Int32Array(model.nodes.length).fill(-1);
-    let k = 0;
-    model.nodes.forEach((_, i) => { if (i !== model.source) this.unknown[i] = k++; });
-    this.nUnknown = k;
-    const edges: [number, number][] = [];
-    for (const p of model.pipes) {
-      const a = this.unknown[p.from]!;
-      const b = this.unknown[p.to]!;
-      if (a >= 0 && b >= 0) edges.push([a, b]);
-    }
-    this.system = new SparseSpdSystem(k, edges);
-    this.incident = model.nodes.map(() => []);
-    model.pipes.forEach((p, i) => { this.incident[p.from]!.push(i); this.incident[p.to]!.push(i); });
+    const sk = (this.skeleton = buildSkeleton(model));
+    const couples = (a: number, b: number) => a !== sk.source && b !== sk.source && a !== b;
+    const edges = sk.chains.filter((c) => couples(c.a, c.b)).map((c) => [c.a - 1, c.b - 1] as [number, number]);
+    const system = (this.system = new SparseSpdSystem(sk.anchorNode.length - 1, edges));
+    this.diagSlot = Int32Array.from(sk.anchorNode, (_, v) => (v === sk.source ? -1 : system.slot(v - 1, v - 1)));
+    this.pairSlot = Int32Array.from(sk.chains, (c) => (couples(c.a, c.b) ? system.slot(c.a - 1, c.b - 1) : -1));
+    this.emitterAnchor = Int32Array.from(model.emitters, (e) => sk.anchorOf[e.node]!);
+    this.emitterChain = Int32Array.from(model.emitters, (e) => sk.chainOf[e.node]!);
+    this.emitterIndex = Int32Array.from(model.emitters, (e) => sk.indexInChain[e.node]!);
+    this.chainA = Int32Array.from(sk.chains, (c) => c.a);
+    this.chainB = Int32Array.from(sk.chains, (c) => c.b);
+    this.lastChainFlow = new Float64Array(sk.chains.length).fill(Number.NaN);
+    this.lastEmitterFlow = new Float64Array(model.emitters.length).fill(Number.NaN);
+    this.work = workspace(model.emitters.length, sk.chains.length, sk.anchorNode.length);
   }
 
-  /**
-   * Pipes that can carry flow with the given heads open: dead ends leading only to closed heads are peeled
-   * off (their flow is exactly zero). Returns the live pipes, and for each idle node the node it hangs from.
-   */
-  private livePart(open?: Uint8Array): { livePipe: Uint8Array; hangsFrom: Int32Array } {
-    const { model, incident } = this;
-    const livePipe = new Uint8Array(model.pipes.length).fill(1);
-    const hangsFrom = new Int32Array(model.nodes.length).fill(-1);
-    if (!open) return { livePipe, hangsFrom };
-    const pinned = new Uint8Array(model.nodes.length);
-    pinned[model.source] = 1;
-    model.emitters.forEach((e, k) => { if (open[k]) pinned[e.node] = 1; });
-    const degree = Int32Array.from(incident, (l) => l.length);
+  /** The live part with the given emitters open. */
+  private livePart(openList: Int32Array): LivePart {
+    const { skeleton: sk, chainA, chainB, emitterAnchor, emitterChain, emitterIndex } = this;
+    const nA = sk.anchorNode.length;
+    const nC = sk.chains.length;
+    const { pinned, alive, aLink, bLink, degree, headCount } = this.work;
+    pinned.fill(0);
+    pinned[sk.source] = 1;
+    headCount.fill(0);
+    const anchorEmitters: number[] = [];
+    const chainHeads: number[] = [];
+    for (const k of openList) {
+      const anchor = emitterAnchor[k]!;
+      if (anchor >= 0) { pinned[anchor] = 1; anchorEmitters.push(k); } else { chainHeads.push(k); headCount[emitterChain[k]!]!++; }
+    }
+    chainHeads.sort((x, y) => emitterChain[x]! - emitterChain[y]! || emitterIndex[x]! - emitterIndex[y]!);
+    // Peel dead ends: an anchor with one live chain end or none, no open head and no source is idle; a chain
+    // without open heads that loses an end carries nothing; one with open heads stops at its last open head.
+    degree.fill(0);
+    for (let i = 0; i < nC; i++) {
+      const on = chainA[i] !== chainB[i] || headCount[i]! > 0 ? 1 : 0;
+      alive[i] = aLink[i] = bLink[i] = on;
+      if (on) { degree[chainA[i]!]!++; degree[chainB[i]!]!++; }
+    }
+    const liveAnchor = new Uint8Array(nA).fill(1);
     const stack: number[] = [];
-    degree.forEach((d, v) => { if (d <= 1 && !pinned[v]) stack.push(v); });
-    const removed = new Uint8Array(model.nodes.length);
+    for (let v = 0; v < nA; v++) if (degree[v]! <= 1 && !pinned[v]) stack.push(v);
+    const peeled: LivePart['peeled'] = [];
     while (stack.length) {
       const v = stack.pop()!;
-      if (removed[v] || pinned[v] || degree[v]! > 1) continue;
-      removed[v] = 1;
-      for (const k of incident[v]!) {
-        if (!livePipe[k]) continue;
-        livePipe[k] = 0;
-        const p = model.pipes[k]!;
-        const w = p.from === v ? p.to : p.from;
-        hangsFrom[v] = w;
+      if (!liveAnchor[v] || pinned[v] || degree[v]! > 1) continue;
+      liveAnchor[v] = 0;
+      let on = -1;
+      for (const i of sk.chainsAt[v]!) if (alive[i] && ((chainA[i] === v && aLink[i]) || (chainB[i] === v && bLink[i]))) { on = i; break; }
+      peeled.push({ anchor: v, chain: on });
+      if (on < 0) continue;
+      const atA = chainA[on] === v;
+      if (atA) aLink[on] = 0; else bLink[on] = 0;
+      if (headCount[on]! > 0) continue;
+      alive[on] = 0;
+      const w = atA ? chainB[on]! : chainA[on]!;
+      if (atA ? bLink[on] : aLink[on]) {
+        if (atA) bLink[on] = 0; else aLink[on] = 0;
         if (--degree[w]! <= 1 && !pinned[w]) stack.push(w);
       }
     }
-    return { livePipe, hangsFrom };
+    const chain: number[] = [];
+    const headStart: number[] = [0];
+    const liveIndex = new Int32Array(nC).fill(-1);
+    let next = 0;
+    for (let i = 0; i < nC; i++) {
+      const heads = headCount[i]!;
+      if (!alive[i] || (!heads && !(aLink[i] && bLink[i]))) continue;
+      if (heads && !aLink[i] && !bLink[i]) throw new Error('open heads are not connected to the source');
+      next += heads;
+      liveIndex[i] = chain.length;
+      chain.push(i);
+      headStart.push(next);
+    }
+    const liveChain = Int32Array.from(chain);
+    const linked = (flags: Uint8Array) => { const out = new Uint8Array(chain.length); chain.forEach((c, i) => { out[i] = flags[c]!; }); return out; };
+    const headEmitter = Int32Array.from(chainHeads);
+    return {
+      chain: liveChain, aLinked: linked(aLink), bLinked: linked(bLink),
+      headStart: Int32Array.from(headStart), headIndex: headEmitter.map((k) => emitterIndex[k]!), headEmitter,
+      liveAnchor, anchorEmitters: Int32Array.from(anchorEmitters), peeled, liveIndex,
+    };
   }
 
   /**
-   * Solves for a fixed pressure at the source, starting from `warm` when given. `open` says which emitters
-   * flow (all when omitted): a closed head is no link at all, so one solver serves many design areas.
+   * Solves for a fixed pressure at the source, warm from the last solve. `open` lists the emitters that flow
+   * (all when omitted): a closed head is no link at all, so one solver serves many design areas.
    */
-  solve(sourcePressure: number, warm?: FlowState, open?: Uint8Array): FlowState {
-    const { model, unknown, system } = this;
-    const z = (i: number) => PSI_PER_FT * model.nodes[i]!.elevation;
-    const fixedHead = sourcePressure + z(model.source);
-    const { livePipe, hangsFrom } = this.livePart(open);
-    const q = warm ? Float64Array.from(warm.flow) : new Float64Array(model.pipes.length).fill(10);
-    livePipe.forEach((live, k) => { if (!live) q[k] = 0; });
-    const qe = warm ? Float64Array.from(warm.emitterFlow) : Float64Array.from(model.emitters, (e) => e.k * Math.sqrt(Math.max(sourcePressure, 1)));
-    let head: Float64Array = new Float64Array(this.nUnknown);
+  solve(sourcePressure: number, open?: Int32Array): SolveResult {
+    const { model, skeleton: sk, system, diagSlot, pairSlot } = this;
+    const live = this.livePart(open ?? Int32Array.from(model.emitters, (_, k) => k));
+    const { chain, aLinked, bLinked, headStart, headIndex, headEmitter, anchorEmitters, liveAnchor } = live;
+    const L = chain.length;
+    const T = headEmitter.length;
+    const nE = anchorEmitters.length;
+    const nA = sk.anchorNode.length;
+    const src = sk.source;
+    const zOf = (node: number) => PSI_PER_FT * model.nodes[node]!.elevation;
+    const sourceHead = sourcePressure + zOf(sk.anchorNode[src]!);
+    const firstFlow = (k: number) => {
+      const last = this.lastEmitterFlow[k]!;
+      return Number.isFinite(last) ? last : model.emitters[k]!.k * Math.sqrt(Math.max(model.emitters[k]!.required, 1));
+    };
+    // Open heads on chains (h) and on anchors (e): flow, K, elevation head, linearization q = g·H + c.
+    const { qH, kH, zH, gE, cE, qA, kA, zA, atA, gA, cA, w, x0, xa, xb, segR, segOn, q, g, s, endA, endB, rhs } = this.work;
+    for (let h = 0; h < T; h++) {
+      const k = headEmitter[h]!;
+      qH[h] = firstFlow(k); kH[h] = model.emitters[k]!.k; zH[h] = zOf(model.emitters[k]!.node);
+    }
+    for (let e = 0; e < nE; e++) {
+      const k = anchorEmitters[e]!;
+      qA[e] = firstFlow(k); kA[e] = model.emitters[k]!.k; zA[e] = zOf(model.emitters[k]!.node); atA[e] = this.emitterAnchor[k]!;
+    }
+    // Head potentials along chains and at anchors, this iteration's and the next (swapped each iteration).
+    let H = this.work.H.fill(0, 0, T);
+    let nextH = this.work.nextH;
+    let anchorHead = this.work.anchorHead.fill(0);
+    let nextAnchor = this.work.nextAnchor;
+    // Segments: resistance, flow, linearization, and whether the segment exists (reaches a linked end).
+    const S = T + L;
+    for (let i = 0; i < L; i++) {
+      const c = sk.chains[chain[i]!]!;
+      endA[i] = c.a;
+      endB[i] = c.b;
+      const h0 = headStart[i]!;
+      const m = headStart[i + 1]! - h0;
+      const base = h0 + i;
+      let total = 0;
+      for (let h = h0; h < h0 + m; h++) total += qH[h]!;
+      const last = this.lastChainFlow[chain[i]!]!;
+      let flow = !aLinked[i] ? 0 : !bLinked[i] ? total : Number.isFinite(last) ? last : m ? total / 2 : COLD_FLOW;
+      for (let j = 0; j <= m; j++) {
+        const from = j === 0 ? 0 : headIndex[h0 + j - 1]! + 1;
+        const to = j === m ? c.nodes.length + 1 : headIndex[h0 + j]! + 1;
+        segR[base + j] = c.cumR[to]! - c.cumR[from]!;
+        segOn[base + j] = (j === 0 && !aLinked[i]) || (j === m && !bLinked[i]) ? 0 : 1;
+        q[base + j] = segOn[base + j] ? flow : 0;
+        if (j < m) flow -= qH[h0 + j]!;
+      }
+    }
     let iterations = 0;
     for (; iterations < MAX_ITERATIONS; iterations++) {
       system.clear();
-      const rhs = new Float64Array(this.nUnknown);
-      const pipeP = new Float64Array(model.pipes.length);
-      const pipeY = new Float64Array(model.pipes.length);
-      hangsFrom.forEach((w, v) => { if (w >= 0 && unknown[v]! >= 0) system.add(unknown[v]!, unknown[v]!, 1); });
-      model.pipes.forEach((p, k) => {
-        if (!livePipe[k]) return;
-        const aq = Math.abs(q[k]!);
-        const slope = Math.max(HW_EXPONENT * p.r * aq ** (HW_EXPONENT - 1), MIN_SLOPE);
-        const loss = p.r * aq ** (HW_EXPONENT - 1) * q[k]!;
-        const pk = 1 / slope;
-        const yk = loss * pk;
-        pipeP[k] = pk; pipeY[k] = yk;
-        const a = unknown[p.from]!;
-        const b = unknown[p.to]!;
-        if (a >= 0) { system.add(a, a, pk); rhs[a] = rhs[a]! - (q[k]! - yk); } else if (b >= 0) rhs[b] = rhs[b]! + pk * fixedHead;
-        if (b >= 0) { system.add(b, b, pk); rhs[b] = rhs[b]! + (q[k]! - yk); } else if (a >= 0) rhs[a] = rhs[a]! + pk * fixedHead;
-        if (a >= 0 && b >= 0) system.add(a, b, -pk);
-      });
-      const emP = new Float64Array(model.emitters.length);
-      const emY = new Float64Array(model.emitters.length);
-      model.emitters.forEach((e, k) => {
-        if (open && !open[k]) { qe[k] = 0; return; }
-        // Emitter as a link to a fixed head at zero pressure: loss (q/K)², slope 2q/K².
-        const slope = Math.max((2 * Math.abs(qe[k]!)) / (e.k * e.k), MIN_SLOPE);
-        const pk = 1 / slope;
-        const yk = ((qe[k]! * Math.abs(qe[k]!)) / (e.k * e.k)) * pk;
-        emP[k] = pk; emY[k] = yk;
-        const a = unknown[e.node]!;
-        if (a >= 0) {
-          system.add(a, a, pk);
-          rhs[a] = rhs[a]! - (qe[k]! - yk) + pk * z(e.node);
+      rhs.fill(0, 0, nA - 1);
+      for (let v = 0; v < nA; v++) if (v !== src && !liveAnchor[v]) system.addAt(diagSlot[v]!, 1);
+      // An emitter is a link to the atmosphere at its own elevation: pressure (q/K)², slope 2|q|/K².
+      for (let e = 0; e < nE; e++) {
+        const K2 = kA[e]! * kA[e]!;
+        const ge = 1 / Math.max((2 * Math.abs(qA[e]!)) / K2, MIN_SLOPE);
+        gA[e] = ge;
+        cA[e] = qA[e]! - ((qA[e]! * Math.abs(qA[e]!)) / K2) * ge - ge * zA[e]!;
+        const v = atA[e]!;
+        if (v === src) continue;
+        system.addAt(diagSlot[v]!, ge);
+        rhs[v - 1] = rhs[v - 1]! - cA[e]!;
+      }
+      for (let h = 0; h < T; h++) {
+        const K2 = kH[h]! * kH[h]!;
+        const ge = 1 / Math.max((2 * Math.abs(qH[h]!)) / K2, MIN_SLOPE);
+        gE[h] = ge;
+        cE[h] = qH[h]! - ((qH[h]! * Math.abs(qH[h]!)) / K2) * ge - ge * zH[h]!;
+      }
+      for (let x = 0; x < S; x++) {
+        if (!segOn[x]) { g[x] = 0; s[x] = 0; continue; }
+        const qx = q[x]!;
+        const pow = lossPower(Math.abs(qx));
+        const gx = 1 / Math.max(HW_EXPONENT * segR[x]! * pow, MIN_SLOPE);
+        g[x] = gx;
+        s[x] = qx - segR[x]! * pow * qx * gx;
+      }
+      // Each chain becomes a two-port once its open heads are eliminated: the outflow at a is
+      // pA·H_a + pAB·H_b + cPa, at b pBA·H_a + pB·H_b + cPb.
+      for (let i = 0; i < L; i++) {
+        const h0 = headStart[i]!;
+        const m = headStart[i + 1]! - h0;
+        const base = h0 + i;
+        let pA: number, pB: number, pAB: number, pBA: number, cPa: number, cPb: number;
+        if (m === 0) {
+          pA = pB = g[base]!; pAB = pBA = -g[base]!; cPa = s[base]!; cPb = -s[base]!;
+        } else {
+          eliminateHeads(g, s, base, gE, cE, h0, m, w, x0, xa, xb);
+          const gFirst = g[base]!;
+          const gLast = g[base + m]!;
+          const hl = h0 + m - 1;
+          pA = gFirst * (1 - xa[h0]!); pAB = -gFirst * xb[h0]!; cPa = s[base]! - gFirst * x0[h0]!;
+          pBA = -gLast * xa[hl]!; pB = gLast * (1 - xb[hl]!); cPb = -s[base + m]! - gLast * x0[hl]!;
         }
-      });
-      const next = system.solve(rhs);
-      const H = (i: number) => (unknown[i]! >= 0 ? next[unknown[i]!]! : fixedHead);
+        const a = endA[i]!;
+        const b = endB[i]!;
+        const la = aLinked[i] === 1;
+        const lb = bLinked[i] === 1;
+        if (la && lb && a === b) {
+          if (a !== src) { system.addAt(diagSlot[a]!, pA + pAB + pBA + pB); rhs[a - 1] = rhs[a - 1]! - cPa - cPb; }
+          continue;
+        }
+        if (la && a !== src) {
+          system.addAt(diagSlot[a]!, pA);
+          rhs[a - 1] = rhs[a - 1]! - cPa - (lb && b === src ? pAB * sourceHead : 0);
+        }
+        if (lb && b !== src) {
+          system.addAt(diagSlot[b]!, pB);
+          rhs[b - 1] = rhs[b - 1]! - cPb - (la && a === src ? pBA * sourceHead : 0);
+        }
+        if (la && lb && a !== src && b !== src) system.addAt(pairSlot[chain[i]!]!, (pAB + pBA) / 2);
+      }
+      const solved = system.solve(rhs.subarray(0, nA - 1), this.work.solved);
+      let dh = 0;
+      for (let v = 0; v < nA; v++) {
+        nextAnchor[v] = v === src ? sourceHead : liveAnchor[v] ? solved[v - 1]! : 0;
+        dh = Math.max(dh, Math.abs(nextAnchor[v]! - anchorHead[v]!));
+      }
       let dq = 0;
       let total = 0;
-      model.pipes.forEach((p, k) => {
-        if (!livePipe[k]) return;
-        const nq = q[k]! - pipeY[k]! + pipeP[k]! * (H(p.from) - H(p.to));
-        dq += Math.abs(nq - q[k]!);
+      for (let i = 0; i < L; i++) {
+        const h0 = headStart[i]!;
+        const m = headStart[i + 1]! - h0;
+        const base = h0 + i;
+        const Ha = aLinked[i] ? nextAnchor[endA[i]!]! : 0;
+        const Hb = bLinked[i] ? nextAnchor[endB[i]!]! : 0;
+        for (let h = h0; h < h0 + m; h++) {
+          const Hh = x0[h]! + xa[h]! * Ha + xb[h]! * Hb;
+          nextH[h] = Hh;
+          dh = Math.max(dh, Math.abs(Hh - H[h]!));
+          const nq = gE[h]! * Hh + cE[h]!;
+          dq += Math.abs(nq - qH[h]!);
+          total += Math.abs(nq);
+          qH[h] = nq;
+        }
+        for (let j = 0; j <= m; j++) {
+          const x = base + j;
+          if (!segOn[x]) continue;
+          const left = j === 0 ? Ha : nextH[h0 + j - 1]!;
+          const right = j === m ? Hb : nextH[h0 + j]!;
+          const nq = g[x]! * (left - right) + s[x]!;
+          dq += Math.abs(nq - q[x]!);
+          total += Math.abs(nq);
+          q[x] = nq;
+        }
+      }
+      for (let e = 0; e < nE; e++) {
+        const nq = gA[e]! * nextAnchor[atA[e]!]! + cA[e]!;
+        dq += Math.abs(nq - qA[e]!);
         total += Math.abs(nq);
-        q[k] = nq;
-      });
-      model.emitters.forEach((e, k) => {
-        if (open && !open[k]) return;
-        const nq = qe[k]! - emY[k]! + emP[k]! * (H(e.node) - z(e.node));
-        dq += Math.abs(nq - qe[k]!);
-        total += Math.abs(nq);
-        qe[k] = nq;
-      });
-      let dh = 0;
-      for (let i = 0; i < next.length; i++) dh = Math.max(dh, Math.abs(next[i]! - head[i]!));
-      head = next;
+        qA[e] = nq;
+      }
+      [anchorHead, nextAnchor] = [nextAnchor, anchorHead];
+      [H, nextH] = [nextH, H];
       if (iterations > 0 && dq <= FLOW_TOL * Math.max(total, 1) && dh <= HEAD_TOL) { iterations++; break; }
     }
     if (iterations >= MAX_ITERATIONS) throw new Error(`hydraulic solve did not converge in ${MAX_ITERATIONS} iterations`);
-    // An idle node has the head of the live node it hangs from (no flow, no loss): resolve along the chain.
-    const headAt = (i: number): number => {
-      let v = i;
-      while (hangsFrom[v]! >= 0) v = hangsFrom[v]!;
-      return unknown[v]! >= 0 ? head[unknown[v]!]! : fixedHead;
+    for (let i = 0; i < L; i++) this.lastChainFlow[chain[i]!] = aLinked[i] ? q[headStart[i]! + i]! : Number.NaN;
+    const pressure = new Float64Array(nE + T);
+    const flow = new Float64Array(nE + T);
+    const openOut = new Int32Array(nE + T);
+    const put = (x: number, k: number, head: number, qk: number, z: number) => {
+      openOut[x] = k;
+      pressure[x] = head - z;
+      flow[x] = qk;
+      this.lastEmitterFlow[k] = qk;
     };
-    const pressure = Float64Array.from(model.nodes, (_, i) => headAt(i) - z(i));
-    return { pressure, flow: q, emitterFlow: qe, iterations };
+    for (let e = 0; e < nE; e++) put(e, anchorEmitters[e]!, anchorHead[atA[e]!]!, qA[e]!, zA[e]!);
+    for (let h = 0; h < T; h++) put(nE + h, headEmitter[h]!, H[h]!, qH[h]!, zH[h]!);
+    return {
+      open: openOut, pressure, flow, iterations,
+      solution: { live, anchorHead: anchorHead.slice(0, nA), headPotential: H.slice(0, T), segmentFlow: q.slice(0, S) },
+    };
+  }
+
+  /** Pressures at every model node and flows in every pipe, from a solve: idle parts take the head they hang from. */
+  expand(result: SolveResult): FlowState {
+    const { model, skeleton: sk } = this;
+    const { live, anchorHead, headPotential, segmentFlow } = result.solution;
+    const H = new Float64Array(model.nodes.length);
+    const flow = new Float64Array(model.pipes.length);
+    const Hanchor = Float64Array.from(anchorHead);
+    // Along a live chain, pipe by pipe; a dangling tail carries nothing and keeps its open head's head.
+    live.chain.forEach((ci, i) => {
+      const c = sk.chains[ci]!;
+      const h0 = live.headStart[i]!;
+      const m = live.headStart[i + 1]! - h0;
+      for (let j = 0; j <= m; j++) {
+        const from = j === 0 ? 0 : live.headIndex[h0 + j - 1]! + 1;
+        const to = j === m ? c.nodes.length + 1 : live.headIndex[h0 + j]! + 1;
+        const linked = !((j === 0 && !live.aLinked[i]) || (j === m && !live.bLinked[i]));
+        const q = linked ? segmentFlow[h0 + i + j]! : 0;
+        let h = j === 0 ? (live.aLinked[i] ? Hanchor[c.a]! : headPotential[h0]!) : headPotential[h0 + j - 1]!;
+        for (let x = from; x < to; x++) {
+          const k = c.pipes[x]!;
+          flow[k] = q * c.sign[x]!;
+          h -= model.pipes[k]!.r * Math.abs(q) ** (HW_EXPONENT - 1) * q;
+          if (x < c.nodes.length) H[c.nodes[x]!] = h;
+        }
+      }
+    });
+    // Peeled anchors, last first: each has the head of what it hangs on (a dangling chain's nearest open head,
+    // or the far anchor of a dead chain, whose own head is known by then).
+    for (let x = live.peeled.length - 1; x >= 0; x--) {
+      const { anchor, chain } = live.peeled[x]!;
+      if (chain < 0) continue;
+      const c = sk.chains[chain]!;
+      const li = live.liveIndex[chain]!;
+      if (li < 0) { Hanchor[anchor] = Hanchor[c.a === anchor ? c.b : c.a]!; continue; }
+      const h0 = live.headStart[li]!;
+      Hanchor[anchor] = headPotential[c.a === anchor ? h0 : live.headStart[li + 1]! - 1]!;
+    }
+    sk.chains.forEach((c, i) => { if (live.liveIndex[i]! < 0) for (const v of c.nodes) H[v] = Hanchor[c.a]!; });
+    sk.anchorNode.forEach((v, a) => { H[v] = Hanchor[a]!; });
+    const pressure = Float64Array.from(model.nodes, (node, v) => H[v]! - PSI_PER_FT * node.elevation);
+    const emitterFlow = new Float64Array(model.emitters.length);
+    result.open.forEach((k, x) => { emitterFlow[k] = result.flow[x]!; });
+    return { pressure, flow, emitterFlow, iterations: result.iterations };
+  }
+}
+
+/** |q|^0.85, the Hazen-Williams loss over |q| (exp and log: twice as fast as the power operator in V8). */
+const lossPower = (absQ: number): number => (absQ > 0 ? Math.exp((HW_EXPONENT - 1) * Math.log(absQ)) : 0);
+
+/** Buffers of one solver, sized for every head open and every chain live, reused by each solve. */
+type Workspace = ReturnType<typeof workspace>;
+
+function workspace(emitters: number, chains: number, anchors: number) {
+  const f = (n: number) => new Float64Array(n);
+  return {
+    // open heads on chains: flow, K, elevation head, linearization, elimination, potential now and next
+    qH: f(emitters), kH: f(emitters), zH: f(emitters), gE: f(emitters), cE: f(emitters),
+    w: f(emitters), x0: f(emitters), xa: f(emitters), xb: f(emitters), H: f(emitters), nextH: f(emitters),
+    // open heads on anchors
+    qA: f(emitters), kA: f(emitters), zA: f(emitters), gA: f(emitters), cA: f(emitters), atA: new Int32Array(emitters),
+    // segments of live chains, and the chains' end anchors
+    segR: f(emitters + chains), q: f(emitters + chains), g: f(emitters + chains), s: f(emitters + chains),
+    segOn: new Uint8Array(emitters + chains), endA: new Int32Array(chains), endB: new Int32Array(chains),
+    // the anchor system
+    rhs: f(anchors), solved: f(anchors), anchorHead: f(anchors), nextAnchor: f(anchors),
+    // finding the live part
+    pinned: new Uint8Array(anchors), degree: new Int32Array(anchors),
+    alive: new Uint8Array(chains), aLink: new Uint8Array(chains), bLink: new Uint8Array(chains), headCount: new Int32Array(chains),
+  };
+}
+
+/**
+ * Eliminates a chain's m open heads, a tridiagonal system, from the linearized segments g·(H_left − H_right) + s
+ * (m + 1 of them from `base`) and emitters gE·H + cE (from `h0`): afterwards each head's potential is
+ * x0 + xa·H_a + xb·H_b. Head h lies between segment h and segment h + 1 of the chain.
+ */
+function eliminateHeads(
+  g: Float64Array, s: Float64Array, base: number, gE: Float64Array, cE: Float64Array, h0: number, m: number,
+  w: Float64Array, x0: Float64Array, xa: Float64Array, xb: Float64Array,
+): void {
+  for (let i = 0; i < m; i++) {
+    const h = h0 + i;
+    w[h] = g[base + i]! + g[base + i + 1]! + gE[h]!;
+    x0[h] = s[base + i]! - s[base + i + 1]! - cE[h]!;
+    xa[h] = i === 0 ? g[base]! : 0;
+    xb[h] = i === m - 1 ? g[base + m]! : 0;
+  }
+  for (let i = 1; i < m; i++) {
+    const h = h0 + i;
+    const f = g[base + i]! / w[h - 1]!;
+    w[h] = w[h]! - f * g[base + i]!;
+    x0[h] = x0[h]! + f * x0[h - 1]!;
+    xa[h] = xa[h]! + f * xa[h - 1]!;
+    xb[h] = xb[h]! + f * xb[h - 1]!;
+  }
+  const last = h0 + m - 1;
+  x0[last] = x0[last]! / w[last]!;
+  xa[last] = xa[last]! / w[last]!;
+  xb[last] = xb[last]! / w[last]!;
+  for (let i = m - 2; i >= 0; i--) {
+    const h = h0 + i;
+    const gr = g[base + i + 1]!;
+    x0[h] = (x0[h]! + gr * x0[h + 1]!) / w[h]!;
+    xa[h] = (xa[h]! + gr * xa[h + 1]!) / w[h]!;
+    xb[h] = (xb[h]! + gr * xb[h + 1]!) / w[h]!;
   }
 }

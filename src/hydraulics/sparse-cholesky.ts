@@ -18,6 +18,8 @@ export class SparseSpdSystem {
   private readonly updB: Int32Array;
   private readonly slotOf: Map<number, number>;
   private readonly values: Float64Array;
+  /** Work vector of the triangular solves, in elimination order. */
+  private readonly work: Float64Array;
 
   /** @param edges pairs of original indices with a non-zero off-diagonal entry */
   constructor(n: number, edges: readonly (readonly [number, number])[]) {
@@ -39,6 +41,7 @@ export class SparseSpdSystem {
     this.colRows = Int32Array.from(rows);
     this.colSlot = Int32Array.from(slots);
     this.values = new Float64Array(next);
+    this.work = new Float64Array(n);
     // Updates: eliminating column j changes entry (a, b) for every pair of its rows a ≥ b (a = b: diagonal).
     const target: number[] = [];
     const ua: number[] = [];
@@ -72,15 +75,29 @@ export class SparseSpdSystem {
 
   /** Adds v to entry (i, j) and (j, i) of the matrix, original indices (only entries given as edges, or diagonal). */
   add(i: number, j: number, v: number): void {
-    let a = this.pos[i]!;
-    let b = this.pos[j]!;
-    if (a === b) { this.values[this.diagSlot[a]!]! += v; return; }
-    if (a < b) [a, b] = [b, a];
-    this.values[this.slotOf.get(a * this.n + b)!]! += v;
+    this.values[this.slot(i, j)]! += v;
   }
 
-  /** Factorises in place (LDLᵀ) and solves A·x = b (original indices). Throws if A is not positive definite. */
-  solve(b: Float64Array): Float64Array {
+  /** Where entry (i, j) (and (j, i)) is kept, for repeated `addAt` without a lookup. */
+  slot(i: number, j: number): number {
+    let a = this.pos[i]!;
+    let b = this.pos[j]!;
+    if (a === b) return this.diagSlot[a]!;
+    if (a < b) [a, b] = [b, a];
+    const slot = this.slotOf.get(a * this.n + b);
+    if (slot === undefined) throw new Error(`entry (${i}, ${j}) is not in the structure`);
+    return slot;
+  }
+
+  addAt(slot: number, v: number): void {
+    this.values[slot]! += v;
+  }
+
+  /**
+   * Factorises in place (LDLᵀ) and solves A·x = b (original indices) into `out` (a new array when not given).
+   * Throws if A is not positive definite.
+   */
+  solve(b: Float64Array, out = new Float64Array(this.n)): Float64Array {
     const { n, values: v, colStart, colRows, colSlot, diagSlot, updStart, updTarget, updA, updB } = this;
     for (let j = 0; j < n; j++) {
       const d = v[diagSlot[j]!]!;
@@ -89,7 +106,7 @@ export class SparseSpdSystem {
       for (let u = updStart[j]!; u < updStart[j + 1]!; u++) v[updTarget[u]!]! -= (v[updA[u]!]! * v[updB[u]!]!) / d;
       for (let x = colStart[j]!; x < colStart[j + 1]!; x++) v[colSlot[x]!]! /= d;
     }
-    const y = new Float64Array(n);
+    const y = this.work;
     for (let i = 0; i < n; i++) y[this.pos[i]!] = b[i]!;
     for (let j = 0; j < n; j++) {
       const yj = y[j]!;
@@ -101,7 +118,6 @@ export class SparseSpdSystem {
       for (let x = colStart[j]!; x < colStart[j + 1]!; x++) s -= v[colSlot[x]!]! * y[colRows[x]!]!;
       y[j] = s;
     }
-    const out = new Float64Array(n);
     for (let i = 0; i < n; i++) out[i] = y[this.pos[i]!]!;
     return out;
   }
