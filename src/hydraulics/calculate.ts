@@ -78,7 +78,7 @@ export class AreaCalculator {
 
   /** One solve at source pressure P: the source flow, and whether every open head gets its required pressure. */
   satisfiedAt(headIds: string[], P: number): { satisfied: boolean; flow: number } {
-    const s = this.solver.solve(P, this.openList(headIds));
+    const s = this.solver.solve(P, this.openList(headIds), false);
     let flow = 0;
     let satisfied = true;
     s.open.forEach((k, x) => {

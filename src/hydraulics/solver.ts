@@ -28,12 +28,22 @@ export interface SolveResult {
   pressure: Float64Array;
   flow: Float64Array;
   iterations: number;
-  readonly solution: Solution;
+  /** What `expand` needs; kept only when the solve was asked to keep it. */
+  readonly solution: Solution | null;
 }
 
-/** Convergence: flow changes below 1e-9 of the total flow and head changes below 1e-8 psi (stated tolerances). */
+/**
+ * Convergence: what the iterations would still change is below 1e-9 of the total flow and 1e-8 psi of head
+ * (stated tolerances). It is estimated from the last two steps: a step d after a step d′ contracts by
+ * ρ = d/d′, and ρ < ½ leaves at most d·ρ/(1 − ρ) to come (Newton's steps shrink far faster than that).
+ */
 const FLOW_TOL = 1e-9;
 const HEAD_TOL = 1e-8;
+const MAX_CONTRACTION = 0.5;
+const remaining = (step: number, previous: number): number => {
+  const rho = step / previous;
+  return rho < MAX_CONTRACTION ? (step * rho) / (1 - rho) : step;
+};
 const MAX_ITERATIONS = 200;
 /**
  * Least slope of a link's loss curve in the Newton step, psi per gpm. Near zero flow the Hazen-Williams slope
@@ -178,9 +188,10 @@ export class NetworkSolver {
 
   /**
    * Solves for a fixed pressure at the source, warm from the last solve. `open` lists the emitters that flow
-   * (all when omitted): a closed head is no link at all, so one solver serves many design areas.
+   * (all when omitted): a closed head is no link at all, so one solver serves many design areas. `keep`
+   * keeps what `expand` needs (a trial solve that is only checked does without).
    */
-  solve(sourcePressure: number, open?: Int32Array): SolveResult {
+  solve(sourcePressure: number, open?: Int32Array, keep = true): SolveResult {
     const { model, skeleton: sk, system, diagSlot, pairSlot } = this;
     const live = this.livePart(open ?? Int32Array.from(model.emitters, (_, k) => k));
     const { chain, aLinked, bLinked, headStart, headIndex, headEmitter, anchorEmitters, liveAnchor } = live;
@@ -233,6 +244,8 @@ export class NetworkSolver {
       }
     }
     let iterations = 0;
+    let lastDq = Infinity;
+    let lastDh = Infinity;
     for (; iterations < MAX_ITERATIONS; iterations++) {
       system.clear();
       rhs.fill(0, 0, nA - 1);
@@ -339,7 +352,9 @@ export class NetworkSolver {
       }
       [anchorHead, nextAnchor] = [nextAnchor, anchorHead];
       [H, nextH] = [nextH, H];
-      if (iterations > 0 && dq <= FLOW_TOL * Math.max(total, 1) && dh <= HEAD_TOL) { iterations++; break; }
+      if (iterations > 0 && remaining(dq, lastDq) <= FLOW_TOL * Math.max(total, 1) && remaining(dh, lastDh) <= HEAD_TOL) { iterations++; break; }
+      lastDq = dq;
+      lastDh = dh;
     }
     if (iterations >= MAX_ITERATIONS) throw new Error(`hydraulic solve did not converge in ${MAX_ITERATIONS} iterations`);
     for (let i = 0; i < L; i++) this.lastChainFlow[chain[i]!] = aLinked[i] ? q[headStart[i]! + i]! : Number.NaN;
@@ -356,13 +371,14 @@ export class NetworkSolver {
     for (let h = 0; h < T; h++) put(nE + h, headEmitter[h]!, H[h]!, qH[h]!, zH[h]!);
     return {
       open: openOut, pressure, flow, iterations,
-      solution: { live, anchorHead: anchorHead.slice(0, nA), headPotential: H.slice(0, T), segmentFlow: q.slice(0, S) },
+      solution: keep ? { live, anchorHead: anchorHead.slice(0, nA), headPotential: H.slice(0, T), segmentFlow: q.slice(0, S) } : null,
     };
   }
 
   /** Pressures at every model node and flows in every pipe, from a solve: idle parts take the head they hang from. */
   expand(result: SolveResult): FlowState {
     const { model, skeleton: sk } = this;
+    if (!result.solution) throw new Error('the solve did not keep its solution');
     const { live, anchorHead, headPotential, segmentFlow } = result.solution;
     const H = new Float64Array(model.nodes.length);
     const flow = new Float64Array(model.pipes.length);
