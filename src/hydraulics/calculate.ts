@@ -71,7 +71,7 @@ export class AreaCalculator {
   private openList(headIds: string[]): Int32Array {
     return Int32Array.from(new Set(headIds), (id) => {
       const k = this.emitterOf.get(id);
-      if (k === undefined) throw new Error(`head ${id} is not on the piping`);
+      if (k === undefined) throw new Error(`head ${id} is not connected to the water source through the piping`);
       return k;
     });
   }

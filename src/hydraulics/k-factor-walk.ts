@@ -3,6 +3,7 @@
 
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import type { Emitter, HydraulicModel } from './model.js';
+import { buildSkeleton } from './skeleton.js';
 
 export interface TreeBound {
   /** Upper bounds on the required source pressure (psi) and the source flow (gpm), or null where none holds. */
@@ -23,59 +24,120 @@ export const HAND_METHOD_EXPONENT = 0.5;
 
 export const treeBound = (model: HydraulicModel): TreeBound | null => kFactorWalk(model, BOUND_EXPONENT);
 
-/** The K-factor balancing walk over a tree model, raising lower-pressure sides by (p_high/p_low)^exponent. */
+/**
+ * The K-factor balancing walk over a tree model, raising lower-pressure sides by (p_high/p_low)^exponent. It
+ * walks the model's skeleton: along a chain of pipes with no open head between, the flow is constant and the
+ * losses of its pipes add up, so a design area costs its heads and the junctions on their way to the source.
+ */
 export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeBound | null {
   const n = model.nodes.length;
   if (model.pipes.length !== n - 1) return null;
-  const { order: walkOrder, parentPipe, parentNode } = breadthFirst(model);
-  if (walkOrder.length !== n) return null;
-  const rank = new Int32Array(n);
-  walkOrder.forEach((v, i) => { rank[v] = i; });
+  const sk = buildSkeleton(model);
+  const nA = sk.anchorNode.length;
+  const nC = sk.chains.length;
+  // Orient the skeleton from the source: each anchor's chain and anchor towards the source, and its rank.
+  const upChain = new Int32Array(nA).fill(-1);
+  const upAnchor = new Int32Array(nA).fill(-1);
+  const rank = new Int32Array(nA);
+  const order = [sk.source];
+  const seen = new Uint8Array(nA);
+  seen[sk.source] = 1;
+  for (let i = 0; i < order.length; i++) {
+    const u = order[i]!;
+    rank[u] = i;
+    for (const c of sk.chainsAt[u]!) {
+      const chain = sk.chains[c]!;
+      const v = chain.a === u ? chain.b : chain.a;
+      if (seen[v]) continue;
+      seen[v] = 1; upChain[v] = c; upAnchor[v] = u; order.push(v);
+    }
+  }
+  if (order.length !== nA) return null;
+  // Elevations: the bound holds where every node below the source is at one level (see BOUND_EXPONENT).
+  const z = (v: number) => model.nodes[v]!.elevation;
+  const anchorZ = Float64Array.from(sk.anchorNode, z);
+  const chainZ = sk.chains.map((c) => {
+    const zs = Array.from(c.nodes, z);
+    return zs.length && Math.max(...zs) - Math.min(...zs) > 1e-9 ? Number.NaN : (zs[0] ?? null);
+  });
   const emitterOf = new Map(model.emitters.map((e) => [e.headId, e]));
-  const z = Float64Array.from(model.nodes, (node) => node.elevation);
-  const rise = new Float64Array(n);
-  for (let v = 0; v < n; v++) if (parentNode[v]! >= 0) rise[v] = PSI_PER_FT * (z[v]! - z[parentNode[v]!]!);
-  const resistance = Float64Array.from({ length: n }, (_, v) => (parentPipe[v]! >= 0 ? model.pipes[parentPipe[v]!]!.r : 0));
-  // Per-call scratch, reused: a node's combined (pressure, flow), the call that last touched it, and the
-  // touched nodes' ranks in breadth-first order (children are joined into parents from the deepest up).
-  const P = new Float64Array(n);
-  const Q = new Float64Array(n);
-  const stamp = new Int32Array(n);
-  const ranks = new Int32Array(n);
+  // Per-call scratch, reused: each anchor's combined (pressure, flow) and the call that last touched it; each
+  // chain's open heads (interior index, emitter) and the call that gave them.
+  const P = new Float64Array(nA);
+  const Q = new Float64Array(nA);
+  const stamp = new Int32Array(nA);
+  const chainStamp = new Int32Array(nC);
+  const chainHeads: { index: number; e: Emitter }[][] = sk.chains.map(() => []);
   let epoch = 0;
   /** a^x for a > 0 (exp and log: twice as fast as the power operator in V8). */
   const pow = (a: number, x: number) => Math.exp(x * Math.log(a));
-  /** Joins an input (p, q) into node u: the higher pressure wins, the other side's flow is raised to it. */
-  const join = (u: number, p: number, q: number) => {
-    if (Q[u] === 0) { P[u] = p; Q[u] = q; return; }
-    if (p <= P[u]!) Q[u] = Q[u]! + q * pow(P[u]! / p, raiseExponent);
-    else { Q[u] = Q[u]! * pow(p / P[u]!, raiseExponent) + q; P[u] = p; }
+  /** Joins an input (p, q) into a running (P, Q): the higher pressure wins, the other side's flow is raised to it. */
+  const combine = (P0: number, Q0: number, p: number, q: number): [number, number] => {
+    if (Q0 === 0) return [p, q];
+    if (p <= P0) return [P0, Q0 + q * pow(P0 / p, raiseExponent)];
+    return [p, Q0 * pow(p / P0, raiseExponent) + q];
   };
   return {
     bound(headIds) {
       epoch++;
-      let touched = 0;
+      const touched: number[] = [];
       let level: number | null = null;
+      const atLevel = (h: number | null) => {
+        if (h === null) return true;
+        if (Number.isNaN(h)) return false;
+        if (level === null) level = h;
+        return Math.abs(h - level) <= 1e-9;
+      };
+      const touch = (from: number): boolean => {
+        for (let v = from; v >= 0 && stamp[v] !== epoch; v = upAnchor[v]!) {
+          stamp[v] = epoch; P[v] = 0; Q[v] = 0; touched.push(v);
+          if (v !== sk.source && (!atLevel(anchorZ[v]!) || (upChain[v]! >= 0 && upAnchor[v] !== sk.source && !atLevel(chainZ[upChain[v]!]!)))) return false;
+          if (v !== sk.source && upAnchor[v] === sk.source && !atLevel(chainZ[upChain[v]!]!)) return false;
+        }
+        return true;
+      };
       const heads: Emitter[] = [];
       for (const id of headIds) {
         const e = emitterOf.get(id);
         if (!e) return null;
         heads.push(e);
-        for (let v = e.node; v >= 0 && stamp[v] !== epoch; v = parentNode[v]!) {
-          stamp[v] = epoch; P[v] = 0; Q[v] = 0; ranks[touched++] = rank[v]!;
-          if (v !== model.source) {
-            if (level === null) level = z[v]!;
-            else if (Math.abs(z[v]! - level) > 1e-9) return null;
+        const anchor = sk.anchorOf[e.node]!;
+        if (anchor >= 0) { if (!touch(anchor)) return null; continue; }
+        const c = sk.chainOf[e.node]!;
+        if (chainStamp[c] !== epoch) { chainStamp[c] = epoch; chainHeads[c]!.length = 0; }
+        chainHeads[c]!.push({ index: sk.indexInChain[e.node]!, e });
+        // The chain's lower end: the anchor whose way to the source runs through it.
+        const chain = sk.chains[c]!;
+        if (!touch(upChain[chain.a] === c ? chain.a : chain.b)) return null;
+      }
+      for (const e of heads) {
+        const anchor = sk.anchorOf[e.node]!;
+        if (anchor >= 0) [P[anchor], Q[anchor]] = combine(P[anchor]!, Q[anchor]!, e.required, e.k * Math.sqrt(e.required));
+      }
+      touched.sort((x, y) => rank[y]! - rank[x]!);
+      for (const v of touched) {
+        const u = upAnchor[v]!;
+        if (u < 0) return { pressure: P[v]!, flow: Q[v]! };
+        // Up the chain from v to u, joining its open heads on the way.
+        const c = upChain[v]!;
+        const chain = sk.chains[c]!;
+        const fromA = chain.a === v;
+        const end = chain.nodes.length + 1;
+        let pos = fromA ? 0 : end;
+        let p = P[v]!;
+        let q = Q[v]!;
+        const rOf = (x: number, y: number) => Math.abs(chain.cumR[y]! - chain.cumR[x]!);
+        if (chainStamp[c] === epoch) {
+          const list = chainHeads[c]!.sort((x, y) => (fromA ? x.index - y.index : y.index - x.index));
+          for (const { index, e } of list) {
+            if (q > 0) p += rOf(pos, index + 1) * pow(q, HW_EXPONENT);
+            [p, q] = combine(p, q, e.required, e.k * Math.sqrt(e.required));
+            pos = index + 1;
           }
         }
-      }
-      for (const e of heads) join(e.node, e.required, e.k * Math.sqrt(e.required));
-      const order = ranks.subarray(0, touched).sort();
-      for (let i = touched - 1; i >= 0; i--) {
-        const v = walkOrder[order[i]!]!;
-        const up = parentNode[v]!;
-        if (up < 0) return { pressure: P[v]!, flow: Q[v]! };
-        join(up, P[v]! + resistance[v]! * pow(Q[v]!, HW_EXPONENT) + rise[v]!, Q[v]!);
+        if (q === 0) continue;
+        p += rOf(pos, fromA ? end : 0) * pow(q, HW_EXPONENT) + PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
+        [P[u], Q[u]] = combine(P[u]!, Q[u]!, p, q);
       }
       return null;
     },

@@ -62,7 +62,8 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
       diameter: p.innerDiameter, c: p.cFactor, r: resistance(length, p.cFactor, p.innerDiameter),
     };
   });
-  const emitters: Emitter[] = [...flowingByNode.entries()].map(([nodeId, f]) => ({
+  // Heads on piping that does not reach the source cannot flow: they are no emitters of this model.
+  const emitters: Emitter[] = [...flowingByNode.entries()].filter(([nodeId]) => index.has(nodeId)).map(([nodeId, f]) => ({
     node: index.get(nodeId)!, headId: f.head.id, k: f.head.kFactor, required: f.required,
   }));
   let source = index.get(network.sourceNodeId)!;

@@ -21,7 +21,7 @@ describe('block expansion', () => {
     for (let i = 0; i < 5; i++) w.block(`B${i}`, { x: 0, y: 0 }, (b) => { if (i < 4) w.insert('0', `B${i + 1}`, { x: 1, y: 0 }, { into: b }); });
     w.insert('X', 'B0', { x: 0, y: 0 });
     expect(() => readDrawing(bytes(w.toString()), { limits: { maxDepth: 3, maxRefs: 100 } })).toThrow(/nesting deeper than 3/);
-    expect(readDrawing(bytes(w.toString()), { limits: { maxDepth: 8, maxRefs: 100 } }).refs).toHaveLength(5);
+    expect(readDrawing(bytes(w.toString()), { layers: { heads: ['X'] }, limits: { maxDepth: 8, maxRefs: 100 } }).refs).toHaveLength(5);
   });
 
   it('stops an expansion past the reference limit (nested arrays must not explode memory)', () => {
@@ -29,7 +29,7 @@ describe('block expansion', () => {
     w.block('LEAF', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 1, b); });
     w.block('TEN', { x: 0, y: 0 }, (b) => { for (let i = 0; i < 10; i++) w.insert('0', 'LEAF', { x: i, y: 0 }, { into: b }); });
     for (let i = 0; i < 10; i++) w.insert('X', 'TEN', { x: 0, y: i });
-    expect(() => readDrawing(bytes(w.toString()), { limits: { maxDepth: 8, maxRefs: 50 } })).toThrow(InputError);
+    expect(() => readDrawing(bytes(w.toString()), { layers: { heads: ['X'] }, limits: { maxDepth: 8, maxRefs: 50 } })).toThrow(InputError);
   });
 
   it('gives layer-0 entities inside a block the reference layer, and keeps the top-level handle', () => {
@@ -46,6 +46,6 @@ describe('block expansion', () => {
     const w = new DxfWriter(0);
     w.line('P', { x: 0, y: 0 }, { x: 1, y: 0 });
     expect(() => readDrawing(bytes(w.toString()))).toThrow(/set "units" in the config/);
-    expect(readDrawing(bytes(w.toString()), { units: 'mm' }).strokes[0]!.length).toBeCloseTo(1 / 304.8, 12);
+    expect(readDrawing(bytes(w.toString()), { units: 'mm', layers: { pipes: ['P'] } }).strokes[0]!.length).toBeCloseTo(1 / 304.8, 12);
   });
 });

@@ -25,7 +25,6 @@ export interface Flattened {
   outlines: Outline[];
   texts: TextItem[];
   points: PointItem[];
-  counts: Map<string, Record<string, number>>;
 }
 
 interface Context {
@@ -40,16 +39,10 @@ type Raw = IEntity & Record<string, any>;
 const CIRCLE_STEPS = 32;
 
 export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: FlattenLimits = DEFAULT_FLATTEN_LIMITS): Flattened {
-  const out: Flattened = { refs: [], strokes: [], outlines: [], texts: [], points: [], counts: new Map() };
+  const out: Flattened = { refs: [], strokes: [], outlines: [], texts: [], points: [] };
   const blocks: Record<string, IBlock> = dxf.blocks ?? {};
   const blockByUpper = new Map(Object.entries(blocks).map(([k, v]) => [k.toUpperCase(), v] as const));
   let refCount = 0;
-
-  const count = (layer: string, type: string) => {
-    let c = out.counts.get(layer);
-    if (!c) out.counts.set(layer, (c = {}));
-    c[type] = (c[type] ?? 0) + 1;
-  };
 
   const walk = (entities: Raw[], ctx: Context) => {
     for (let i = 0; i < entities.length; i++) {
@@ -59,7 +52,6 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: FlattenLimits
       const own = decodeUnicodeEscapes(String(e.layer ?? '0'));
       const layer = own === '0' && ctx.layer !== null ? ctx.layer : own;
       const handle = ctx.handle ?? String(e.handle ?? '');
-      count(layer, e.type);
       if (e.type === 'INSERT') {
         const attribs: AttribEntity[] = [];
         while (entities[i + 1]?.type === 'ATTRIB') attribs.push(entities[++i] as AttribEntity);

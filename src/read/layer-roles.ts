@@ -3,7 +3,7 @@
 
 import { compilePatterns } from '../config/patterns.js';
 import { LAYER_ROLES, type LayerRole } from '../config/settings.js';
-import type { Drawing } from './types.js';
+import type { LayerSummary } from './types.js';
 
 export interface RoleChoice {
   layers: string[];
@@ -23,14 +23,14 @@ const NAME_HINTS: Record<LayerRole, RegExp> = {
   source: /riser|source|supply|poc|fdc|steig/i,
 };
 
-export function assignLayerRoles(drawing: Drawing, patterns: Partial<Record<LayerRole, string[]>>): LayerRoles {
+export function assignLayerRoles(layers: LayerSummary[], patterns: Partial<Record<LayerRole, string[]>>): LayerRoles {
   const out = {} as LayerRoles;
   for (const role of LAYER_ROLES) {
     const given = patterns[role];
     if (given) {
       const match = compilePatterns(given);
       out[role] = {
-        layers: drawing.layers.map((l) => l.name).filter(match),
+        layers: layers.map((l) => l.name).filter(match),
         from: 'config',
         reason: `config patterns ${given.join(', ')}`,
       };
@@ -39,16 +39,16 @@ export function assignLayerRoles(drawing: Drawing, patterns: Partial<Record<Laye
   const taken = new Set(Object.values(out).flatMap((c) => c.layers));
   for (const role of LAYER_ROLES) {
     if (out[role]) continue;
-    out[role] = guessRole(drawing, role, taken);
+    out[role] = guessRole(layers, role, taken);
     for (const l of out[role].layers) taken.add(l);
   }
   return out;
 }
 
-function guessRole(drawing: Drawing, role: LayerRole, taken: Set<string>): RoleChoice {
-  const free = drawing.layers.filter((l) => !taken.has(l.name));
+function guessRole(layers: LayerSummary[], role: LayerRole, taken: Set<string>): RoleChoice {
+  const free = layers.filter((l) => !taken.has(l.name));
   const byName = free.filter((l) => NAME_HINTS[role].test(l.name) && Object.keys(l.counts).length > 0);
-  const geometric = free.filter((l) => looksLike(drawing, role, l.name));
+  const geometric = free.filter((l) => looksLike(l, role));
   const both = byName.filter((l) => geometric.includes(l));
   const pick = both.length ? both : role === 'heads' && !byName.length ? geometric.slice(0, 1) : byName;
   const reason = both.length
@@ -62,19 +62,21 @@ function guessRole(drawing: Drawing, role: LayerRole, taken: Set<string>): RoleC
 }
 
 /** Geometry signatures: heads are many references to one block; pipes are linework; walls and areas are outlines. */
-function looksLike(drawing: Drawing, role: LayerRole, layer: string): boolean {
+function looksLike(layer: LayerSummary, role: LayerRole): boolean {
   switch (role) {
-    case 'heads': {
-      const perBlock = new Map<string, number>();
-      for (const r of drawing.refs) if (r.layer === layer && !r.hasNestedRefs) perBlock.set(r.block, (perBlock.get(r.block) ?? 0) + 1);
-      return Math.max(0, ...perBlock.values()) >= 3;
-    }
+    case 'heads':
+      return Math.max(0, ...Object.values(layer.symbolRefs)) >= 3;
     case 'pipes':
-      return drawing.strokes.some((s) => s.layer === layer);
+      return layer.strokes > 0;
     case 'walls':
     case 'designArea':
-      return drawing.outlines.some((o) => o.layer === layer) || drawing.strokes.some((s) => s.layer === layer);
+      return layer.outlines > 0 || layer.strokes > 0;
     case 'source':
-      return drawing.refs.some((r) => r.layer === layer) || drawing.points.some((p) => p.layer === layer);
+      return layer.refs > 0 || layer.points > 0;
   }
+}
+
+/** Layers whose texts may be pipe-size labels: the pipe layers, and layers named for sizes, dimensions or notes. */
+export function isLabelLayer(layer: string, roles: LayerRoles): boolean {
+  return roles.pipes.layers.includes(layer) || /size|pipe|dim|text|anno/i.test(layer);
 }

@@ -1,12 +1,14 @@
 // Damaged files that once hung the reader (found by the fuzz test, kept as regression cases): a POLYLINE
 // whose vertex run is not closed by SEQEND, an unknown code among LWPOLYLINE vertices, a LAYER table not
-// closed by ENDTAB, and group codes that are not integers.
+// closed by ENDTAB, group codes that are not integers, and a section not closed by ENDSEC.
 
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { InputError } from './errors.js';
 import { parseDxfText } from './parse.js';
 import { readDrawing } from './read-drawing.js';
+import { scanDxf } from './scan.js';
+import { selectedText } from './select.js';
 
 const dxf = (...pairs: (string | number)[]) => {
   let s = '';
@@ -14,21 +16,24 @@ const dxf = (...pairs: (string | number)[]) => {
   return s;
 };
 
+/** The reader's path to dxf-parser, every layer wanted. */
+const parseAll = (text: string) => parseDxfText(selectedText(text, scanDxf(text), { layer: () => true, labels: () => true }));
+
 describe('damaged structure', () => {
   it('a POLYLINE followed by a LINE without SEQEND is read, not spun on', () => {
     const text = dxf(0, 'SECTION', 2, 'ENTITIES', 0, 'POLYLINE', 8, 'P', 66, 1, 70, 0, 0, 'VERTEX', 8, 'P', 10, 0, 20, 0, 0, 'VERTEX', 8, 'P', 10, 5, 20, 0,
       0, 'LINE', 8, 'P', 10, 0, 20, 1, 11, 5, 21, 1, 0, 'ENDSEC', 0, 'EOF');
-    const parsed = parseDxfText(text);
-    expect(parsed.dxf.entities.map((e) => e.type)).toEqual(['POLYLINE', 'LINE']);
-    expect((parsed.dxf.entities[0] as unknown as { vertices: unknown[] }).vertices).toHaveLength(2);
+    const parsed = parseAll(text);
+    expect(parsed.entities.map((e) => e.type)).toEqual(['POLYLINE', 'LINE']);
+    expect((parsed.entities[0] as unknown as { vertices: unknown[] }).vertices).toHaveLength(2);
   });
 
   it('an unknown code among LWPOLYLINE vertices is passed over, not read again forever', () => {
     const text = dxf(0, 'SECTION', 2, 'ENTITIES', 0, 'LWPOLYLINE', 5, '4A', 8, 'A-WALL', 90, 3, 70, 1, 10, 0, 20, 0, 10, 5, -5, '0.0', 20, 0,
       10, 5, 20, 4, 0, 'LINE', 8, 'P', 10, 0, 20, 1, 11, 5, 21, 1, 0, 'ENDSEC', 0, 'EOF');
-    const parsed = parseDxfText(text);
-    expect(parsed.dxf.entities.map((e) => e.type)).toEqual(['LWPOLYLINE', 'LINE']);
-    const poly = parsed.dxf.entities[0] as unknown as { vertices: { x: number; y: number }[]; shape: boolean; layer: string };
+    const parsed = parseAll(text);
+    expect(parsed.entities.map((e) => e.type)).toEqual(['LWPOLYLINE', 'LINE']);
+    const poly = parsed.entities[0] as unknown as { vertices: { x: number; y: number }[]; shape: boolean; layer: string };
     expect(poly.vertices).toEqual([{ x: 0, y: 0 }, { x: 5, y: 0 }, { x: 5, y: 4 }]);
     expect(poly.shape).toBe(true);
     expect(poly.layer).toBe('A-WALL');
@@ -50,15 +55,19 @@ describe('damaged structure', () => {
 
   it('types no stage reads are skipped but keep their layer for the layer counts', () => {
     const text = dxf(0, 'SECTION', 2, 'ENTITIES', 0, 'SPLINE', 8, 'A-DETAIL', 10, 0, 20, 0, 10, 1, -7, 'x', 0, 'DIMENSION', 8, 'A-DIMS', 0, 'ENDSEC', 0, 'EOF');
-    expect(parseDxfText(text).dxf.entities.map((e) => [e.type, e.layer])).toEqual([['SPLINE', 'A-DETAIL'], ['DIMENSION', 'A-DIMS']]);
+    expect(parseAll(text).entities.map((e) => [e.type, e.layer])).toEqual([['SPLINE', 'A-DETAIL'], ['DIMENSION', 'A-DIMS']]);
   });
 
   it('a LAYER table without ENDTAB still gives its layer names and the entities', () => {
     const text = dxf(0, 'SECTION', 2, 'TABLES', 0, 'TABLE', 2, 'LAYER', 70, 2, 0, 'LAYER', 2, 'FP-PIPE', 70, 0, 0, 'TABLE', 2, 'LTYPE', 0, 'ENDTAB', 0, 'ENDSEC',
       0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'FP-PIPE', 10, 0, 20, 0, 11, 1, 21, 0, 0, 'ENDSEC', 0, 'EOF');
-    const parsed = parseDxfText(text);
-    expect(parsed.layerNames).toEqual(['FP-PIPE']);
-    expect(parsed.dxf.entities).toHaveLength(1);
+    expect(scanDxf(text).layerNames).toEqual(['FP-PIPE']);
+    expect(parseAll(text).entities).toHaveLength(1);
+  });
+
+  it('a section not closed by ENDSEC is a one-line error naming it', () => {
+    const text = dxf(0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 2, 'B', 0, 'ENDBLK', 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'P', 0, 'ENDSEC', 0, 'EOF');
+    expect(() => scanDxf(text)).toThrow(/the BLOCKS section is not closed by ENDSEC/);
   });
 
   it.each([

@@ -5,7 +5,7 @@ import { compilePatterns } from '../config/patterns.js';
 import type { Settings } from '../config/settings.js';
 import type { Point } from '../geometry/point.js';
 import { KSI_PER_KUS, M_PER_FT } from '../quantities/convert.js';
-import { assignLayerRoles, type LayerRoles } from './layer-roles.js';
+import { isLabelLayer, type LayerRoles } from './layer-roles.js';
 import type { Drawing, Outline, Stroke, TextItem } from './types.js';
 
 /** What a head's attributes say about its kind; anything but standard spray has listed limits. */
@@ -57,7 +57,7 @@ function attributeNumber(attributes: Record<string, string>, tag: string): numbe
 }
 
 export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
-  const roles = assignLayerRoles(drawing, settings.layers);
+  const { roles } = drawing;
   const on = (role: keyof LayerRoles) => {
     const set = new Set(roles[role].layers);
     return (layer: string) => set.has(layer);
@@ -98,8 +98,6 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
   ];
   // Linework inside head and riser symbols is never pipe, even where they share the pipe layer.
   const symbolHandles = new Set([...heads.map((h) => h.handle), ...sources.map((s) => s.handle)]);
-  const pipeLayers = new Set(roles.pipes.layers);
-  const labelLayer = (layer: string) => pipeLayers.has(layer) || /size|pipe|dim|text|anno/i.test(layer);
   return {
     roles,
     heads,
@@ -108,6 +106,6 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
     rooms: drawing.outlines.filter((o) => onWalls(o.layer)),
     designAreas: drawing.outlines.filter((o) => onArea(o.layer)),
     sources,
-    labels: drawing.texts.filter((t) => labelLayer(t.layer)),
+    labels: drawing.texts.filter((t) => isLabelLayer(t.layer, roles)),
   };
 }

@@ -1,35 +1,41 @@
-// The read stage: drawing bytes to a Drawing (world geometry in feet, layers, units, encoding).
-// Pure: no file access, so it runs the same in the CLI, a worker and the browser.
+// The read stage: drawing bytes to a Drawing (every layer summarized, roles assigned, the content of the
+// role layers in world geometry, feet). Pure: no file access, so it runs the same in the CLI, a worker and the browser.
 
+import type { LayerRole } from '../config/settings.js';
 import { decodeDrawing } from './decode.js';
 import { fail } from './errors.js';
 import { DEFAULT_FLATTEN_LIMITS, flattenDxf, type FlattenLimits } from './flatten.js';
+import { assignLayerRoles, isLabelLayer } from './layer-roles.js';
+import { summarizeLayers } from './layer-summary.js';
 import { parseDxfText } from './parse.js';
-import { decodeUnicodeEscapes } from './text-codes.js';
-import type { Drawing, LayerSummary, LengthUnit } from './types.js';
+import { scanDxf } from './scan.js';
+import { selectedText } from './select.js';
+import type { Drawing, LengthUnit } from './types.js';
 import { FEET_PER_UNIT, unitFromInsunits } from './units.js';
 
 export interface ReadOptions {
   /** The drawing's length unit; overrides `$INSUNITS`. */
   units?: LengthUnit;
+  /** Layer patterns per role (the config's `layers`); roles without are guessed. */
+  layers?: Partial<Record<LayerRole, string[]>>;
   limits?: FlattenLimits;
 }
 
 export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawing {
+  const limits = options.limits ?? DEFAULT_FLATTEN_LIMITS;
   const decoded = decodeDrawing(bytes);
-  const { dxf, layerNames } = parseDxfText(decoded.text);
+  const scan = scanDxf(decoded.text);
+  const layers = summarizeLayers(scan, limits.maxDepth);
+  const roles = assignLayerRoles(layers, options.layers ?? {});
+  const roleLayers = new Set(Object.values(roles).flatMap((r) => r.layers));
+  const dxf = parseDxfText(selectedText(decoded.text, scan, { layer: (l) => roleLayers.has(l), labels: (l) => isLabelLayer(l, roles) }));
   const header = dxf.header ?? {};
   const fromHeader = unitFromInsunits(header['$INSUNITS']);
   const units = options.units ?? fromHeader;
   if (!units) {
     fail('the drawing does not state its length unit ($INSUNITS is missing or unitless); set "units" in the config (in, ft, mm, cm or m)');
   }
-  const flat = flattenDxf(dxf, FEET_PER_UNIT[units!], options.limits ?? DEFAULT_FLATTEN_LIMITS);
-  const tableLayers = layerNames.map(decodeUnicodeEscapes);
-  const names = new Set([...tableLayers, ...flat.counts.keys()]);
-  const layers: LayerSummary[] = [...names]
-    .sort((a, b) => a.localeCompare(b))
-    .map((name) => ({ name, counts: flat.counts.get(name) ?? {} }));
+  const flat = flattenDxf(dxf, FEET_PER_UNIT[units!], limits);
   const handseed = header['$HANDSEED'];
   return {
     version: decoded.version,
@@ -38,6 +44,7 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
     encoding: decoded.encoding,
     handseed: typeof handseed === 'string' ? handseed : handseed === undefined ? null : String(handseed),
     layers,
+    roles,
     refs: flat.refs,
     strokes: flat.strokes,
     outlines: flat.outlines,

@@ -2,6 +2,7 @@
 // Every item keeps the handle of the top-level entity a reviewer would select in CAD.
 
 import type { Point } from '../geometry/point.js';
+import type { LayerRoles } from './layer-roles.js';
 
 /** Length units a drawing may be in. */
 export type LengthUnit = 'in' | 'ft' | 'mm' | 'cm' | 'm';
@@ -65,9 +66,16 @@ export interface LayerSummary {
   name: string;
   /** Model-space entity counts by DXF type, block contents counted per reference. */
   counts: Record<string, number>;
+  /** References to each block that holds no further references (a symbol, such as a head), by block name. */
+  symbolRefs: Record<string, number>;
+  /** Block references, pieces of linework (lines, arcs, polylines), closed outlines and points. */
+  refs: number;
+  strokes: number;
+  outlines: number;
+  points: number;
 }
 
-/** Everything the later stages read, independent of which layer plays which role. */
+/** Everything the later stages read: every layer summarized, the content of the layers that play a role. */
 export interface Drawing {
   version: string;
   units: LengthUnit;
@@ -76,6 +84,8 @@ export interface Drawing {
   encoding: string;
   handseed: string | null;
   layers: LayerSummary[];
+  /** Which layers hold heads, pipes, walls, design areas and the source; only their content is read below. */
+  roles: LayerRoles;
   refs: BlockRef[];
   strokes: Stroke[];
   outlines: Outline[];

@@ -1,0 +1,121 @@
+// What each layer of a scanned drawing holds, counted through block references without expanding them: entity
+// counts by type, references to each symbol block, linework, outlines and points. Layer roles are guessed from it.
+
+import { fail } from './errors.js';
+import type { BlockEntry, EntityEntry, ScannedDxf } from './scan.js';
+import { decodeUnicodeEscapes } from './text-codes.js';
+import type { LayerSummary } from './types.js';
+
+export interface BlockLookup {
+  /** The block a reference names (exact name first, then case-insensitively), or null. */
+  find(name: string): BlockEntry | null;
+  /** Whether the block holds further block references. */
+  hasNestedRefs(block: BlockEntry): boolean;
+}
+
+export function blockLookup(scan: ScannedDxf): BlockLookup {
+  const exact = new Map<string, BlockEntry>();
+  const upper = new Map<string, BlockEntry>();
+  for (const b of scan.blocks) {
+    const name = decodeUnicodeEscapes(b.name);
+    exact.set(name, b);
+    if (!upper.has(name.toUpperCase())) upper.set(name.toUpperCase(), b);
+  }
+  return {
+    find: (name) => exact.get(name) ?? upper.get(name.toUpperCase()) ?? null,
+    hasNestedRefs: (block) => block.entities.some((e) => e.type === 'INSERT'),
+  };
+}
+
+/** Decodes layer and block names' \U+ escapes, each distinct name once (a drawing repeats a few names). */
+export function nameDecoder(): (raw: string) => string {
+  const known = new Map<string, string>();
+  return (raw) => {
+    let name = known.get(raw);
+    if (name === undefined) known.set(raw, (name = decodeUnicodeEscapes(raw)));
+    return name;
+  };
+}
+
+/** The layer an entity counts on: its own, or the reference's for an entity on layer 0 inside a block. */
+export const effectiveLayer = (own: string, inherited: string | null): string => (own === '0' && inherited !== null ? inherited : own);
+
+type Tally = Map<string, LayerSummary>;
+
+const emptySummary = (name: string): LayerSummary => ({ name, counts: {}, symbolRefs: {}, refs: 0, strokes: 0, outlines: 0, points: 0 });
+
+/** Adds `times` × `from` into `into`. */
+function addTally(into: Tally, from: Tally, times: number): void {
+  for (const [name, s] of from) {
+    let t = into.get(name);
+    if (!t) into.set(name, (t = emptySummary(name)));
+    for (const [k, v] of Object.entries(s.counts)) t.counts[k] = (t.counts[k] ?? 0) + v * times;
+    for (const [k, v] of Object.entries(s.symbolRefs)) t.symbolRefs[k] = (t.symbolRefs[k] ?? 0) + v * times;
+    t.refs += s.refs * times;
+    t.strokes += s.strokes * times;
+    t.outlines += s.outlines * times;
+    t.points += s.points * times;
+  }
+}
+
+/**
+ * Per-layer summaries of model space, every layer of the LAYER table included, sorted by name. A block's
+ * contents count once per placed copy (MINSERT arrays and nesting multiply). A block that contains itself, or
+ * nesting deeper than `maxDepth`, is an error.
+ */
+export function summarizeLayers(scan: ScannedDxf, maxDepth: number): LayerSummary[] {
+  const blocks = blockLookup(scan);
+  const named = nameDecoder();
+  const memo = new Map<string, { tally: Tally; height: number }>();
+  const open = new Set<BlockEntry>();
+  /** One placement of `block` whose reference sits on layer `inherited`: its tally and nesting height. */
+  const placement = (block: BlockEntry, inherited: string): { tally: Tally; height: number } => {
+    const key = `${block.name}\u0000${inherited}`;
+    const known = memo.get(key);
+    if (known) return known;
+    if (open.has(block)) fail(`block "${named(block.name)}" contains a reference to itself`);
+    open.add(block);
+    const result = walk(block.entities, inherited);
+    open.delete(block);
+    memo.set(key, result);
+    return result;
+  };
+  const walk = (entities: EntityEntry[], inherited: string | null): { tally: Tally; height: number } => {
+    const tally: Tally = new Map();
+    const on = (layer: string) => {
+      let t = tally.get(layer);
+      if (!t) tally.set(layer, (t = emptySummary(layer)));
+      return t;
+    };
+    let height = 0;
+    for (const e of entities) {
+      if ((inherited === null && e.paperSpace) || e.type === 'ATTDEF') continue;
+      const layer = effectiveLayer(named(e.layer), inherited);
+      const s = on(layer);
+      s.counts[e.type] = (s.counts[e.type] ?? 0) + 1;
+      if (e.type === 'LINE' || e.type === 'ARC' || e.type === 'LWPOLYLINE' || e.type === 'POLYLINE') s.strokes++;
+      if (e.closed || e.type === 'CIRCLE') s.outlines++;
+      if (e.type === 'POINT') s.points++;
+      if (e.type !== 'INSERT' || e.block === null) continue;
+      const block = blocks.find(named(e.block));
+      if (!block) continue;
+      s.refs += e.copies;
+      if (!blocks.hasNestedRefs(block)) {
+        const name = named(block.name);
+        s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + e.copies;
+      }
+      const inner = placement(block, layer);
+      addTally(tally, inner.tally, e.copies);
+      height = Math.max(height, inner.height + 1);
+    }
+    return { tally, height };
+  };
+  const top = walk(scan.entities, null);
+  if (top.height > maxDepth) fail(`block nesting deeper than ${maxDepth} levels`);
+  const layers = top.tally;
+  for (const raw of scan.layerNames) {
+    const name = named(raw);
+    if (!layers.has(name)) layers.set(name, emptySummary(name));
+  }
+  return [...layers.values()].sort((a, b) => a.name.localeCompare(b.name));
+}

@@ -1,0 +1,177 @@
+// Walks a DXF file's group structure once, reading only the values it needs: the sections, the layer table,
+// and each block and entity with its type, layer and text range, so that only what matters is parsed.
+
+import { fail, InputError } from './errors.js';
+
+/** One entity with the ATTRIB, VERTEX and SEQEND records that belong to it. */
+export interface EntityEntry {
+  type: string;
+  /** Layer name as written (\U+ escapes not yet decoded); "0" when none is given. */
+  layer: string;
+  /** Text range of the entity and its trailing records. */
+  start: number;
+  end: number;
+  /** INSERT: the block name, and how many copies a MINSERT array places (columns × rows). */
+  block: string | null;
+  copies: number;
+  /** Closed LWPOLYLINE or POLYLINE. */
+  closed: boolean;
+  paperSpace: boolean;
+}
+
+export interface BlockEntry {
+  name: string;
+  /** Text range from its BLOCK record to the end of its ENDBLK record. */
+  start: number;
+  end: number;
+  entities: EntityEntry[];
+}
+
+export interface Section {
+  name: string;
+  /** Text range from "0 SECTION" to the end of "0 ENDSEC". */
+  start: number;
+  end: number;
+}
+
+export interface ScannedDxf {
+  sections: Section[];
+  /** Layer names of the LAYER table. */
+  layerNames: string[];
+  blocks: BlockEntry[];
+  entities: EntityEntry[];
+}
+
+/** Records that continue the entity before them rather than start one. */
+const TRAILING = new Set(['ATTRIB', 'VERTEX', 'SEQEND']);
+
+/**
+ * Scans `text`. A group code line must hold an integer and nothing else ("1e308" or "10.5" is damage, not code
+ * 1 or 10): anything else is a one-line error naming the line.
+ */
+export function scanDxf(text: string): ScannedDxf {
+  const n = text.length;
+  let at = 0;
+  // The current group: code, and the value's range (without line break and surrounding blanks).
+  let code = 0;
+  let groupStart = 0;
+  let valueStart = 0;
+  let valueEnd = 0;
+  const lineEnd = (from: number) => { const e = text.indexOf('\n', from); return e < 0 ? n : e; };
+  /** Reads the next group; false at the end of the text. */
+  const next = (): boolean => {
+    if (at >= n) return false;
+    groupStart = at;
+    const ce = lineEnd(at);
+    code = parseCode(text, at, ce);
+    if (Number.isNaN(code)) {
+      if (ce >= n && text.slice(at, ce).trim() === '') return false;
+      const line = text.slice(0, at).split('\n').length;
+      throw new InputError(`line ${line}: "${text.slice(at, ce).trim().slice(0, 20)}" is not a group code (the file is damaged)`);
+    }
+    const vs = Math.min(ce + 1, n);
+    const ve = lineEnd(vs);
+    at = Math.min(ve + 1, n);
+    valueStart = vs;
+    valueEnd = ve;
+    while (valueStart < valueEnd && isBlank(text.charCodeAt(valueStart))) valueStart++;
+    while (valueEnd > valueStart && isBlank(text.charCodeAt(valueEnd - 1))) valueEnd--;
+    return true;
+  };
+  const value = () => text.slice(valueStart, valueEnd);
+  /** The current code (a call, so that TypeScript does not narrow it across `next`). */
+  const codeIs = (c: number) => code === c;
+  const valueIs = (word: string) => valueEnd - valueStart === word.length && text.startsWith(word, valueStart);
+
+  const out: ScannedDxf = { sections: [], layerNames: [], blocks: [], entities: [] };
+  let more = next();
+  /** Reads one entity whose "0 TYPE" group is current, with its trailing records; leaves the next code 0 current. */
+  const readEntity = (): EntityEntry => {
+    const e: EntityEntry = { type: value(), layer: '0', start: groupStart, end: 0, block: null, copies: 1, closed: false, paperSpace: false };
+    const isInsert = e.type === 'INSERT';
+    const isPolyline = e.type === 'LWPOLYLINE' || e.type === 'POLYLINE';
+    let columns = 1;
+    let rows = 1;
+    while ((more = next()) && code !== 0) {
+      if (code === 8) e.layer = value();
+      else if (code === 67) e.paperSpace = value() === '1';
+      else if (isInsert && code === 2) e.block = value();
+      else if (isInsert && code === 70) columns = Math.max(1, Math.floor(Number(value())) || 1);
+      else if (isInsert && code === 71) rows = Math.max(1, Math.floor(Number(value())) || 1);
+      else if (isPolyline && code === 70) e.closed = (Number(value()) & 1) === 1;
+    }
+    // Trailing records up to the next entity or the end of the section or block.
+    while (more && code === 0 && TRAILING.has(value())) {
+      while ((more = next()) && code !== 0);
+    }
+    e.copies = columns * rows;
+    e.end = more ? groupStart : n;
+    return e;
+  };
+  /** Inside section `name`: true until its ENDSEC; another section or the file's end before it is damage. */
+  const within = (name: string) => {
+    if (!more) fail(`the ${name} section is not closed by ENDSEC (the file is truncated or damaged)`);
+    if (code !== 0) return true;
+    if (valueIs('ENDSEC')) return false;
+    if (valueIs('SECTION') || valueIs('EOF')) fail(`the ${name || 'unnamed'} section is not closed by ENDSEC (the file is damaged)`);
+    return true;
+  };
+
+  while (more) {
+    if (!(code === 0 && valueIs('SECTION'))) { more = next(); continue; }
+    const start = groupStart;
+    more = next();
+    const name = codeIs(2) ? value().toUpperCase() : '';
+    if (codeIs(2)) more = next();
+    if (name === 'ENTITIES' || name === 'BLOCKS') {
+      while (within(name)) {
+        if (code !== 0) { more = next(); continue; }
+        if (name === 'BLOCKS' && valueIs('BLOCK')) {
+          const block: BlockEntry = { name: '', start: groupStart, end: 0, entities: [] };
+          while ((more = next()) && code !== 0) if (code === 2 || (code === 3 && !block.name)) block.name = value();
+          while (more && code === 0 && !valueIs('ENDBLK') && !valueIs('ENDSEC') && !valueIs('SECTION') && !valueIs('EOF')) block.entities.push(readEntity());
+          if (more && valueIs('ENDBLK')) while ((more = next()) && code !== 0);
+          block.end = more ? groupStart : n;
+          out.blocks.push(block);
+        } else if (name === 'ENTITIES') {
+          out.entities.push(readEntity());
+        } else {
+          more = next();
+        }
+      }
+    } else if (name === 'TABLES') {
+      while (within(name)) {
+        const isLayer = code === 0 && valueIs('LAYER');
+        more = next();
+        if (!isLayer) continue;
+        while (more && !codeIs(0) && !codeIs(2)) more = next();
+        if (more && codeIs(2)) out.layerNames.push(value());
+      }
+    } else {
+      while (within(name)) more = next();
+    }
+    more = next();
+    out.sections.push({ name, start, end: more ? groupStart : n });
+  }
+  return out;
+}
+
+const isBlank = (c: number) => c === 32 || c === 9 || c === 13;
+
+/** The integer on a group code line (blanks around it allowed), or NaN. */
+function parseCode(text: string, start: number, end: number): number {
+  let i = start;
+  let e = end;
+  while (i < e && isBlank(text.charCodeAt(i))) i++;
+  while (e > i && isBlank(text.charCodeAt(e - 1))) e--;
+  let sign = 1;
+  if (i < e && (text.charCodeAt(i) === 45 || text.charCodeAt(i) === 43)) { sign = text.charCodeAt(i) === 45 ? -1 : 1; i++; }
+  if (i === e || e - i > 6) return Number.NaN;
+  let v = 0;
+  for (; i < e; i++) {
+    const d = text.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return Number.NaN;
+    v = v * 10 + d;
+  }
+  return sign * v;
+}

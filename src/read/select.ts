@@ -1,0 +1,66 @@
+// Cuts a scanned drawing down to what the later stages read: entities on layers that play a role, texts on
+// label layers, references whose blocks reach either, and the blocks they use. Only this text is parsed, so
+// a plan's architectural background costs a scan, not a parse.
+
+import { blockLookup, effectiveLayer, nameDecoder } from './layer-summary.js';
+import type { BlockEntry, EntityEntry, ScannedDxf } from './scan.js';
+
+export interface Wanted {
+  /** Layers whose every entity is read. */
+  layer(name: string): boolean;
+  /** Layers whose texts are read (size labels). */
+  labels(name: string): boolean;
+}
+
+const isText = (type: string) => type === 'TEXT' || type === 'MTEXT';
+
+/** DXF text holding the header, the blocks in use and the wanted model-space entities, in their original order. */
+export function selectedText(text: string, scan: ScannedDxf, wanted: Wanted): string {
+  const blocks = blockLookup(scan);
+  const named = nameDecoder();
+  const reachMemo = new Map<string, boolean>();
+  const open = new Set<BlockEntry>();
+  const blockOf = (e: EntityEntry) => (e.type === 'INSERT' && e.block !== null ? blocks.find(named(e.block)) : null);
+  const wants = (e: EntityEntry, inherited: string | null): boolean => {
+    const layer = effectiveLayer(named(e.layer), inherited);
+    if (wanted.layer(layer) || (isText(e.type) && wanted.labels(layer))) return true;
+    const block = blockOf(e);
+    return block !== null && reaches(block, layer);
+  };
+  /** Whether a placement of `block` on layer `inherited` holds anything wanted. */
+  const reaches = (block: BlockEntry, inherited: string): boolean => {
+    const key = `${block.name}\u0000${inherited}`;
+    const known = reachMemo.get(key);
+    if (known !== undefined) return known;
+    if (open.has(block)) return false; // a cycle, reported by the layer summary
+    open.add(block);
+    const result = block.entities.some((e) => wants(e, inherited));
+    open.delete(block);
+    reachMemo.set(key, result);
+    return result;
+  };
+  const entities = scan.entities.filter((e) => !e.paperSpace && wants(e, null));
+  // Whole definitions of the blocks the chosen references use, nested ones included.
+  const used = new Set<BlockEntry>();
+  const stack = entities.map(blockOf).filter((b): b is BlockEntry => b !== null);
+  while (stack.length) {
+    const b = stack.pop()!;
+    if (used.has(b)) continue;
+    used.add(b);
+    for (const e of b.entities) { const inner = blockOf(e); if (inner) stack.push(inner); }
+  }
+  const header = scan.sections.find((s) => s.name === 'HEADER');
+  const parts: string[] = [];
+  /** A range of the original text, ending with a line break. */
+  const piece = (start: number, end: number) => {
+    const t = text.slice(start, end);
+    parts.push(t.endsWith('\n') ? t : `${t}\n`);
+  };
+  if (header) piece(header.start, header.end);
+  parts.push('  0\nSECTION\n  2\nBLOCKS\n');
+  for (const b of scan.blocks) if (used.has(b)) piece(b.start, b.end);
+  parts.push('  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n');
+  for (const e of entities) piece(e.start, e.end);
+  parts.push('  0\nENDSEC\n  0\nEOF\n');
+  return parts.join('');
+}
