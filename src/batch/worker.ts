@@ -44,7 +44,7 @@ export default function checkOne(task: BatchTask): BatchRow {
   };
   try {
     const settings = task.config ? parseSettingsText(readFileSync(task.config, 'utf8'), task.config) : structuredClone(DEFAULT_SETTINGS);
-    const bytes = readInputFile(task.file);
+    const bytes = readInputFile(task.file, settings.inputLimits.fileMB);
     const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units };
     const result = runCheck(input);
     const files: { path: string; data: string | Uint8Array }[] = [];

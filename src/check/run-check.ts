@@ -50,7 +50,7 @@ export function runCheck(input: CheckInput): CheckResult {
     last = now;
     return value;
   };
-  const drawing = stage('read', readDrawing(input.bytes, { layers: settings.layers, ...(settings.units ? { units: settings.units } : {}) }));
+  const drawing = stage('read', readDrawing(input.bytes, { layers: settings.layers, limits: settings.inputLimits, ...(settings.units ? { units: settings.units } : {}) }));
   const plan = stage('plan', planFromDrawing(drawing, settings));
   if (plan.heads.length === 0) {
     const layers = plan.roles.heads.layers.length ? plan.roles.heads.layers.join(', ') : 'none chosen';

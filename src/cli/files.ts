@@ -6,10 +6,8 @@ import { readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:
 import { basename, dirname, join, resolve } from 'node:path';
 import { InputError } from '../read/errors.js';
 
-/** Largest drawing read, bytes (a config key may raise it later; 512 MiB is far above real plan files). */
-export const MAX_INPUT_BYTES = 512 * 1024 * 1024;
-
-export function readInputFile(path: string): Uint8Array {
+/** Reads a drawing of at most `maxMB` MiB (the config's inputLimits.fileMB), checked before it is read. */
+export function readInputFile(path: string, maxMB: number): Uint8Array {
   let size: number;
   try {
     const st = statSync(path);
@@ -19,7 +17,7 @@ export function readInputFile(path: string): Uint8Array {
     if (err instanceof InputError) throw err;
     throw new InputError(`${path}: cannot be read (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
   }
-  if (size > MAX_INPUT_BYTES) throw new InputError(`${path}: larger than ${MAX_INPUT_BYTES / 1024 / 1024} MiB`);
+  if (size > maxMB * 1024 * 1024) throw new InputError(`${path}: larger than ${maxMB} MiB (inputLimits.fileMB)`);
   try {
     return new Uint8Array(readFileSync(path));
   } catch (err) {

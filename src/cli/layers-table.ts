@@ -6,7 +6,7 @@ import { planFromDrawing } from '../read/plan.js';
 import { readDrawing } from '../read/read-drawing.js';
 
 export function describeLayers(bytes: Uint8Array, settings: Settings): string {
-  const drawing = readDrawing(bytes, { layers: settings.layers, ...(settings.units ? { units: settings.units } : {}) });
+  const drawing = readDrawing(bytes, { layers: settings.layers, limits: settings.inputLimits, ...(settings.units ? { units: settings.units } : {}) });
   const { roles } = planFromDrawing(drawing, settings);
   const roleOf = new Map<string, string>();
   for (const role of LAYER_ROLES) for (const l of roles[role].layers) roleOf.set(l, role);

@@ -48,7 +48,7 @@ function loadSettings(path: string | undefined): Settings {
 function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void): number {
   for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
   const settings = loadSettings(opts.config);
-  const bytes = readInputFile(file);
+  const bytes = readInputFile(file, settings.inputLimits.fileMB);
   const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units };
   const result = withFile(file, () => runCheck(input));
   const files: { path: string; data: string | Uint8Array }[] = [];
@@ -127,7 +127,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .option('--config <file>', 'config JSON')
     .action((drawing: string, opts: { config?: string }) => {
       const settings = loadSettings(opts.config);
-      const bytes = readInputFile(drawing);
+      const bytes = readInputFile(drawing, settings.inputLimits.fileMB);
       io.out(withFile(drawing, () => describeLayers(bytes, settings)));
     });
 

@@ -15,6 +15,29 @@ export type SystemType = 'wet' | 'dry' | 'preaction';
 export type AreaMode = 'drawn' | 'search' | 'both';
 export type Schedule = '10' | '40';
 
+/**
+ * How much of a drawing is accepted (common practice, no source: each far above a real plan file), so that a
+ * hostile or broken file ends in a clear error rather than exhausting memory or time. Each can be raised.
+ */
+export interface InputLimits {
+  /** File size, MiB. */
+  fileMB: number;
+  /** Entities in the file, blocks included. */
+  entities: number;
+  /** Block nesting depth. */
+  blockDepth: number;
+  /** Block references once expanded (nesting and arrays multiply), on the layers that are read. */
+  blockReferences: number;
+  /** Characters in one value (a text, a name). */
+  textLength: number;
+  /** Nodes of the rebuilt piping network. */
+  networkNodes: number;
+}
+
+export const DEFAULT_INPUT_LIMITS: InputLimits = {
+  fileMB: 512, entities: 5_000_000, blockDepth: 32, blockReferences: 2_000_000, textLength: 65_536, networkNodes: 1_000_000,
+};
+
 export interface Settings {
   /** The drawing's length unit, when the config states it. */
   units?: LengthUnit;
@@ -49,6 +72,7 @@ export interface Settings {
   limits: Record<string, number>;
   /** Geometry tolerances, feet. */
   tolerances: { snap: number; headAttach: number; sizeLabel: number };
+  inputLimits: InputLimits;
 }
 
 /** The drawing-independent defaults (CONTRACT example values; common practice). */
@@ -64,6 +88,7 @@ export const DEFAULT_SETTINGS: Settings = {
   limits: {},
   // Snap 1 in, a head up to 6 in off its pipe, a size label up to 3 ft from its pipe (common practice, no source).
   tolerances: { snap: 1 / 12, headAttach: 0.5, sizeLabel: 3 },
+  inputLimits: DEFAULT_INPUT_LIMITS,
 };
 
 type Json = Record<string, unknown>;
@@ -116,7 +141,7 @@ class Reader {
   }
 }
 
-const KNOWN_TOP = ['units', 'unitSystem', 'layers', 'headBlocks', 'defaults', 'design', 'supply', 'limits', 'tolerances', '$schema', 'comment'];
+const KNOWN_TOP = ['units', 'unitSystem', 'layers', 'headBlocks', 'defaults', 'design', 'supply', 'limits', 'tolerances', 'inputLimits', '$schema', 'comment'];
 
 /** Validates a parsed config object; `where` names it in messages (the file name). */
 export function parseSettings(raw: unknown, where = 'config'): Settings {
@@ -195,6 +220,14 @@ export function parseSettings(raw: unknown, where = 'config'): Settings {
     s.tolerances.snap = len(r.number(tol, 'tolerances.snap', { positive: true })) ?? s.tolerances.snap;
     s.tolerances.headAttach = len(r.number(tol, 'tolerances.headAttach', { positive: true })) ?? s.tolerances.headAttach;
     s.tolerances.sizeLabel = len(r.number(tol, 'tolerances.sizeLabel', { positive: true })) ?? s.tolerances.sizeLabel;
+  }
+
+  const il = r.object(root, 'inputLimits');
+  if (il) {
+    for (const key of Object.keys(il)) {
+      if (!(key in DEFAULT_INPUT_LIMITS)) fail(`${where}: unknown key "inputLimits.${key}"`);
+      s.inputLimits[key as keyof InputLimits] = r.number(il, `inputLimits.${key}`, { positive: true })!;
+    }
   }
   return s;
 }

@@ -73,7 +73,9 @@ export function selectHeads(
   let covered = 0;
   for (let j = start; j >= 0 && j < fam.lines.length; j += dir) {
     const line = fam.lines[j]!;
-    const inWindow = line.heads.filter((h) => h.t >= lo - 1e-9 && h.t < hi - 1e-9);
+    // The line's heads are in order along it: the window is the run from the first at lo to the last before hi.
+    const from = firstAtOrAfter(line.heads, lo - 1e-9);
+    const inWindow = line.heads.slice(from, firstAtOrAfter(line.heads, hi - 1e-9));
     if (!inWindow.length) continue;
     const feedT = line.feedT ?? Math.min(...line.heads.map((h) => h.t));
     inWindow.sort((a, b) => Math.abs(a.t - feedT) - Math.abs(b.t - feedT));
@@ -86,6 +88,17 @@ export function selectHeads(
     if (headIds.length >= count && covered >= area - 1e-6) break;
   }
   return { headIds, lineIds };
+}
+
+/** Index of the first head at or after position t along the line (heads sorted by t). */
+function firstAtOrAfter(heads: { t: number }[], t: number): number {
+  let lo = 0;
+  let hi = heads.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (heads[mid]!.t < t) lo = mid + 1; else hi = mid;
+  }
+  return lo;
 }
 
 /** Every distinct candidate area of a family. */

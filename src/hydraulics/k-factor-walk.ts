@@ -71,11 +71,13 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
   let epoch = 0;
   /** a^x for a > 0 (exp and log: twice as fast as the power operator in V8). */
   const pow = (a: number, x: number) => Math.exp(x * Math.log(a));
-  /** Joins an input (p, q) into a running (P, Q): the higher pressure wins, the other side's flow is raised to it. */
-  const combine = (P0: number, Q0: number, p: number, q: number): [number, number] => {
-    if (Q0 === 0) return [p, q];
-    if (p <= P0) return [P0, Q0 + q * pow(P0 / p, raiseExponent)];
-    return [p, Q0 * pow(p / P0, raiseExponent) + q];
+  /** The running (pressure, flow) of a join; `join` adds an input (p, q) to it: the higher pressure wins, the other
+   * side's flow is raised to it. */
+  let jp = 0;
+  let jq = 0;
+  const join = (p: number, q: number) => {
+    if (jq === 0) { jp = p; jq = q; } else if (p <= jp) jq += q * pow(jp / p, raiseExponent);
+    else { jq = jq * pow(p / jp, raiseExponent) + q; jp = p; }
   };
   return {
     bound(headIds) {
@@ -112,7 +114,10 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
       }
       for (const e of heads) {
         const anchor = sk.anchorOf[e.node]!;
-        if (anchor >= 0) [P[anchor], Q[anchor]] = combine(P[anchor]!, Q[anchor]!, e.required, e.k * Math.sqrt(e.required));
+        if (anchor < 0) continue;
+        jp = P[anchor]!; jq = Q[anchor]!;
+        join(e.required, e.k * Math.sqrt(e.required));
+        P[anchor] = jp; Q[anchor] = jq;
       }
       touched.sort((x, y) => rank[y]! - rank[x]!);
       for (const v of touched) {
@@ -124,20 +129,23 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
         const fromA = chain.a === v;
         const end = chain.nodes.length + 1;
         let pos = fromA ? 0 : end;
-        let p = P[v]!;
-        let q = Q[v]!;
+        jp = P[v]!;
+        jq = Q[v]!;
         const rOf = (x: number, y: number) => Math.abs(chain.cumR[y]! - chain.cumR[x]!);
         if (chainStamp[c] === epoch) {
           const list = chainHeads[c]!.sort((x, y) => (fromA ? x.index - y.index : y.index - x.index));
           for (const { index, e } of list) {
-            if (q > 0) p += rOf(pos, index + 1) * pow(q, HW_EXPONENT);
-            [p, q] = combine(p, q, e.required, e.k * Math.sqrt(e.required));
+            if (jq > 0) jp += rOf(pos, index + 1) * pow(jq, HW_EXPONENT);
+            join(e.required, e.k * Math.sqrt(e.required));
             pos = index + 1;
           }
         }
-        if (q === 0) continue;
-        p += rOf(pos, fromA ? end : 0) * pow(q, HW_EXPONENT) + PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
-        [P[u], Q[u]] = combine(P[u]!, Q[u]!, p, q);
+        if (jq === 0) continue;
+        const p = jp + rOf(pos, fromA ? end : 0) * pow(jq, HW_EXPONENT) + PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
+        const q = jq;
+        jp = P[u]!; jq = Q[u]!;
+        join(p, q);
+        P[u] = jp; Q[u] = jq;
       }
       return null;
     },

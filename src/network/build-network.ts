@@ -28,6 +28,8 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
     ...plan.sources.map((s) => ({ at: s.position, reach: Math.max(SOURCE_REACH_FT, tol.headAttach) })),
   ];
   const g = snapStrokes(plan.pipes, attachPoints, tol.snap);
+  const maxNodes = settings.inputLimits.networkNodes;
+  if (g.nodes.length > maxNodes) fail(`the piping has ${g.nodes.length} nodes, over the limit of ${maxNodes} (inputLimits.networkNodes)`);
   const headAt = new Map<number, string>();
   plan.heads.forEach((h, i) => { const n = g.attached[i]!; if (n >= 0 && !headAt.has(n)) headAt.set(n, h.id); });
   const sourceRaw = plan.sources.map((_, i) => g.attached[plan.heads.length + i]!).find((n) => n >= 0) ?? -1;

@@ -1,6 +1,8 @@
 // Turns drawn pipe strokes into graph edges: splits straight strokes where another stroke ends or a head
 // sits on their interior (T-junctions), then merges endpoints closer than the snap tolerance into nodes.
 // Strokes that cross without a shared vertex stay apart: pipes drawn over each other are common.
+// A stroke drawn twice over one course is kept once (a drafting slip, not two pipes in parallel); zero-length
+// pieces are dropped.
 
 import RBush from 'rbush';
 import { closestOnSegment, distance, type Point } from '../geometry/point.js';
@@ -45,7 +47,8 @@ function boxOf(points: Point[], pad: number, i: number): Box {
  */
 export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach: number }[], snap: number): SnappedGraph {
   const index = new RBush<Box>();
-  index.load(strokes.map((s, i) => boxOf(strokePoints(s), 0, i)));
+  const twin = twinStrokes(strokes, snap);
+  index.load(strokes.flatMap((s, i) => (twin[i] ? [] : [boxOf(strokePoints(s), 0, i)])));
   const cuts: number[][] = strokes.map(() => []);
   const attachTarget: (Point | null)[] = [];
 
@@ -69,13 +72,14 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
   };
 
   strokes.forEach((s, i) => {
-    for (const end of [s.a, s.b]) landOn(end, snap, i);
+    if (!twin[i]) for (const end of [s.a, s.b]) landOn(end, snap, i);
   });
   for (const ap of attachPoints) attachTarget.push(landOn(ap.at, ap.reach, -1));
 
   // Cut strokes into edges.
   const pieces: { stroke: number; points: Point[] }[] = [];
   strokes.forEach((s, i) => {
+    if (twin[i]) return;
     const pts = strokePoints(s);
     const ts = [...new Set(cuts[i])].sort((x, y) => x - y);
     if (pts.length > 2 || ts.length === 0) {
@@ -114,10 +118,24 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
     const b = nodeAt(piece.points[piece.points.length - 1]!);
     if (a !== b) edges.push({ stroke: piece.stroke, points: piece.points, a, b });
   }
-  const attached = attachTarget.map((p) => {
-    if (!p) return -1;
-    const n = nodeAt(p);
-    return edges.some((e) => e.a === n || e.b === n) ? n : -1;
+  const attached = attachTarget.map((p) => (p ? nodeAt(p) : -1));
+  const onEdge = new Set(edges.flatMap((e) => [e.a, e.b]));
+  return { nodes, edges, attached: attached.map((n) => (onEdge.has(n) ? n : -1)) };
+}
+
+/** For each stroke, whether an earlier one follows the same points (either way round) within `tol`. */
+function twinStrokes(strokes: Stroke[], tol: number): boolean[] {
+  const byStart = new RBush<Box>();
+  return strokes.map((s, i) => {
+    const pts = strokePoints(s);
+    const near = (p: Point) => byStart.search({ minX: p.x - tol, minY: p.y - tol, maxX: p.x + tol, maxY: p.y + tol });
+    const same = [...near(s.a), ...near(s.b)].some((box) => {
+      const other = strokePoints(strokes[box.i]!);
+      if (other.length !== pts.length) return false;
+      const along = distance(other[0]!, pts[0]!) <= tol ? other : [...other].reverse();
+      return along.every((p, k) => distance(p, pts[k]!) <= tol);
+    });
+    if (!same) byStart.insert({ minX: s.a.x, minY: s.a.y, maxX: s.a.x, maxY: s.a.y, i });
+    return same;
   });
-  return { nodes, edges, attached };
 }

@@ -2,6 +2,7 @@
 // the limit are clear errors, not hangs; entities on layer 0 inside a block take the reference's layer.
 
 import { describe, expect, it } from 'vitest';
+import { DEFAULT_INPUT_LIMITS } from '../config/settings.js';
 import { DxfWriter } from '../demo/dxf-writer.js';
 import { InputError } from './errors.js';
 import { readDrawing } from './read-drawing.js';
@@ -20,8 +21,8 @@ describe('block expansion', () => {
     const w = new DxfWriter(2);
     for (let i = 0; i < 5; i++) w.block(`B${i}`, { x: 0, y: 0 }, (b) => { if (i < 4) w.insert('0', `B${i + 1}`, { x: 1, y: 0 }, { into: b }); });
     w.insert('X', 'B0', { x: 0, y: 0 });
-    expect(() => readDrawing(bytes(w.toString()), { limits: { maxDepth: 3, maxRefs: 100 } })).toThrow(/nesting deeper than 3/);
-    expect(readDrawing(bytes(w.toString()), { layers: { heads: ['X'] }, limits: { maxDepth: 8, maxRefs: 100 } }).refs).toHaveLength(5);
+    expect(() => readDrawing(bytes(w.toString()), { limits: { ...DEFAULT_INPUT_LIMITS, blockDepth: 3, blockReferences: 100 } })).toThrow(/nesting deeper than 3/);
+    expect(readDrawing(bytes(w.toString()), { layers: { heads: ['X'] }, limits: { ...DEFAULT_INPUT_LIMITS, blockDepth: 8, blockReferences: 100 } }).refs).toHaveLength(5);
   });
 
   it('stops an expansion past the reference limit (nested arrays must not explode memory)', () => {
@@ -29,7 +30,7 @@ describe('block expansion', () => {
     w.block('LEAF', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 1, b); });
     w.block('TEN', { x: 0, y: 0 }, (b) => { for (let i = 0; i < 10; i++) w.insert('0', 'LEAF', { x: i, y: 0 }, { into: b }); });
     for (let i = 0; i < 10; i++) w.insert('X', 'TEN', { x: 0, y: i });
-    expect(() => readDrawing(bytes(w.toString()), { layers: { heads: ['X'] }, limits: { maxDepth: 8, maxRefs: 50 } })).toThrow(InputError);
+    expect(() => readDrawing(bytes(w.toString()), { layers: { heads: ['X'] }, limits: { ...DEFAULT_INPUT_LIMITS, blockDepth: 8, blockReferences: 50 } })).toThrow(InputError);
   });
 
   it('gives layer-0 entities inside a block the reference layer, and keeps the top-level handle', () => {

@@ -2,6 +2,7 @@
 // (base point, scale including mirroring, rotation, MINSERT arrays, nesting), attributes attached.
 
 import type { IBlock, IDxf, IEntity } from 'dxf-parser';
+import type { InputLimits } from '../config/settings.js';
 import { apply, compose, determinant, insertPlacement, meanScale, rotationOf, scaling, type Affine } from '../geometry/affine.js';
 import { distance, type Point } from '../geometry/point.js';
 import { ccwSweep, sampleArc, sampleBulge } from './arcs.js';
@@ -9,15 +10,6 @@ import { fail } from './errors.js';
 import type { AttribEntity } from './entity-handlers.js';
 import { decodeUnicodeEscapes, plainMText, plainText } from './text-codes.js';
 import type { BlockRef, Outline, PointItem, Stroke, TextItem } from './types.js';
-
-export interface FlattenLimits {
-  /** Deepest block nesting accepted. */
-  maxDepth: number;
-  /** Most block references (after expansion) accepted. */
-  maxRefs: number;
-}
-
-export const DEFAULT_FLATTEN_LIMITS: FlattenLimits = { maxDepth: 32, maxRefs: 2_000_000 };
 
 export interface Flattened {
   refs: BlockRef[];
@@ -38,7 +30,7 @@ type Raw = IEntity & Record<string, any>;
 
 const CIRCLE_STEPS = 32;
 
-export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: FlattenLimits = DEFAULT_FLATTEN_LIMITS): Flattened {
+export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLimits, 'blockDepth' | 'blockReferences'>): Flattened {
   const out: Flattened = { refs: [], strokes: [], outlines: [], texts: [], points: [] };
   const blocks: Record<string, IBlock> = dxf.blocks ?? {};
   const blockByUpper = new Map(Object.entries(blocks).map(([k, v]) => [k.toUpperCase(), v] as const));
@@ -67,7 +59,7 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: FlattenLimits
     const block = blocks[name] ?? blockByUpper.get(name.toUpperCase());
     if (!block) return;
     if (ctx.parents.includes(name)) fail(`block "${name}" contains a reference to itself`);
-    if (ctx.parents.length + 1 > limits.maxDepth) fail(`block nesting deeper than ${limits.maxDepth} levels at "${name}"`);
+    if (ctx.parents.length + 1 > limits.blockDepth) fail(`block nesting deeper than ${limits.blockDepth} levels at "${name}" (inputLimits.blockDepth)`);
     const attributes: Record<string, string> = {};
     for (const def of (block.entities ?? []) as Raw[]) {
       if (def.type === 'ATTDEF' && def.tag) attributes[String(def.tag).toUpperCase()] = plainText(String(def.text ?? ''));
@@ -75,7 +67,7 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: FlattenLimits
     for (const a of attribs) if (a.tag) attributes[a.tag.toUpperCase()] = plainText(a.value);
     const cols = Math.max(1, Math.floor(num(e.columnCount, 1)));
     const rows = Math.max(1, Math.floor(num(e.rowCount, 1)));
-    if (refCount + cols * rows > limits.maxRefs) fail(`more than ${limits.maxRefs} block references after expansion`);
+    if (refCount + cols * rows > limits.blockReferences) fail(`more than ${limits.blockReferences} block references after expansion (inputLimits.blockReferences)`);
     const base = pt(block.position);
     const mirror = num(e.extrusionDirection?.z, 1) < 0;
     const inner = (block.entities ?? []) as Raw[];

@@ -111,7 +111,7 @@ export function summarizeLayers(scan: ScannedDxf, maxDepth: number): LayerSummar
     return { tally, height };
   };
   const top = walk(scan.entities, null);
-  if (top.height > maxDepth) fail(`block nesting deeper than ${maxDepth} levels`);
+  if (top.height > maxDepth) fail(`block nesting deeper than ${maxDepth} levels (inputLimits.blockDepth)`);
   const layers = top.tally;
   for (const raw of scan.layerNames) {
     const name = named(raw);

@@ -3,10 +3,10 @@
 
 import { compilePatterns } from '../config/patterns.js';
 import type { Settings } from '../config/settings.js';
-import type { Point } from '../geometry/point.js';
+import { distance, type Point } from '../geometry/point.js';
 import { KSI_PER_KUS, M_PER_FT } from '../quantities/convert.js';
 import { isLabelLayer, type LayerRoles } from './layer-roles.js';
-import type { Drawing, Outline, Stroke, TextItem } from './types.js';
+import type { BlockRef, Drawing, Outline, Stroke, TextItem } from './types.js';
 
 /** What a head's attributes say about its kind; anything but standard spray has listed limits. */
 export type HeadKind = 'standard' | 'sidewall' | 'extended-coverage' | 'other';
@@ -29,9 +29,17 @@ export interface Source {
   position: Point;
 }
 
+/** Head symbols drawn again at a head's point: the head counts once, the extra copies are reported. */
+export interface DuplicateHeads {
+  headId: string;
+  /** Handles of the extra copies. */
+  handles: string[];
+}
+
 export interface Plan {
   roles: LayerRoles;
   heads: Head[];
+  duplicateHeads: DuplicateHeads[];
   pipes: Stroke[];
   walls: Stroke[];
   rooms: Outline[];
@@ -74,8 +82,8 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
   // A matching reference whose block holds further matching references is a group of heads, not a head.
   const containers = new Set(candidates.filter((r) => r.hasNestedRefs).map((r) => r.block));
   const isLeaf = (block: string) => !containers.has(block) || !candidates.some((c) => c.parents.at(-1) === block);
-  const heads: Head[] = candidates
-    .filter((r) => isLeaf(r.block))
+  const { kept, duplicates } = withoutDuplicates(candidates.filter((r) => isLeaf(r.block)));
+  const heads: Head[] = kept
     .map((r, i) => {
       const k = attributeNumber(r.attributes, 'K');
       const elev = attributeNumber(r.attributes, 'ELEV');
@@ -101,6 +109,7 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
   return {
     roles,
     heads,
+    duplicateHeads: duplicates.map((d) => ({ headId: heads[d.kept]!.id, handles: d.copies.map((c) => c.handle) })),
     pipes: drawing.strokes.filter((s) => onPipes(s.layer) && !symbolHandles.has(s.handle)),
     walls: drawing.strokes.filter((s) => onWalls(s.layer)),
     rooms: drawing.outlines.filter((o) => onWalls(o.layer)),
@@ -108,4 +117,33 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
     sources,
     labels: drawing.texts.filter((t) => isLabelLayer(t.layer, roles)),
   };
+}
+
+/** Two head symbols closer than this are one head drawn twice (1/8 in; common practice, no source). */
+const DUPLICATE_FT = 1 / 96;
+
+/** Drops head symbols drawn again at the point of an earlier one, keeping the first of each point. */
+function withoutDuplicates(refs: BlockRef[]): { kept: BlockRef[]; duplicates: { kept: number; copies: BlockRef[] }[] } {
+  const cell = (v: number) => Math.floor(v / DUPLICATE_FT);
+  const byCell = new Map<string, number[]>();
+  const kept: BlockRef[] = [];
+  const copiesOf = new Map<number, BlockRef[]>();
+  for (const r of refs) {
+    const cx = cell(r.position.x);
+    const cy = cell(r.position.y);
+    let first: number | undefined;
+    for (let dx = -1; dx <= 1 && first === undefined; dx++) {
+      for (let dy = -1; dy <= 1 && first === undefined; dy++) {
+        first = byCell.get(`${cx + dx},${cy + dy}`)?.find((k) => distance(kept[k]!.position, r.position) < DUPLICATE_FT);
+      }
+    }
+    if (first !== undefined) {
+      copiesOf.set(first, [...(copiesOf.get(first) ?? []), r]);
+      continue;
+    }
+    const key = `${cx},${cy}`;
+    byCell.set(key, [...(byCell.get(key) ?? []), kept.length]);
+    kept.push(r);
+  }
+  return { kept, duplicates: [...copiesOf.entries()].map(([k, copies]) => ({ kept: k, copies })) };
 }

@@ -1,10 +1,10 @@
 // The read stage: drawing bytes to a Drawing (every layer summarized, roles assigned, the content of the
 // role layers in world geometry, feet). Pure: no file access, so it runs the same in the CLI, a worker and the browser.
 
-import type { LayerRole } from '../config/settings.js';
+import { DEFAULT_INPUT_LIMITS, type InputLimits, type LayerRole } from '../config/settings.js';
 import { decodeDrawing } from './decode.js';
 import { fail } from './errors.js';
-import { DEFAULT_FLATTEN_LIMITS, flattenDxf, type FlattenLimits } from './flatten.js';
+import { flattenDxf } from './flatten.js';
 import { assignLayerRoles, isLabelLayer } from './layer-roles.js';
 import { summarizeLayers } from './layer-summary.js';
 import { parseDxfText } from './parse.js';
@@ -18,14 +18,15 @@ export interface ReadOptions {
   units?: LengthUnit;
   /** Layer patterns per role (the config's `layers`); roles without are guessed. */
   layers?: Partial<Record<LayerRole, string[]>>;
-  limits?: FlattenLimits;
+  limits?: InputLimits;
 }
 
 export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawing {
-  const limits = options.limits ?? DEFAULT_FLATTEN_LIMITS;
+  const limits = options.limits ?? DEFAULT_INPUT_LIMITS;
+  if (bytes.length > limits.fileMB * 1024 * 1024) fail(`larger than ${limits.fileMB} MiB (inputLimits.fileMB)`);
   const decoded = decodeDrawing(bytes);
-  const scan = scanDxf(decoded.text);
-  const layers = summarizeLayers(scan, limits.maxDepth);
+  const scan = scanDxf(decoded.text, limits);
+  const layers = summarizeLayers(scan, limits.blockDepth);
   const roles = assignLayerRoles(layers, options.layers ?? {});
   const roleLayers = new Set(Object.values(roles).flatMap((r) => r.layers));
   const dxf = parseDxfText(selectedText(decoded.text, scan, { layer: (l) => roleLayers.has(l), labels: (l) => isLabelLayer(l, roles) }));

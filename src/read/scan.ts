@@ -1,6 +1,7 @@
 // Walks a DXF file's group structure once, reading only the values it needs: the sections, the layer table,
 // and each block and entity with its type, layer and text range, so that only what matters is parsed.
 
+import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../config/settings.js';
 import { fail, InputError } from './errors.js';
 
 /** One entity with the ATTRIB, VERTEX and SEQEND records that belong to it. */
@@ -49,7 +50,7 @@ const TRAILING = new Set(['ATTRIB', 'VERTEX', 'SEQEND']);
  * Scans `text`. A group code line must hold an integer and nothing else ("1e308" or "10.5" is damage, not code
  * 1 or 10): anything else is a one-line error naming the line.
  */
-export function scanDxf(text: string): ScannedDxf {
+export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'textLength'> = DEFAULT_INPUT_LIMITS): ScannedDxf {
   const n = text.length;
   let at = 0;
   // The current group: code, and the value's range (without line break and surrounding blanks).
@@ -76,6 +77,9 @@ export function scanDxf(text: string): ScannedDxf {
     valueEnd = ve;
     while (valueStart < valueEnd && isBlank(text.charCodeAt(valueStart))) valueStart++;
     while (valueEnd > valueStart && isBlank(text.charCodeAt(valueEnd - 1))) valueEnd--;
+    if (valueEnd - valueStart > limits.textLength) {
+      fail(`line ${text.slice(0, vs).split('\n').length}: a value of ${valueEnd - valueStart} characters, over the limit of ${limits.textLength} (inputLimits.textLength)`);
+    }
     return true;
   };
   const value = () => text.slice(valueStart, valueEnd);
@@ -86,7 +90,9 @@ export function scanDxf(text: string): ScannedDxf {
   const out: ScannedDxf = { sections: [], layerNames: [], blocks: [], entities: [] };
   let more = next();
   /** Reads one entity whose "0 TYPE" group is current, with its trailing records; leaves the next code 0 current. */
+  let entityCount = 0;
   const readEntity = (): EntityEntry => {
+    if (++entityCount > limits.entities) fail(`more than ${limits.entities} entities (inputLimits.entities)`);
     const e: EntityEntry = { type: value(), layer: '0', start: groupStart, end: 0, block: null, copies: 1, closed: false, paperSpace: false };
     const isInsert = e.type === 'INSERT';
     const isPolyline = e.type === 'LWPOLYLINE' || e.type === 'POLYLINE';

@@ -1,5 +1,5 @@
 // Rule head-distance-min: two standard-spray heads closer than 6 ft wet each other (cold soldering)
-// unless baffles separate them; reported once per pair, heads at the same point included.
+// unless baffles separate them; reported once per pair (a symbol drawn twice at one point is one head).
 
 import RBush from 'rbush';
 import { distance } from '../geometry/point.js';
@@ -23,9 +23,7 @@ export const headDistanceMin: Rule = {
           const o = heads[b.i]!;
           const d = distance(h.position, o.position);
           return finding(this.meta, {
-            message: d < 1e-3
-              ? `heads ${h.id} and ${o.id} are drawn at the same point (a duplicate?)`
-              : `heads ${h.id} and ${o.id} are ${fmt.length(d)} apart, under the ${fmt.length(r)} required`,
+            message: `heads ${h.id} and ${o.id} are ${fmt.length(d)} apart, under the ${fmt.length(r)} required`,
             handles: [...new Set([h.handle, o.handle])], at: h.position, measured: d, limit: r, quantity: 'length',
             reference: limits.sources.minHeadDistance,
           });

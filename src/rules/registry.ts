@@ -6,6 +6,7 @@ import { designAreaMissing } from './design-area-missing.js';
 import { designAreaNotRemote } from './design-area-not-remote.js';
 import { designAreaSize } from './design-area-size.js';
 import { headDistanceMin } from './head-distance-min.js';
+import { headDuplicate } from './head-duplicate.js';
 import { headOutsideRoom } from './head-outside-room.js';
 import { headSpacingMax } from './head-spacing-max.js';
 import { headTypeUnchecked } from './head-type-unchecked.js';
@@ -23,7 +24,7 @@ import { wallDistanceMin } from './wall-distance-min.js';
 
 export const RULES: readonly Rule[] = [
   sourceUnattached, headUnattached, networkDisconnected, protectionArea, headSpacingMax, lineSpacingMax,
-  wallDistanceMax, wallDistanceMin, headDistanceMin, headOutsideRoom, headTypeUnchecked, designAreaSize, designAreaLength,
+  wallDistanceMax, wallDistanceMin, headDistanceMin, headDuplicate, headOutsideRoom, headTypeUnchecked, designAreaSize, designAreaLength,
   designAreaNotRemote, supplyShort, designAreaMissing, pipeSizeDefaulted, networkTopology,
 ];
 
