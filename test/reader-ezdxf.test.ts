@@ -14,7 +14,7 @@ const settings = parseSettings({ layers: { heads: ['FP-HEAD'], pipes: ['FP-PIPE'
 describe.each(['R12', 'R2000', 'R2018'])('ezdxf-written %s drawing', (version) => {
   const t = truth.versions[version];
   const bytes = new Uint8Array(readFileSync(`fixtures/${t.file}`));
-  const drawing = readDrawing(bytes, version === 'R12' ? { units: 'in' } : {});
+  const drawing = readDrawing(bytes, { layers: settings.layers, ...(version === 'R12' ? { units: 'in' as const } : {}) });
   const plan = planFromDrawing(drawing, settings);
   const network = buildNetwork(plan, settings);
 
@@ -42,10 +42,13 @@ describe.each(['R12', 'R2000', 'R2018'])('ezdxf-written %s drawing', (version) =
     expect(plan.heads.filter((h) => h.elevation === DEFAULT_SETTINGS.defaults.headElevation)).toHaveLength(12);
   });
 
-  it('keeps non-ASCII layer names and labels (code page or UTF-8)', () => {
+  it('keeps non-ASCII layer names and texts (code page or UTF-8)', () => {
     expect(drawing.layers.map((l) => l.name)).toContain('A-ANNO-\u00d8');
-    expect(drawing.texts.map((x) => x.text)).toContain('\u00d8 25 \u2013 Hinweis');
     expect(drawing.texts.map((x) => x.text)).toContain('2\u00bd"');
+    // a note is no size label and is not read, unless its layer plays a role
+    expect(drawing.texts.map((x) => x.text)).not.toContain('\u00d8 25 \u2013 Hinweis');
+    const notes = readDrawing(bytes, { layers: { ...settings.layers, designArea: ['A-ANNO-*'] }, ...(version === 'R12' ? { units: 'in' as const } : {}) });
+    expect(notes.texts.map((x) => x.text)).toContain('\u00d8 25 \u2013 Hinweis');
   });
 
   it('rebuilds one network from the source: feed main, cross main, three branch lines of four heads', () => {

@@ -75,15 +75,19 @@ export function selectHeads(
     const line = fam.lines[j]!;
     // The line's heads are in order along it: the window is the run from the first at lo to the last before hi.
     const from = firstAtOrAfter(line.heads, lo - 1e-9);
-    const inWindow = line.heads.slice(from, firstAtOrAfter(line.heads, hi - 1e-9));
-    if (!inWindow.length) continue;
-    const feedT = line.feedT ?? Math.min(...line.heads.map((h) => h.t));
-    inWindow.sort((a, b) => Math.abs(a.t - feedT) - Math.abs(b.t - feedT));
+    const to = firstAtOrAfter(line.heads, hi - 1e-9);
+    if (from >= to) continue;
     lineIds.push(line.id);
-    for (const h of inWindow) {
-      if (headIds.length >= count && covered >= area - 1e-6) break;
-      headIds.push(h.id);
-      covered += areaOf(h.id);
+    // Nearest the feed first: outwards from the feed point, the nearer of the two sides each time (the one
+    // nearer the line's start on a tie).
+    const feedT = line.feedT ?? line.heads[0]!.t;
+    let right = Math.min(Math.max(firstAtOrAfter(line.heads, feedT), from), to);
+    let left = right - 1;
+    const gap = (k: number) => Math.abs(line.heads[k]!.t - feedT);
+    while ((left >= from || right < to) && !(headIds.length >= count && covered >= area - 1e-6)) {
+      const k = right >= to || (left >= from && gap(left) <= gap(right)) ? left-- : right++;
+      headIds.push(line.heads[k]!.id);
+      covered += areaOf(line.heads[k]!.id);
     }
     if (headIds.length >= count && covered >= area - 1e-6) break;
   }

@@ -62,10 +62,14 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
   });
   const emitterOf = new Map(model.emitters.map((e) => [e.headId, e]));
   // Per-call scratch, reused: each anchor's combined (pressure, flow) and the call that last touched it; each
-  // chain's open heads (interior index, emitter) and the call that gave them.
+  // chain's open heads (interior index, emitter) and the call that gave them. A flow that passes anchors
+  // without joining another keeps its pipes' resistance R pending: its pressure there is P + R·Q^1.85, one
+  // power evaluated where it meets other water instead of one per pipe run.
   const P = new Float64Array(nA);
   const Q = new Float64Array(nA);
+  const R = new Float64Array(nA);
   const stamp = new Int32Array(nA);
+  const touchedRanks = new Int32Array(nA);
   const chainStamp = new Int32Array(nC);
   const chainHeads: { index: number; e: Emitter }[][] = sk.chains.map(() => []);
   let epoch = 0;
@@ -82,7 +86,7 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
   return {
     bound(headIds) {
       epoch++;
-      const touched: number[] = [];
+      let touched = 0;
       let level: number | null = null;
       const atLevel = (h: number | null) => {
         if (h === null) return true;
@@ -92,7 +96,7 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
       };
       const touch = (from: number): boolean => {
         for (let v = from; v >= 0 && stamp[v] !== epoch; v = upAnchor[v]!) {
-          stamp[v] = epoch; P[v] = 0; Q[v] = 0; touched.push(v);
+          stamp[v] = epoch; P[v] = 0; Q[v] = 0; R[v] = 0; touchedRanks[touched++] = rank[v]!;
           if (v !== sk.source && (!atLevel(anchorZ[v]!) || (upChain[v]! >= 0 && upAnchor[v] !== sk.source && !atLevel(chainZ[upChain[v]!]!)))) return false;
           if (v !== sk.source && upAnchor[v] === sk.source && !atLevel(chainZ[upChain[v]!]!)) return false;
         }
@@ -107,7 +111,12 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
         if (anchor >= 0) { if (!touch(anchor)) return null; continue; }
         const c = sk.chainOf[e.node]!;
         if (chainStamp[c] !== epoch) { chainStamp[c] = epoch; chainHeads[c]!.length = 0; }
-        chainHeads[c]!.push({ index: sk.indexInChain[e.node]!, e });
+        // Kept in order along the chain (a few heads: an insertion, no sort).
+        const list = chainHeads[c]!;
+        const index = sk.indexInChain[e.node]!;
+        let at = list.length;
+        while (at > 0 && list[at - 1]!.index > index) at--;
+        list.splice(at, 0, { index, e });
         // The chain's lower end: the anchor whose way to the source runs through it.
         const chain = sk.chains[c]!;
         if (!touch(upChain[chain.a] === c ? chain.a : chain.b)) return null;
@@ -119,33 +128,47 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeB
         join(e.required, e.k * Math.sqrt(e.required));
         P[anchor] = jp; Q[anchor] = jq;
       }
-      touched.sort((x, y) => rank[y]! - rank[x]!);
-      for (const v of touched) {
+      // Deepest first: in breadth-first order from the source, read backwards (typed sort, in place).
+      const ranks = touchedRanks.subarray(0, touched).sort();
+      const pressureAt = (v: number) => P[v]! + (R[v]! > 0 ? R[v]! * pow(Q[v]!, HW_EXPONENT) : 0);
+      for (let x = touched - 1; x >= 0; x--) {
+        const v = order[ranks[x]!]!;
         const u = upAnchor[v]!;
-        if (u < 0) return { pressure: P[v]!, flow: Q[v]! };
+        if (u < 0) return { pressure: pressureAt(v), flow: Q[v]! };
         // Up the chain from v to u, joining its open heads on the way.
         const c = upChain[v]!;
         const chain = sk.chains[c]!;
         const fromA = chain.a === v;
-        const end = chain.nodes.length + 1;
-        let pos = fromA ? 0 : end;
-        jp = P[v]!;
-        jq = Q[v]!;
+        const end = fromA ? chain.nodes.length + 1 : 0;
         const rOf = (x: number, y: number) => Math.abs(chain.cumR[y]! - chain.cumR[x]!);
+        const rise = PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
+        let p: number;
+        let q: number;
+        let r: number;
         if (chainStamp[c] === epoch) {
-          const list = chainHeads[c]!.sort((x, y) => (fromA ? x.index - y.index : y.index - x.index));
-          for (const { index, e } of list) {
+          let pos = fromA ? 0 : chain.nodes.length + 1;
+          jp = Q[v]! > 0 ? pressureAt(v) : 0;
+          jq = Q[v]!;
+          const list = chainHeads[c]!;
+          for (let h = 0; h < list.length; h++) {
+            const { index, e } = list[fromA ? h : list.length - 1 - h]!;
             if (jq > 0) jp += rOf(pos, index + 1) * pow(jq, HW_EXPONENT);
             join(e.required, e.k * Math.sqrt(e.required));
             pos = index + 1;
           }
+          p = jp + rise;
+          q = jq;
+          r = rOf(pos, end);
+        } else {
+          p = P[v]! + rise;
+          q = Q[v]!;
+          r = R[v]! + rOf(fromA ? 0 : chain.nodes.length + 1, end);
         }
-        if (jq === 0) continue;
-        const p = jp + rOf(pos, fromA ? end : 0) * pow(jq, HW_EXPONENT) + PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
-        const q = jq;
-        jp = P[u]!; jq = Q[u]!;
-        join(p, q);
-        P[u] = jp; Q[u] = jq;
+        if (q === 0) continue;
+        if (Q[u] === 0) { P[u] = p; Q[u] = q; R[u] = r; continue; }
+        jp = pressureAt(u); jq = Q[u]!;
+        join(p + r * pow(q, HW_EXPONENT), q);
+        P[u] = jp; Q[u] = jq; R[u] = 0;
       }
       return null;
     },

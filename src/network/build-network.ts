@@ -139,7 +139,10 @@ function classify(
 
   // Drops: a short pipe to a lone head, on a run of its own.
   const runPipes = new Map<number, NetPipe[]>();
-  for (const p of pipes) runPipes.set(p.run, [...(runPipes.get(p.run) ?? []), p]);
+  for (const p of pipes) {
+    const list = runPipes.get(p.run);
+    if (list) list.push(p); else runPipes.set(p.run, [p]);
+  }
   const isDrop = (p: NetPipe) => {
     if (p.length > DROP_MAX_FT || runPipes.get(p.run)!.length !== 1) return false;
     const [leaf, root] = degree(p.to) === 1 && hasHead(p.to) ? [p.to, p.from] : [p.from, p.to];

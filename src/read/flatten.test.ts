@@ -37,7 +37,7 @@ describe('block expansion', () => {
     const w = new DxfWriter(2);
     w.block('SYM', { x: 0, y: 0 }, (b) => { w.line('0', { x: 0, y: 0 }, { x: 1, y: 0 }, b).line('OWN', { x: 0, y: 0 }, { x: 0, y: 1 }, b); });
     w.insert('FP-HEAD', 'SYM', { x: 10, y: 10 });
-    const d = readDrawing(bytes(w.toString()));
+    const d = readDrawing(bytes(w.toString()), { layers: { heads: ['FP-HEAD'], pipes: ['FP-HEAD', 'OWN'] } });
     expect(d.strokes.map((s) => s.layer).sort()).toEqual(['FP-HEAD', 'OWN']);
     expect(new Set(d.strokes.map((s) => s.handle)).size).toBe(1);
     expect(d.strokes.map((s) => s.handle)[0]).toBe(d.refs[0]!.handle);

@@ -30,7 +30,10 @@ type Raw = IEntity & Record<string, any>;
 
 const CIRCLE_STEPS = 32;
 
-export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLimits, 'blockDepth' | 'blockReferences'>): Flattened {
+/** Which layers each kind of item is kept for (the reader keeps what the layer roles need). */
+export type FlattenKeep = Record<keyof Flattened, (layer: string) => boolean>;
+
+export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLimits, 'blockDepth' | 'blockReferences'>, keep: FlattenKeep): Flattened {
   const out: Flattened = { refs: [], strokes: [], outlines: [], texts: [], points: [] };
   const blocks: Record<string, IBlock> = dxf.blocks ?? {};
   const blockByUpper = new Map(Object.entries(blocks).map(([k, v]) => [k.toUpperCase(), v] as const));
@@ -84,7 +87,7 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLim
         });
         const m = compose(ctx.m, placement);
         refCount++;
-        out.refs.push({
+        if (keep.refs(layer)) out.refs.push({
           handle, layer, block: name, position: apply(m, base), rotationDeg: (rotationOf(m) * 180) / Math.PI,
           mirrored: determinant(m) < 0, attributes, parents: ctx.parents, hasNestedRefs,
         });
@@ -110,7 +113,7 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLim
     switch (e.type) {
       case 'LINE': {
         const v = e.vertices as Point[] | undefined;
-        if (v && v.length >= 2) addStroke(handle, layer, 'LINE', [pt(v[0]), pt(v[1])], parent);
+        if (v && v.length >= 2 && keep.strokes(layer)) addStroke(handle, layer, 'LINE', [pt(v[0]), pt(v[1])], parent);
         break;
       }
       case 'LWPOLYLINE':
@@ -118,6 +121,9 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLim
         if (e.is3dPolygonMesh || e.isPolyfaceMesh) break;
         const verts = ((e.vertices ?? []) as Raw[]).filter((v) => Number.isFinite(v.x) && Number.isFinite(v.y));
         const closed = !!e.shape;
+        const strokes = keep.strokes(layer);
+        const outlines = closed && verts.length >= 3 && keep.outlines(layer);
+        if (!strokes && !outlines) break;
         const outline: Point[] = [];
         const n = verts.length;
         for (let k = 0; k < (closed ? n : n - 1); k++) {
@@ -126,28 +132,29 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLim
           const bulge = num(verts[k]!.bulge, 0);
           const pts = sampleBulge(p1, p2, bulge);
           const analytic = bulge ? arcLengthOfBulge(p1, p2, bulge) : distance(p1, p2);
-          addStroke(handle, layer, e.type, pts, e.type === 'POLYLINE' && e.is3dPolyline ? parent : m, analytic);
+          if (strokes) addStroke(handle, layer, e.type, pts, e.type === 'POLYLINE' && e.is3dPolyline ? parent : m, analytic);
           outline.push(...pts.slice(0, -1));
         }
-        if (closed && n >= 3) out.outlines.push({ handle, layer, type: e.type, points: outline.map((p) => apply(m, p)) });
+        if (outlines) out.outlines.push({ handle, layer, type: e.type, points: outline.map((p) => apply(m, p)) });
         break;
       }
       case 'ARC': {
         const c = pt(e.center);
         const r = num(e.radius, 0);
         const sweep = ccwSweep(num(e.startAngle, 0), num(e.endAngle, 0));
-        if (r > 0) addStroke(handle, layer, 'ARC', sampleArc(c, r, num(e.startAngle, 0), sweep), m, r * sweep);
+        if (r > 0 && keep.strokes(layer)) addStroke(handle, layer, 'ARC', sampleArc(c, r, num(e.startAngle, 0), sweep), m, r * sweep);
         break;
       }
       case 'CIRCLE': {
         const r = num(e.radius, 0);
-        if (r > 0) {
+        if (r > 0 && keep.outlines(layer)) {
           const pts = sampleArc(pt(e.center), r, 0, 2 * Math.PI).slice(0, CIRCLE_STEPS);
           out.outlines.push({ handle, layer, type: 'CIRCLE', points: pts.map((p) => apply(m, p)) });
         }
         break;
       }
       case 'TEXT': {
+        if (!keep.texts(layer)) break;
         const useEnd = (num(e.halign, 0) !== 0 || num(e.valign, 0) !== 0) && e.endPoint;
         out.texts.push({
           handle, layer, position: apply(m, pt(useEnd ? e.endPoint : e.startPoint)),
@@ -156,13 +163,14 @@ export function flattenDxf(dxf: IDxf, feetPerUnit: number, limits: Pick<InputLim
         break;
       }
       case 'MTEXT':
+        if (!keep.texts(layer)) break;
         out.texts.push({
           handle, layer, position: apply(parent, pt(e.position)),
           text: plainMText(String(e.text ?? '')), height: num(e.height, 0) * meanScale(parent),
         });
         break;
       case 'POINT':
-        out.points.push({ handle, layer, position: apply(parent, pt(e.position)) });
+        if (keep.points(layer)) out.points.push({ handle, layer, position: apply(parent, pt(e.position)) });
         break;
       default:
         break;

@@ -80,3 +80,11 @@ function looksLike(layer: LayerSummary, role: LayerRole): boolean {
 export function isLabelLayer(layer: string, roles: LayerRoles): boolean {
   return roles.pipes.layers.includes(layer) || /size|pipe|dim|text|anno/i.test(layer);
 }
+
+/**
+ * Whether a text as written could state a pipe size: an inch mark, a number with in, inch or mm, DN and a
+ * number, or a fraction sign (plain or as a \U+ escape). A loose test that every size label passes (1",
+ * 1-1/4", 2½", DN32, 32mm), so that notes and room names are not read at all.
+ */
+export const couldBeSizeLabel = (raw: string): boolean =>
+  /["\u2033]|''|\d\s*(?:in\b|inch|mm\b)|\bdn\s*\d|[\u00bc-\u00be]|\\U\+00B[C-E]/i.test(raw);

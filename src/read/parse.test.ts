@@ -17,7 +17,7 @@ const dxf = (...pairs: (string | number)[]) => {
 };
 
 /** The reader's path to dxf-parser, every layer wanted. */
-const parseAll = (text: string) => parseDxfText(selectedText(text, scanDxf(text), { layer: () => true, labels: () => true }));
+const parseAll = (text: string) => parseDxfText(selectedText(text, scanDxf(text), { layer: () => true, label: () => true }));
 
 describe('damaged structure', () => {
   it('a POLYLINE followed by a LINE without SEQEND is read, not spun on', () => {

@@ -18,6 +18,8 @@ export interface EntityEntry {
   /** Closed LWPOLYLINE or POLYLINE. */
   closed: boolean;
   paperSpace: boolean;
+  /** TEXT and MTEXT: the value as written (MTEXT: its last chunk, group 1), else null. */
+  text: string | null;
 }
 
 export interface BlockEntry {
@@ -93,8 +95,9 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
   let entityCount = 0;
   const readEntity = (): EntityEntry => {
     if (++entityCount > limits.entities) fail(`more than ${limits.entities} entities (inputLimits.entities)`);
-    const e: EntityEntry = { type: value(), layer: '0', start: groupStart, end: 0, block: null, copies: 1, closed: false, paperSpace: false };
+    const e: EntityEntry = { type: value(), layer: '0', start: groupStart, end: 0, block: null, copies: 1, closed: false, paperSpace: false, text: null };
     const isInsert = e.type === 'INSERT';
+    const isText = e.type === 'TEXT' || e.type === 'MTEXT';
     const isPolyline = e.type === 'LWPOLYLINE' || e.type === 'POLYLINE';
     let columns = 1;
     let rows = 1;
@@ -105,6 +108,7 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
       else if (isInsert && code === 70) columns = Math.max(1, Math.floor(Number(value())) || 1);
       else if (isInsert && code === 71) rows = Math.max(1, Math.floor(Number(value())) || 1);
       else if (isPolyline && code === 70) e.closed = (Number(value()) & 1) === 1;
+      else if (isText && code === 1) e.text = value();
     }
     // Trailing records up to the next entity or the end of the section or block.
     while (more && code === 0 && TRAILING.has(value())) {

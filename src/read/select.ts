@@ -1,6 +1,6 @@
-// Cuts a scanned drawing down to what the later stages read: entities on layers that play a role, texts on
-// label layers, references whose blocks reach either, and the blocks they use. Only this text is parsed, so
-// a plan's architectural background costs a scan, not a parse.
+// Cuts a scanned drawing down to what the later stages read: entities on layers that play a role, texts that
+// may be size labels, references whose blocks reach either, and the blocks they use. Only this text is parsed,
+// so a plan's architectural background costs a scan, not a parse.
 
 import { blockLookup, effectiveLayer, nameDecoder } from './layer-summary.js';
 import type { BlockEntry, EntityEntry, ScannedDxf } from './scan.js';
@@ -8,8 +8,8 @@ import type { BlockEntry, EntityEntry, ScannedDxf } from './scan.js';
 export interface Wanted {
   /** Layers whose every entity is read. */
   layer(name: string): boolean;
-  /** Layers whose texts are read (size labels). */
-  labels(name: string): boolean;
+  /** Texts read besides (size labels), by layer and the text as written. */
+  label(layer: string, text: string): boolean;
 }
 
 const isText = (type: string) => type === 'TEXT' || type === 'MTEXT';
@@ -23,7 +23,7 @@ export function selectedText(text: string, scan: ScannedDxf, wanted: Wanted): st
   const blockOf = (e: EntityEntry) => (e.type === 'INSERT' && e.block !== null ? blocks.find(named(e.block)) : null);
   const wants = (e: EntityEntry, inherited: string | null): boolean => {
     const layer = effectiveLayer(named(e.layer), inherited);
-    if (wanted.layer(layer) || (isText(e.type) && wanted.labels(layer))) return true;
+    if (wanted.layer(layer) || (isText(e.type) && wanted.label(layer, e.text ?? ''))) return true;
     const block = blockOf(e);
     return block !== null && reaches(block, layer);
   };
