@@ -46,13 +46,14 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
     const n = network.headNode[f.head.id];
     if (n) { flowingByNode.set(n, f); headOfNode.set(n, f.head); }
   }
-  const keep = pruneDeadEnds(network, new Set(flowingByNode.keys()));
-  const nodeIds = network.nodes.filter((n) => keep.nodes.has(n.id)).map((n) => n.id);
+  const g = indexNetwork(network);
+  const keep = pruneDeadEnds(network, g, new Set(flowingByNode.keys()));
+  const nodeIds = network.nodes.filter((_, v) => keep.nodes[v]).map((n) => n.id);
   const index = new Map(nodeIds.map((id, i) => [id, i]));
   const nodes: ModelNode[] = nodeIds.map((id) => ({ id, elevation: headOfNode.get(id)?.elevation ?? pipeLevel }));
-  const fittings = settings.design.fittings ? inferFittings(network) : new Map<string, string[]>();
-  const pipes: ModelPipe[] = network.pipes.filter((p) => keep.pipes.has(p.id)).map((p) => {
-    const list = fittings.get(p.id) ?? [];
+  const fittings = settings.design.fittings ? inferFittings(network, g) : null;
+  const pipes: ModelPipe[] = network.pipes.flatMap((p, k) => (keep.pipes[k] ? [{ p, k }] : [])).map(({ p, k }) => {
+    const list = fittings?.[k] ?? [];
     const eq = EQUIVALENT_LENGTH_FT[p.nominalSize];
     const factor = fittingFactor(p.cFactor, p.nominalSize, p.innerDiameter);
     const fittingsLength = list.reduce((s, f) => s + (f === 'tee' ? eq.teeTurn : eq.elbow90), 0) * factor;
@@ -83,75 +84,76 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
   return { nodes, pipes, emitters, source, riser };
 }
 
-/** Removes, repeatedly, end nodes that neither flow nor feed: their pipes carry no water. */
-function pruneDeadEnds(network: Network, flowingNodes: Set<string>): { nodes: Set<string>; pipes: Set<string> } {
-  const degree = new Map<string, number>(network.nodes.map((n) => [n.id, 0]));
-  const incident = new Map<string, string[]>(network.nodes.map((n) => [n.id, []]));
-  const pipeById = new Map(network.pipes.map((p) => [p.id, p]));
-  for (const p of network.pipes) {
-    degree.set(p.from, degree.get(p.from)! + 1);
-    degree.set(p.to, degree.get(p.to)! + 1);
-    incident.get(p.from)!.push(p.id);
-    incident.get(p.to)!.push(p.id);
-  }
-  const nodes = new Set(network.nodes.map((n) => n.id));
-  const pipes = new Set(network.pipes.map((p) => p.id));
-  const removable = (id: string) => nodes.has(id) && degree.get(id)! <= 1 && id !== network.sourceNodeId && !flowingNodes.has(id);
-  const queue = network.nodes.map((n) => n.id).filter(removable);
+/** The network's nodes and pipes by index: each pipe's ends, and the pipes at each node. */
+interface Indexed { from: Int32Array; to: Int32Array; incident: number[][]; source: number }
+
+function indexNetwork(network: Network): Indexed {
+  const at = new Map(network.nodes.map((n, i) => [n.id, i]));
+  const from = Int32Array.from(network.pipes, (p) => at.get(p.from)!);
+  const to = Int32Array.from(network.pipes, (p) => at.get(p.to)!);
+  const incident: number[][] = network.nodes.map(() => []);
+  for (let k = 0; k < from.length; k++) { incident[from[k]!]!.push(k); incident[to[k]!]!.push(k); }
+  return { from, to, incident, source: network.sourceNodeId ? at.get(network.sourceNodeId)! : -1 };
+}
+
+/** Removes, repeatedly, end nodes that neither flow nor feed (their pipes carry no water), and what does not reach the source. */
+function pruneDeadEnds(network: Network, g: Indexed, flowingNodes: Set<string>): { nodes: Uint8Array; pipes: Uint8Array } {
+  const n = network.nodes.length;
+  const flowing = Uint8Array.from(network.nodes, (node) => (flowingNodes.has(node.id) ? 1 : 0));
+  const degree = Int32Array.from(g.incident, (list) => list.length);
+  const nodeOn = new Uint8Array(n).fill(1);
+  const pipeOn = new Uint8Array(g.from.length).fill(1);
+  const removable = (v: number) => nodeOn[v] === 1 && degree[v]! <= 1 && v !== g.source && !flowing[v];
+  const queue: number[] = [];
+  for (let v = 0; v < n; v++) if (removable(v)) queue.push(v);
   while (queue.length) {
-    const id = queue.pop()!;
-    if (!removable(id)) continue;
-    nodes.delete(id);
-    for (const pid of incident.get(id)!) {
-      if (!pipes.has(pid)) continue;
-      pipes.delete(pid);
-      const p = pipeById.get(pid)!;
-      const other = p.from === id ? p.to : p.from;
-      degree.set(other, degree.get(other)! - 1);
+    const v = queue.pop()!;
+    if (!removable(v)) continue;
+    nodeOn[v] = 0;
+    for (const k of g.incident[v]!) {
+      if (!pipeOn[k]) continue;
+      pipeOn[k] = 0;
+      const other = g.from[k] === v ? g.to[k]! : g.from[k]!;
+      degree[other]!--;
       if (removable(other)) queue.push(other);
     }
   }
   // Keep only what is connected to the source.
-  const reached = new Set<string>();
-  const stack = network.sourceNodeId && nodes.has(network.sourceNodeId) ? [network.sourceNodeId] : [];
+  const reached = new Uint8Array(n);
+  const stack = g.source >= 0 && nodeOn[g.source] ? [g.source] : [];
   while (stack.length) {
-    const id = stack.pop()!;
-    if (reached.has(id)) continue;
-    reached.add(id);
-    for (const pid of incident.get(id)!) {
-      if (!pipes.has(pid)) continue;
-      const p = pipeById.get(pid)!;
-      stack.push(p.from === id ? p.to : p.from);
-    }
+    const v = stack.pop()!;
+    if (reached[v]) continue;
+    reached[v] = 1;
+    for (const k of g.incident[v]!) if (pipeOn[k]) stack.push(g.from[k] === v ? g.to[k]! : g.from[k]!);
   }
-  return { nodes: reached, pipes: new Set([...pipes].filter((pid) => reached.has(pipeById.get(pid)!.from))) };
+  for (let k = 0; k < pipeOn.length; k++) if (!reached[g.from[k]!]) pipeOn[k] = 0;
+  return { nodes: reached, pipes: pipeOn };
 }
 
 /**
  * Fittings from the topology (common practice, no source): an elbow for each bend along a pipe, and a tee
  * where the flow turns into a pipe, i.e. where the pipe leaves a junction on a different run from the pipe
  * that feeds the junction (flow straight through a tee is not charged). Feeding direction: breadth-first
- * from the source.
+ * from the source. By pipe index.
  */
-function inferFittings(network: Network): Map<string, string[]> {
-  const incident = new Map<string, typeof network.pipes>(network.nodes.map((n) => [n.id, []]));
-  for (const p of network.pipes) { incident.get(p.from)!.push(p); incident.get(p.to)!.push(p); }
-  const out = new Map<string, string[]>();
-  for (const p of network.pipes) out.set(p.id, Array.from({ length: p.bends }, () => 'elbow'));
-  if (!network.sourceNodeId) return out;
-  const feeder = new Map<string, (typeof network.pipes)[number]>();
-  const seen = new Set([network.sourceNodeId]);
-  const queue = [network.sourceNodeId];
+function inferFittings(network: Network, g: Indexed): string[][] {
+  const out = network.pipes.map((p) => Array.from({ length: p.bends }, () => 'elbow'));
+  if (g.source < 0) return out;
+  const feeder = new Int32Array(network.nodes.length).fill(-1);
+  const seen = new Uint8Array(network.nodes.length);
+  seen[g.source] = 1;
+  const queue = [g.source];
   for (let i = 0; i < queue.length; i++) {
     const u = queue[i]!;
-    for (const p of incident.get(u)!) {
-      const v = p.from === u ? p.to : p.from;
-      if (seen.has(v)) continue;
-      seen.add(v);
+    for (const k of g.incident[u]!) {
+      const v = g.from[k] === u ? g.to[k]! : g.from[k]!;
+      if (seen[v]) continue;
+      seen[v] = 1;
       queue.push(v);
-      feeder.set(v, p);
-      const upstream = feeder.get(u);
-      if (upstream && incident.get(u)!.length >= 3 && upstream.run !== p.run) out.get(p.id)!.push('tee');
+      feeder[v] = k;
+      const upstream = feeder[u]!;
+      if (upstream >= 0 && g.incident[u]!.length >= 3 && network.pipes[upstream]!.run !== network.pipes[k]!.run) out[k]!.push('tee');
     }
   }
   return out;
