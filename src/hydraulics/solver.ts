@@ -98,7 +98,7 @@ export class NetworkSolver {
   /** Warm start: each chain's flow at its a end, and each emitter's flow, from the last solve that had them. */
   private readonly lastChainFlow: Float64Array;
   private readonly lastEmitterFlow: Float64Array;
-  private readonly work: Workspace;
+  private work: Workspace;
 
   constructor(private readonly model: HydraulicModel) {
     const sk = (this.skeleton = buildSkeleton(model));
@@ -114,7 +114,8 @@ export class NetworkSolver {
     this.chainB = Int32Array.from(sk.chains, (c) => c.b);
     this.lastChainFlow = new Float64Array(sk.chains.length).fill(Number.NaN);
     this.lastEmitterFlow = new Float64Array(model.emitters.length).fill(Number.NaN);
-    this.work = workspace(model.emitters.length, sk.chains.length, sk.anchorNode.length);
+    // Sized for a few dozen open heads at first (a design area), grown when a solve opens more.
+    this.work = workspace(Math.min(model.emitters.length, 64), sk.chains.length, sk.anchorNode.length);
   }
 
   /** The live part with the given emitters open. */
@@ -198,6 +199,7 @@ export class NetworkSolver {
     const L = chain.length;
     const T = headEmitter.length;
     const nE = anchorEmitters.length;
+    if (Math.max(T, nE) > this.work.qH.length) this.work = workspace(Math.max(T, nE), sk.chains.length, sk.anchorNode.length);
     const nA = sk.anchorNode.length;
     const src = sk.source;
     const zOf = (node: number) => PSI_PER_FT * model.nodes[node]!.elevation;

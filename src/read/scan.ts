@@ -85,6 +85,15 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
     return true;
   };
   const value = () => text.slice(valueStart, valueEnd);
+  // Entity types, layer and block names repeat across a drawing: one copy of each, not a slice of the file's
+  // text per entity (a slice would also keep the whole text alive for as long as any name is in use).
+  const names = new Map<string, string>();
+  const sharedName = () => {
+    const v = value();
+    let kept = names.get(v);
+    if (kept === undefined) names.set(v, (kept = [...v].join('')));
+    return kept;
+  };
   /** The current code (a call, so that TypeScript does not narrow it across `next`). */
   const codeIs = (c: number) => code === c;
   const valueIs = (word: string) => valueEnd - valueStart === word.length && text.startsWith(word, valueStart);
@@ -95,16 +104,16 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
   let entityCount = 0;
   const readEntity = (): EntityEntry => {
     if (++entityCount > limits.entities) fail(`more than ${limits.entities} entities (inputLimits.entities)`);
-    const e: EntityEntry = { type: value(), layer: '0', start: groupStart, end: 0, block: null, copies: 1, closed: false, paperSpace: false, text: null };
+    const e: EntityEntry = { type: sharedName(), layer: '0', start: groupStart, end: 0, block: null, copies: 1, closed: false, paperSpace: false, text: null };
     const isInsert = e.type === 'INSERT';
     const isText = e.type === 'TEXT' || e.type === 'MTEXT';
     const isPolyline = e.type === 'LWPOLYLINE' || e.type === 'POLYLINE';
     let columns = 1;
     let rows = 1;
     while ((more = next()) && code !== 0) {
-      if (code === 8) e.layer = value();
+      if (code === 8) e.layer = sharedName();
       else if (code === 67) e.paperSpace = value() === '1';
-      else if (isInsert && code === 2) e.block = value();
+      else if (isInsert && code === 2) e.block = sharedName();
       else if (isInsert && code === 70) columns = Math.max(1, Math.floor(Number(value())) || 1);
       else if (isInsert && code === 71) rows = Math.max(1, Math.floor(Number(value())) || 1);
       else if (isPolyline && code === 70) e.closed = (Number(value()) & 1) === 1;
@@ -138,7 +147,7 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
         if (code !== 0) { more = next(); continue; }
         if (name === 'BLOCKS' && valueIs('BLOCK')) {
           const block: BlockEntry = { name: '', start: groupStart, end: 0, entities: [] };
-          while ((more = next()) && code !== 0) if (code === 2 || (code === 3 && !block.name)) block.name = value();
+          while ((more = next()) && code !== 0) if (code === 2 || (code === 3 && !block.name)) block.name = sharedName();
           while (more && code === 0 && !valueIs('ENDBLK') && !valueIs('ENDSEC') && !valueIs('SECTION') && !valueIs('EOF')) block.entities.push(readEntity());
           if (more && valueIs('ENDBLK')) while ((more = next()) && code !== 0);
           block.end = more ? groupStart : n;
@@ -155,7 +164,7 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
         more = next();
         if (!isLayer) continue;
         while (more && !codeIs(0) && !codeIs(2)) more = next();
-        if (more && codeIs(2)) out.layerNames.push(value());
+        if (more && codeIs(2)) out.layerNames.push(sharedName());
       }
     } else {
       while (within(name)) more = next();
