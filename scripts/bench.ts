@@ -38,6 +38,22 @@ for (const heads of sizes) {
     );
   }
 }
+// How cost grows: the slope of log(time) and log(peak memory) against log(heads), per kind (1 = linear).
+const growth: Record<string, { time: number; memory: number }> = {};
+for (const kind of kinds) {
+  const pts = rows.filter((r) => r['kind'] === kind && typeof r['totalMs'] === 'number') as Record<string, number>[];
+  if (pts.length < 2) continue;
+  const slope = (ys: number[]) => {
+    const xs = pts.map((r) => Math.log(r['heads']!));
+    const ls = ys.map(Math.log);
+    const mx = xs.reduce((a, b) => a + b, 0) / xs.length;
+    const my = ls.reduce((a, b) => a + b, 0) / ls.length;
+    return xs.reduce((a, x, i) => a + (x - mx) * (ls[i]! - my), 0) / xs.reduce((a, x) => a + (x - mx) ** 2, 0);
+  };
+  growth[kind] = { time: slope(pts.map((r) => r['totalMs']!)), memory: slope(pts.map((r) => r['peakRssMb']!)) };
+  console.log(`${kind}: time grows as heads^${growth[kind]!.time.toFixed(2)}, peak memory as heads^${growth[kind]!.memory.toFixed(2)}`);
+}
+
 // A real plan set carries architecture: 20,000 heads plus ~200,000 racking lines, texts, door arcs and grid lines
 // on other layers (~30 MB). Compared with dxf-parser's own parse of the same file, measured in the same run.
 let background: Record<string, unknown> | null = null;
@@ -89,5 +105,5 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
   batch['speedup'] = batch['workers2']! / batch['workers1']!;
   console.log(`2 workers / 1 worker: ${batch['speedup']!.toFixed(2)}×`);
 }
-writeFileSync(join(OUT, 'bench.json'), `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, background, batch }, null, 2)}\n`);
+writeFileSync(join(OUT, 'bench.json'), `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, batch }, null, 2)}\n`);
 console.log(`figures written to ${join(OUT, 'bench.json')}`);
