@@ -86,7 +86,8 @@ export function evaluateDesignAreas(
     const candidates = candidatesOf(main, areaOf, basis.area).filter((c) => c.headIds.some((id) => network.headNode[id]));
     const connected = (ids: string[]) => ids.filter((id) => network.headNode[id]);
     try {
-      const found = searchMostDemanding(network, candidates.map((c) => ({ ...c, headIds: connected(c.headIds) })), flowingOf, settings, basis.hoseAllowance);
+      const piped = candidates.map((c) => (c.headIds.every((id) => network.headNode[id]) ? c : { ...c, headIds: connected(c.headIds) }));
+      const found = searchMostDemanding(network, piped, flowingOf, settings, basis.hoseAllowance);
       out.search = { candidates: found.candidates, evaluated: found.evaluated, screened: found.screened, solves: found.solves, pruned: found.pruned };
       for (const [rank, s] of [['most-demanding', found.best], ['runner-up', found.runnerUp]] as const) {
         if (!s) continue;

@@ -24,15 +24,7 @@ export interface ReadOptions {
 export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawing {
   const limits = options.limits ?? DEFAULT_INPUT_LIMITS;
   if (bytes.length > limits.fileMB * 1024 * 1024) fail(`larger than ${limits.fileMB} MiB (inputLimits.fileMB)`);
-  const decoded = decodeDrawing(bytes);
-  const scan = scanDxf(decoded.text, limits);
-  const layers = summarizeLayers(scan, limits.blockDepth);
-  const roles = assignLayerRoles(layers, options.layers ?? {});
-  const roleLayers = new Set(Object.values(roles).flatMap((r) => r.layers));
-  const dxf = parseDxfText(selectedText(decoded.text, scan, {
-    layer: (l) => roleLayers.has(l),
-    label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
-  }));
+  const { dxf, layers, roles, version, encoding } = parseByRole(bytes, options.layers ?? {}, limits);
   const header = dxf.header ?? {};
   const fromHeader = unitFromInsunits(header['$INSUNITS']);
   const units = options.units ?? fromHeader;
@@ -49,10 +41,10 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
   });
   const handseed = header['$HANDSEED'];
   return {
-    version: decoded.version,
+    version,
     units: units!,
     unitsFrom: options.units ? 'config' : 'header',
-    encoding: decoded.encoding,
+    encoding,
     handseed: typeof handseed === 'string' ? handseed : handseed === undefined ? null : String(handseed),
     layers,
     roles,
@@ -62,4 +54,21 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
     texts: flat.texts,
     points: flat.points,
   };
+}
+
+/**
+ * Decodes and scans the file, assigns the layer roles and parses what they need. A function of its own so
+ * that the decoded text and the scan, the largest things read, are garbage once it returns.
+ */
+function parseByRole(bytes: Uint8Array, patterns: Partial<Record<LayerRole, string[]>>, limits: InputLimits) {
+  const decoded = decodeDrawing(bytes);
+  const scan = scanDxf(decoded.text, limits);
+  const layers = summarizeLayers(scan, limits.blockDepth);
+  const roles = assignLayerRoles(layers, patterns);
+  const roleLayers = new Set(Object.values(roles).flatMap((r) => r.layers));
+  const dxf = parseDxfText(selectedText(decoded.text, scan, {
+    layer: (l) => roleLayers.has(l),
+    label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
+  }));
+  return { dxf, layers, roles, version: decoded.version, encoding: decoded.encoding };
 }
