@@ -2,7 +2,7 @@
 // (worst first, each drawing linked to its report), with the caution.
 
 import { CAUTION } from '../outputs/caution.js';
-import { escapeHtml } from '../outputs/html-escape.js';
+import { escapeHtml as esc } from '../outputs/html-escape.js';
 import type { ReportUnits } from '../quantities/convert.js';
 import { TOOL } from '../version.js';
 import type { BatchRow } from './worker.js';
@@ -23,8 +23,6 @@ export function summaryCsv(rows: BatchRow[]): string {
   const lines = rows.map((r) => [r.file, r.status, r.heads, r.errors, r.warnings, r.demandPressure, r.demandFlow, r.margin, r.config, r.message, r.ms].map(csvCell).join(','));
   return `${head.join(',')}\n${lines.join('\n')}\n`;
 }
-
-const esc = escapeHtml;
 
 export function summaryHtml(rows: BatchRow[], units: ReportUnits): string {
   const body = worstFirst(rows).map((r) => {

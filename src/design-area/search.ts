@@ -47,7 +47,7 @@ export function searchMostDemanding(
   if (all.length === 0) return { best: null, runnerUp: null, candidates: candidates.length, evaluated: 0, screened: 0, solves: 0, pruned: false };
   const prune = options.prune !== false;
   const calculator = new AreaCalculator(network, all, settings);
-  const bound = prune ? treeBound(calculator.model) : null;
+  const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
   const supply = settings.supply;
   const scoreAt = (pressure: number, flow: number) => (supply ? pressure - availablePressure(supply, flow + hose) : pressure);
   const upper = candidates.map((c) => {

@@ -55,7 +55,7 @@ export interface AreaDemand {
  */
 export class AreaCalculator {
   readonly model: HydraulicModel;
-  private readonly solver: NetworkSolver;
+  readonly solver: NetworkSolver;
   private readonly emitterOf: Map<string, number>;
   private readonly hand: ReturnType<typeof kFactorWalk>;
   private lastPressure: number | undefined;
@@ -65,7 +65,7 @@ export class AreaCalculator {
     if (this.model.emitters.length === 0) throw new Error('no flowing head is connected to the source');
     this.solver = new NetworkSolver(this.model);
     this.emitterOf = new Map(this.model.emitters.map((e, k) => [e.headId, k]));
-    this.hand = kFactorWalk(this.model, HAND_METHOD_EXPONENT);
+    this.hand = kFactorWalk(this.model, HAND_METHOD_EXPONENT, this.solver.skeleton);
   }
 
   private openList(headIds: string[]): Int32Array {

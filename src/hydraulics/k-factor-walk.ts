@@ -3,7 +3,7 @@
 
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import type { Emitter, HydraulicModel } from './model.js';
-import { buildSkeleton } from './skeleton.js';
+import { buildSkeleton, type Skeleton } from './skeleton.js';
 
 export interface TreeBound {
   /** Upper bounds on the required source pressure (psi) and the source flow (gpm), or null where none holds. */
@@ -22,17 +22,17 @@ export const BOUND_EXPONENT = 1 / HW_EXPONENT;
 /** The classic hand method scales the lower side's flow by √(p_high/p_low) (shared/TRADE.md, confirmed). */
 export const HAND_METHOD_EXPONENT = 0.5;
 
-export const treeBound = (model: HydraulicModel): TreeBound | null => kFactorWalk(model, BOUND_EXPONENT);
+export const treeBound = (model: HydraulicModel, skeleton?: Skeleton): TreeBound | null => kFactorWalk(model, BOUND_EXPONENT, skeleton);
 
 /**
  * The K-factor balancing walk over a tree model, raising lower-pressure sides by (p_high/p_low)^exponent. It
  * walks the model's skeleton: along a chain of pipes with no open head between, the flow is constant and the
  * losses of its pipes add up, so a design area costs its heads and the junctions on their way to the source.
  */
-export function kFactorWalk(model: HydraulicModel, raiseExponent: number): TreeBound | null {
+export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skeleton?: Skeleton): TreeBound | null {
   const n = model.nodes.length;
   if (model.pipes.length !== n - 1) return null;
-  const sk = buildSkeleton(model);
+  const sk = skeleton ?? buildSkeleton(model);
   const nA = sk.anchorNode.length;
   const nC = sk.chains.length;
   // Orient the skeleton from the source: each anchor's chain and anchor towards the source, and its rank.

@@ -7,10 +7,8 @@ import type { PipeRole } from '../network/types.js';
 import { converterFor, REPORT_UNITS } from '../quantities/convert.js';
 import { formatterFor } from '../quantities/format.js';
 import { CAUTION } from './caution.js';
-import { escapeHtml } from './html-escape.js';
+import { escapeHtml as esc } from './html-escape.js';
 import { supplyGraph } from './supply-graph.js';
-
-const esc = escapeHtml;
 
 const ROLE_COLOR: Record<PipeRole, string> = {
   branch: '#1f6fd1', 'cross-main': '#7a3fc4', 'feed-main': '#b3261e', riser: '#b3261e', drop: '#2e7d32', unknown: '#888',

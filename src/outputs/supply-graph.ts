@@ -3,11 +3,9 @@
 
 import { availablePressure, type FlowTest } from '../hydraulics/water-supply.js';
 import type { Converter, ReportUnits } from '../quantities/convert.js';
-import { escapeHtml } from './html-escape.js';
+import { escapeHtml as esc } from './html-escape.js';
 
 export interface DemandPoint { label: string; flow: number; withHose: number; pressure: number }
-
-const esc = escapeHtml;
 
 /** A round step near `raw` (1, 2 or 5 times a power of ten). */
 function niceStep(raw: number): number {

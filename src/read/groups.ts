@@ -21,8 +21,29 @@ export function byteView(bytes: Uint8Array): string {
   return new TextDecoder('windows-1252').decode(bytes);
 }
 
-/** A group code line holds an integer and nothing else ("1e308" or "10.5" is damage, not code 1 or 10). */
-const INTEGER = /^[-+]?\d{1,6}$/;
+/** Space, tab or carriage return: blanks around a group's code or value. */
+export const isBlank = (c: number) => c === 32 || c === 9 || c === 13;
+
+/**
+ * The group code on the line text[start, end): an integer and nothing else, blanks around it allowed, or NaN
+ * ("1e308" or "10.5" is damage, not code 1 or 10).
+ */
+export function groupCode(text: string, start: number, end: number): number {
+  let i = start;
+  let e = end;
+  while (i < e && isBlank(text.charCodeAt(i))) i++;
+  while (e > i && isBlank(text.charCodeAt(e - 1))) e--;
+  let sign = 1;
+  if (i < e && (text.charCodeAt(i) === 45 || text.charCodeAt(i) === 43)) { sign = text.charCodeAt(i) === 45 ? -1 : 1; i++; }
+  if (i === e || e - i > 6) return Number.NaN;
+  let v = 0;
+  for (; i < e; i++) {
+    const d = text.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) return Number.NaN;
+    v = v * 10 + d;
+  }
+  return sign * v;
+}
 
 /** Every group of the file; a code line that is not an integer gives code NaN, for the caller to reject. */
 export function readGroups(view: string): Group[] {
@@ -41,9 +62,7 @@ export function readGroups(view: string): Group[] {
     const [cs, ce] = line();
     if (i >= n && view.slice(cs, ce).trim() === '') break;
     const [vs, ve, next] = line();
-    const codeText = view.slice(cs, ce).trim();
-    const code = INTEGER.test(codeText) ? Number(codeText) : Number.NaN;
-    groups.push({ code, value: view.slice(vs, ve).trim(), start: cs, end: next, valueStart: vs, valueEnd: ve });
+    groups.push({ code: groupCode(view, cs, ce), value: view.slice(vs, ve).trim(), start: cs, end: next, valueStart: vs, valueEnd: ve });
   }
   return groups;
 }

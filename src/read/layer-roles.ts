@@ -76,6 +76,12 @@ function looksLike(layer: LayerSummary, role: LayerRole): boolean {
   }
 }
 
+/** Whether a layer plays any of the given roles. */
+export function onRoles(roles: LayerRoles, ...which: LayerRole[]): (layer: string) => boolean {
+  const set = new Set(which.flatMap((role) => roles[role].layers));
+  return (layer) => set.has(layer);
+}
+
 /** Layers whose texts may be pipe-size labels: the pipe layers, and layers named for sizes, dimensions or notes. */
 export function isLabelLayer(layer: string, roles: LayerRoles): boolean {
   return roles.pipes.layers.includes(layer) || /size|pipe|dim|text|anno/i.test(layer);

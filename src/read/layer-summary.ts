@@ -21,9 +21,10 @@ export function blockLookup(scan: ScannedDxf): BlockLookup {
     exact.set(name, b);
     if (!upper.has(name.toUpperCase())) upper.set(name.toUpperCase(), b);
   }
+  const nesting = new Set(scan.blocks.filter((b) => b.entities.some((e) => e.type === 'INSERT')));
   return {
     find: (name) => exact.get(name) ?? upper.get(name.toUpperCase()) ?? null,
-    hasNestedRefs: (block) => block.entities.some((e) => e.type === 'INSERT'),
+    hasNestedRefs: (block) => nesting.has(block),
   };
 }
 

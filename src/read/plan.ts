@@ -5,7 +5,7 @@ import { compilePatterns } from '../config/patterns.js';
 import type { Settings } from '../config/settings.js';
 import { distance, type Point } from '../geometry/point.js';
 import { KSI_PER_KUS, M_PER_FT } from '../quantities/convert.js';
-import { isLabelLayer, type LayerRoles } from './layer-roles.js';
+import { isLabelLayer, onRoles, type LayerRoles } from './layer-roles.js';
 import type { BlockRef, Drawing, Outline, Stroke, TextItem } from './types.js';
 
 /** What a head's attributes say about its kind; anything but standard spray has listed limits. */
@@ -66,15 +66,11 @@ function attributeNumber(attributes: Record<string, string>, tag: string): numbe
 
 export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
   const { roles } = drawing;
-  const on = (role: keyof LayerRoles) => {
-    const set = new Set(roles[role].layers);
-    return (layer: string) => set.has(layer);
-  };
-  const onHeads = on('heads');
-  const onPipes = on('pipes');
-  const onWalls = on('walls');
-  const onArea = on('designArea');
-  const onSource = on('source');
+  const onHeads = onRoles(roles, 'heads');
+  const onPipes = onRoles(roles, 'pipes');
+  const onWalls = onRoles(roles, 'walls');
+  const onArea = onRoles(roles, 'designArea');
+  const onSource = onRoles(roles, 'source');
   const headBlock = compilePatterns(settings.headBlocks);
   const si = settings.unitSystem === 'si';
 

@@ -1,11 +1,11 @@
 // The read stage: drawing bytes to a Drawing (every layer summarized, roles assigned, and in world geometry,
 // feet, what the roles need: head and source symbols, pipe and wall linework, room and area outlines, labels). Pure: no file access, so it runs the same in the CLI, a worker and the browser.
 
-import { DEFAULT_INPUT_LIMITS, type InputLimits, type LayerRole } from '../config/settings.js';
+import { DEFAULT_INPUT_LIMITS, LAYER_ROLES, type InputLimits, type LayerRole } from '../config/settings.js';
 import { decodeDrawing } from './decode.js';
 import { fail } from './errors.js';
 import { flattenDxf } from './flatten.js';
-import { assignLayerRoles, couldBeSizeLabel, isLabelLayer } from './layer-roles.js';
+import { assignLayerRoles, couldBeSizeLabel, isLabelLayer, onRoles } from './layer-roles.js';
 import { summarizeLayers } from './layer-summary.js';
 import { parseDxfText } from './parse.js';
 import { scanDxf } from './scan.js';
@@ -31,13 +31,9 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
   if (!units) {
     fail('the drawing does not state its length unit ($INSUNITS is missing or unitless); set "units" in the config (in, ft, mm, cm or m)');
   }
-  const on = (...which: (keyof typeof roles)[]) => {
-    const set = new Set(which.flatMap((role) => roles[role].layers));
-    return (layer: string) => set.has(layer);
-  };
   const flat = flattenDxf(dxf, FEET_PER_UNIT[units!], limits, {
-    refs: on('heads', 'source'), strokes: on('pipes', 'walls'), outlines: on('walls', 'designArea'),
-    texts: (layer) => isLabelLayer(layer, roles), points: on('source'),
+    refs: onRoles(roles, 'heads', 'source'), strokes: onRoles(roles, 'pipes', 'walls'), outlines: onRoles(roles, 'walls', 'designArea'),
+    texts: (layer) => isLabelLayer(layer, roles), points: onRoles(roles, 'source'),
   });
   const handseed = header['$HANDSEED'];
   return {
@@ -65,9 +61,8 @@ function parseByRole(bytes: Uint8Array, patterns: Partial<Record<LayerRole, stri
   const scan = scanDxf(decoded.text, limits);
   const layers = summarizeLayers(scan, limits.blockDepth);
   const roles = assignLayerRoles(layers, patterns);
-  const roleLayers = new Set(Object.values(roles).flatMap((r) => r.layers));
   const dxf = parseDxfText(selectedText(decoded.text, scan, {
-    layer: (l) => roleLayers.has(l),
+    layer: onRoles(roles, ...LAYER_ROLES),
     label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
   }));
   return { dxf, layers, roles, version: decoded.version, encoding: decoded.encoding };

@@ -3,6 +3,7 @@
 
 import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../config/settings.js';
 import { fail, InputError } from './errors.js';
+import { groupCode, isBlank } from './groups.js';
 
 /** One entity with the ATTRIB, VERTEX and SEQEND records that belong to it. */
 export interface EntityEntry {
@@ -66,7 +67,7 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
     if (at >= n) return false;
     groupStart = at;
     const ce = lineEnd(at);
-    code = parseCode(text, at, ce);
+    code = groupCode(text, at, ce);
     if (Number.isNaN(code)) {
       if (ce >= n && text.slice(at, ce).trim() === '') return false;
       const line = text.slice(0, at).split('\n').length;
@@ -173,24 +174,4 @@ export function scanDxf(text: string, limits: Pick<InputLimits, 'entities' | 'te
     out.sections.push({ name, start, end: more ? groupStart : n });
   }
   return out;
-}
-
-const isBlank = (c: number) => c === 32 || c === 9 || c === 13;
-
-/** The integer on a group code line (blanks around it allowed), or NaN. */
-function parseCode(text: string, start: number, end: number): number {
-  let i = start;
-  let e = end;
-  while (i < e && isBlank(text.charCodeAt(i))) i++;
-  while (e > i && isBlank(text.charCodeAt(e - 1))) e--;
-  let sign = 1;
-  if (i < e && (text.charCodeAt(i) === 45 || text.charCodeAt(i) === 43)) { sign = text.charCodeAt(i) === 45 ? -1 : 1; i++; }
-  if (i === e || e - i > 6) return Number.NaN;
-  let v = 0;
-  for (; i < e; i++) {
-    const d = text.charCodeAt(i) - 48;
-    if (d < 0 || d > 9) return Number.NaN;
-    v = v * 10 + d;
-  }
-  return sign * v;
 }
