@@ -69,6 +69,7 @@ describe('geometry edge cases', () => {
     expect(r.report.summary.heads).toBe(12);
   });
 
+  // 4 in from any wall: NFPA 13 (2019 edition), confirmed (src/rules/limits.ts)
   it('a head exactly on a wall is under the 4 in minimum distance, measured 0', () => {
     // the first head of the first line moved onto the west wall (x = 0)
     const r = checkText(layoutDxf({ ...spec, extraHeads: [{ x: 0, y: 25 }] }));

@@ -8,6 +8,7 @@ import { buildSkeleton } from './skeleton.js';
 const pipe = (from: number, to: number, r: number) => ({ id: `P${from}-${to}`, from, to, length: 1, fittingsLength: 0, fittings: [], diameter: 1, c: 120, r });
 
 // S(0) — 1 — T(2) — 3 — 4 (end), and T(2) — 5 — 6 — back to T(2) (a loop), pipe 4 drawn backwards.
+// Resistances 1 to 7 are invented for the test: only their sums along each chain are checked.
 const model: HydraulicModel = {
   nodes: Array.from({ length: 7 }, (_, i) => ({ id: `N${i}`, elevation: 0 })),
   pipes: [pipe(0, 1, 1), pipe(1, 2, 2), pipe(2, 3, 3), pipe(4, 3, 4), pipe(2, 5, 5), pipe(5, 6, 6), pipe(6, 2, 7)],
