@@ -11,7 +11,7 @@ import { annotatedDrawing } from '../src/check/outputs.js';
 import { runCheck } from '../src/check/run-check.js';
 import { parseSettings } from '../src/config/settings.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
-import { byteView, readGroups } from '../src/read/groups.js';
+import { GroupCursor } from '../src/read/groups.js';
 import { readDrawing } from '../src/read/read-drawing.js';
 import { describeWith, hasCommand, hasEzdxf, SYSTEM_PYTHON } from './support/external.js';
 
@@ -28,19 +28,26 @@ function annotate(c: (typeof cases)[number]) {
   return { result, out: annotatedDrawing(input, result) };
 }
 
+/** Every group's code and value, read by our own group walker. */
+const groupsOf = (bytes: Uint8Array) => {
+  const c = new GroupCursor(bytes);
+  const out: { code: number; value: string }[] = [];
+  while (c.next()) out.push({ code: c.code, value: c.latin1() });
+  return out;
+};
 const entitiesText = (bytes: Uint8Array) => {
-  const v = byteView(bytes);
+  const v = new TextDecoder('latin1').decode(bytes);
   const start = v.search(/\r?\n\s*2\r?\nENTITIES\r?\n/);
   return v.slice(start, v.indexOf('\nENDSEC', start));
 };
 /** Entity and table handles (group 5 outside the HEADER section, where $HANDSEED also uses code 5). */
 const handlesOf = (bytes: Uint8Array) => {
-  const groups = readGroups(byteView(bytes));
+  const groups = groupsOf(bytes);
   const headerEnd = groups.findIndex((g) => g.code === 0 && g.value === 'ENDSEC');
   return groups.filter((g, i) => i > headerEnd && g.code === 5 && /^[0-9A-F]+$/i.test(g.value)).map((g) => BigInt(`0x${g.value}`));
 };
 const seedOf = (bytes: Uint8Array) => {
-  const g = readGroups(byteView(bytes));
+  const g = groupsOf(bytes);
   const i = g.findIndex((x) => x.code === 9 && x.value === '$HANDSEED');
   return BigInt(`0x${g[i + 1]!.value}`);
 };

@@ -29,7 +29,7 @@ describe('input limits', () => {
     w.text('NOTES', { x: 0, y: 0 }, 1, 'x'.repeat(300));
     const text = w.toString();
     const line = text.split('\n').findIndex((l) => l.startsWith('xxx')) + 1;
-    expect(() => readDrawing(bytes(text), { limits: limits({ textLength: 100 }) })).toThrow(new RegExp(`line ${line}: a value of 300 characters.*inputLimits\\.textLength`));
+    expect(() => readDrawing(bytes(text), { limits: limits({ textLength: 100 }) })).toThrow(new RegExp(`line ${line}: a value of 300 bytes.*inputLimits\\.textLength`));
     expect(() => readDrawing(bytes(text), { limits: limits({ textLength: 1000 }) })).not.toThrow();
   });
 

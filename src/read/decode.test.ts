@@ -2,14 +2,20 @@
 // error; R2004-and-older text decodes by $DWGCODEPAGE (DXF reference), R2007+ as UTF-8.
 
 import { describe, expect, it } from 'vitest';
-import { decodeDrawing } from './decode.js';
+import { drawingEncoding, textDecoder } from './decode.js';
 import { InputError } from './errors.js';
 
 const bytes = (s: string) => new TextEncoder().encode(s);
 const minimal = (acadver: string, codepage: string, extra = '') =>
   `  0\nSECTION\n  2\nHEADER\n  9\n$ACADVER\n  1\n${acadver}\n  9\n$DWGCODEPAGE\n  3\n${codepage}\n  0\nENDSEC\n${extra}  0\nEOF\n`;
 
-describe('decodeDrawing', () => {
+/** The whole file as text, the way the reader decodes it. */
+const decodeDrawing = (b: Uint8Array) => {
+  const { encoding } = drawingEncoding(b);
+  return { encoding, text: textDecoder(encoding)(b) };
+};
+
+describe('drawingEncoding and textDecoder', () => {
   it('refuses binary DXF by its sentinel (DXF reference: "AutoCAD Binary DXF" CR LF SUB NUL)', () => {
     const b = new Uint8Array([...bytes('AutoCAD Binary DXF\r\n'), 0x1a, 0x00, 1, 2, 3]);
     expect(() => decodeDrawing(b)).toThrow(/binary DXF is not supported/);

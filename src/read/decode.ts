@@ -1,5 +1,5 @@
-// Turns a drawing's bytes into text: rejects binary DXF and non-DXF input, and decodes by the drawing's
-// code page (R2004 and older: `$DWGCODEPAGE`; R2007 and later: UTF-8), so non-ASCII names survive.
+// Tells how a drawing's bytes are to be read: rejects binary DXF and non-DXF input, and decodes text by the
+// drawing's code page (R2004 and older: `$DWGCODEPAGE`; R2007 and later: UTF-8), so non-ASCII names survive.
 
 import { fail } from './errors.js';
 
@@ -20,15 +20,17 @@ const CODE_PAGES: Record<string, string> = {
 const CP1252_HIGH = '\u20AC\u0081\u201A\u0192\u201E\u2026\u2020\u2021\u02C6\u2030\u0160\u2039\u0152\u008D\u017D\u008F' +
   '\u0090\u2018\u2019\u201C\u201D\u2022\u2013\u2014\u02DC\u2122\u0161\u203A\u0153\u009D\u017E\u0178';
 
-function decodeWith(label: string, bytes: Uint8Array): string {
-  const text = new TextDecoder(label).decode(bytes);
-  if (label !== 'windows-1252') return text;
-  return text.replace(/[\u0080-\u009f]/g, (ch) => CP1252_HIGH[ch.charCodeAt(0) - 0x80]!);
+/** Decodes byte ranges of a drawing written in encoding `label` (a WHATWG label); a UTF-8 byte order mark is dropped. */
+export function textDecoder(label: string): (bytes: Uint8Array) => string {
+  const decoder = new TextDecoder(label);
+  if (label !== 'windows-1252') return (bytes) => decoder.decode(bytes);
+  return (bytes) => decoder.decode(bytes).replace(/[\u0080-\u009f]/g, (ch) => CP1252_HIGH[ch.charCodeAt(0) - 0x80]!);
 }
 
-export interface DecodedText {
-  text: string;
+export interface DrawingEncoding {
+  /** WHATWG label of the text encoding. */
   encoding: string;
+  /** `$ACADVER`, AC1009 (R12) when not stated. */
   version: string;
 }
 
@@ -46,7 +48,8 @@ function endsWithEof(bytes: Uint8Array): boolean {
   return lines.length >= 2 && lines[lines.length - 1]!.toUpperCase() === 'EOF' && lines[lines.length - 2] === '0';
 }
 
-export function decodeDrawing(bytes: Uint8Array): DecodedText {
+/** The drawing's version and text encoding; a file that is not ASCII DXF, or is cut short, is an error. */
+export function drawingEncoding(bytes: Uint8Array): DrawingEncoding {
   if (bytes.length === 0) fail('the file is empty');
   const start = new TextDecoder('latin1').decode(bytes.subarray(0, Math.min(bytes.length, 65536)));
   if (start.startsWith(BINARY_SENTINEL)) fail('binary DXF is not supported; save the drawing as ASCII DXF');
@@ -61,7 +64,5 @@ export function decodeDrawing(bytes: Uint8Array): DecodedText {
   const codePage = headerValue(start, 'DWGCODEPAGE');
   const utf8 = version >= 'AC1021' || bytes[0] === 0xef;
   const label = utf8 ? 'utf-8' : (CODE_PAGES[(codePage ?? 'ANSI_1252').toUpperCase()] ?? 'windows-1252');
-  let text = decodeWith(label, bytes);
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  return { text, encoding: label, version };
+  return { encoding: label, version };
 }

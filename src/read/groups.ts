@@ -1,72 +1,113 @@
-// Reads a DXF file's group structure without changing it: every group's code, value and character range,
-// on a text or a 1:1 byte-to-char view. The reader checks structure with it; the annotator splices by it.
-
-export interface Group {
-  code: number;
-  value: string;
-  /** Byte offset where the group's code line starts, and just after its value line ends. */
-  start: number;
-  end: number;
-  /** Byte range of the value text alone (without the line break). */
-  valueStart: number;
-  valueEnd: number;
-}
-
-/**
- * One char per byte, so that string offsets are byte offsets. Windows-1252 is a single-byte encoding: every
- * byte decodes to exactly one character (WHATWG index; bytes 0x80-0x9F may not keep their Latin-1 code points,
- * which only non-ASCII values notice). Native decoding: ten times faster than building the string by hand.
- */
-export function byteView(bytes: Uint8Array): string {
-  return new TextDecoder('windows-1252').decode(bytes);
-}
+// Walks a DXF file's groups on its bytes, one group at a time and without an object per group: its code and
+// the ranges of its lines and value. The reader's scan checks structure with it; the annotator splices by it.
 
 /** Space, tab or carriage return: blanks around a group's code or value. */
 export const isBlank = (c: number) => c === 32 || c === 9 || c === 13;
 
+const NEWLINE = 10;
+
+/** Offset of the next line break at or after `from`, or the end of the bytes. */
+function lineEnd(bytes: Uint8Array, from: number): number {
+  const n = bytes.length;
+  let i = from;
+  while (i < n && bytes[i] !== NEWLINE) i++;
+  return i;
+}
+
 /**
- * The group code on the line text[start, end): an integer and nothing else, blanks around it allowed, or NaN
+ * The group code on the line bytes[start, end): an integer and nothing else, blanks around it allowed, or NaN
  * ("1e308" or "10.5" is damage, not code 1 or 10).
  */
-export function groupCode(text: string, start: number, end: number): number {
+export function groupCode(bytes: Uint8Array, start: number, end: number): number {
   let i = start;
   let e = end;
-  while (i < e && isBlank(text.charCodeAt(i))) i++;
-  while (e > i && isBlank(text.charCodeAt(e - 1))) e--;
+  while (i < e && isBlank(bytes[i]!)) i++;
+  while (e > i && isBlank(bytes[e - 1]!)) e--;
   let sign = 1;
-  if (i < e && (text.charCodeAt(i) === 45 || text.charCodeAt(i) === 43)) { sign = text.charCodeAt(i) === 45 ? -1 : 1; i++; }
+  if (i < e && (bytes[i] === 45 || bytes[i] === 43)) { sign = bytes[i] === 45 ? -1 : 1; i++; }
   if (i === e || e - i > 6) return Number.NaN;
   let v = 0;
   for (; i < e; i++) {
-    const d = text.charCodeAt(i) - 48;
+    const d = bytes[i]! - 48;
     if (d < 0 || d > 9) return Number.NaN;
     v = v * 10 + d;
   }
   return sign * v;
 }
 
-/** Every group of the file; a code line that is not an integer gives code NaN, for the caller to reject. */
-export function readGroups(view: string): Group[] {
-  const groups: Group[] = [];
-  let i = 0;
-  const n = view.length;
-  const line = (): [number, number, number] => {
-    const s = i;
-    let e = view.indexOf('\n', i);
-    if (e < 0) e = n;
-    i = e + 1;
-    const valueEnd = e > s && view.charCodeAt(e - 1) === 13 ? e - 1 : e;
-    return [s, valueEnd, Math.min(i, n)];
-  };
-  while (i < n) {
-    const [cs, ce] = line();
-    if (i >= n && view.slice(cs, ce).trim() === '') break;
-    const [vs, ve, next] = line();
-    groups.push({ code: groupCode(view, cs, ce), value: view.slice(vs, ve).trim(), start: cs, end: next, valueStart: vs, valueEnd: ve });
+/** A UTF-8 byte order mark, which some programs write before the first group. */
+export const bomLength = (bytes: Uint8Array): number => (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0);
+
+/** The current group of a walk through the file; `next` moves it on. */
+export class GroupCursor {
+  /** The group code; NaN when its line is not an integer and nothing else, for the caller to reject. */
+  code = Number.NaN;
+  /** Where the group's code line starts, and just after its value line ends. */
+  start = 0;
+  end = 0;
+  /** The value's range, without the line break and the blanks around it. */
+  valueStart = 0;
+  valueEnd = 0;
+
+  constructor(readonly bytes: Uint8Array) {
+    this.end = bomLength(bytes);
   }
-  return groups;
+
+  /** Moves to the next group; false at the end of the file (a last line of blanks is no group). */
+  next(): boolean {
+    const b = this.bytes;
+    const n = b.length;
+    const cs = this.end;
+    if (cs >= n) return false;
+    const ce = lineEnd(b, cs);
+    const code = groupCode(b, cs, ce);
+    if (Number.isNaN(code) && ce >= n && isBlankLine(b, cs, ce)) return false;
+    let vs = Math.min(ce + 1, n);
+    let ve = lineEnd(b, vs);
+    this.code = code;
+    this.start = cs;
+    this.end = Math.min(ve + 1, n);
+    while (vs < ve && isBlank(b[vs]!)) vs++;
+    while (ve > vs && isBlank(b[ve - 1]!)) ve--;
+    this.valueStart = vs;
+    this.valueEnd = ve;
+    return true;
+  }
+
+  /** Whether the value is exactly `word` (ASCII). */
+  valueIs(word: string): boolean {
+    if (this.valueEnd - this.valueStart !== word.length) return false;
+    for (let i = 0; i < word.length; i++) if (this.bytes[this.valueStart + i] !== word.charCodeAt(i)) return false;
+    return true;
+  }
+
+  /** The value byte for byte as Latin-1 (exact for ASCII: names, numbers, handles). */
+  latin1(): string {
+    return latin1(this.bytes, this.valueStart, this.valueEnd);
+  }
+
+  /** The line number (from 1) of the current group's code. */
+  line(): number {
+    let count = 1;
+    for (let i = 0; i < this.start; i++) if (this.bytes[i] === NEWLINE) count++;
+    return count;
+  }
+}
+
+function isBlankLine(b: Uint8Array, start: number, end: number): boolean {
+  for (let i = start; i < end; i++) if (!isBlank(b[i]!)) return false;
+  return true;
+}
+
+/** Bytes [start, end) as Latin-1 text, one character per byte. */
+export function latin1(bytes: Uint8Array, start: number, end: number): string {
+  let s = '';
+  for (let i = start; i < end; i += 4096) s += String.fromCharCode(...bytes.subarray(i, Math.min(end, i + 4096)));
+  return s;
 }
 
 /** The line break the file uses. */
-export const lineBreakOf = (view: string): string => (view.indexOf('\r\n') >= 0 && view.indexOf('\r\n') <= view.indexOf('\n') ? '\r\n' : '\n');
-
+export function lineBreakOf(bytes: Uint8Array): string {
+  const lf = bytes.indexOf(NEWLINE);
+  return lf > 0 && bytes[lf - 1] === 13 ? '\r\n' : '\n';
+}

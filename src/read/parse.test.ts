@@ -4,6 +4,7 @@
 
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { textDecoder } from './decode.js';
 import { InputError } from './errors.js';
 import { parseDxfText } from './parse.js';
 import { readDrawing } from './read-drawing.js';
@@ -17,7 +18,12 @@ const dxf = (...pairs: (string | number)[]) => {
 };
 
 /** The reader's path to dxf-parser, every layer wanted. */
-const parseAll = (text: string) => parseDxfText(selectedText(text, scanDxf(text), { layer: () => true, label: () => true }));
+const utf8 = textDecoder('utf-8');
+const scan = (text: string) => scanDxf(new TextEncoder().encode(text), utf8);
+const parseAll = (text: string) => {
+  const bytes = new TextEncoder().encode(text);
+  return parseDxfText(selectedText(bytes, scanDxf(bytes, utf8), { layer: () => true, label: () => true }, utf8));
+};
 
 describe('damaged structure', () => {
   it('a POLYLINE followed by a LINE without SEQEND is read, not spun on', () => {
@@ -61,13 +67,13 @@ describe('damaged structure', () => {
   it('a LAYER table without ENDTAB still gives its layer names and the entities', () => {
     const text = dxf(0, 'SECTION', 2, 'TABLES', 0, 'TABLE', 2, 'LAYER', 70, 2, 0, 'LAYER', 2, 'FP-PIPE', 70, 0, 0, 'TABLE', 2, 'LTYPE', 0, 'ENDTAB', 0, 'ENDSEC',
       0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'FP-PIPE', 10, 0, 20, 0, 11, 1, 21, 0, 0, 'ENDSEC', 0, 'EOF');
-    expect(scanDxf(text).layerNames).toEqual(['FP-PIPE']);
+    expect(scan(text).layerNames).toEqual(['FP-PIPE']);
     expect(parseAll(text).entities).toHaveLength(1);
   });
 
   it('a section not closed by ENDSEC is a one-line error naming it', () => {
     const text = dxf(0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 2, 'B', 0, 'ENDBLK', 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'P', 0, 'ENDSEC', 0, 'EOF');
-    expect(() => scanDxf(text)).toThrow(/the BLOCKS section is not closed by ENDSEC/);
+    expect(() => scan(text)).toThrow(/the BLOCKS section is not closed by ENDSEC/);
   });
 
   it.each([

@@ -2,7 +2,7 @@
 // feet, what the roles need: head and source symbols, pipe and wall linework, room and area outlines, labels). Pure: no file access, so it runs the same in the CLI, a worker and the browser.
 
 import { DEFAULT_INPUT_LIMITS, LAYER_ROLES, type InputLimits, type LayerRole } from '../config/settings.js';
-import { decodeDrawing } from './decode.js';
+import { drawingEncoding, textDecoder } from './decode.js';
 import { fail } from './errors.js';
 import { flattenDxf } from './flatten.js';
 import { assignLayerRoles, couldBeSizeLabel, isLabelLayer, onRoles } from './layer-roles.js';
@@ -53,17 +53,18 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
 }
 
 /**
- * Decodes and scans the file, assigns the layer roles and parses what they need. A function of its own so
- * that the decoded text and the scan, the largest things read, are garbage once it returns.
+ * Scans the file, assigns the layer roles, and decodes and parses what they need. A function of its own so
+ * that the scan and the selected text, the largest things read, are garbage once it returns.
  */
 function parseByRole(bytes: Uint8Array, patterns: Partial<Record<LayerRole, string[]>>, limits: InputLimits) {
-  const decoded = decodeDrawing(bytes);
-  const scan = scanDxf(decoded.text, limits);
+  const { encoding, version } = drawingEncoding(bytes);
+  const decode = textDecoder(encoding);
+  const scan = scanDxf(bytes, decode, limits);
   const layers = summarizeLayers(scan, limits.blockDepth);
   const roles = assignLayerRoles(layers, patterns);
-  const dxf = parseDxfText(selectedText(decoded.text, scan, {
+  const dxf = parseDxfText(selectedText(bytes, scan, {
     layer: onRoles(roles, ...LAYER_ROLES),
     label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
-  }));
-  return { dxf, layers, roles, version: decoded.version, encoding: decoded.encoding };
+  }, decode));
+  return { dxf, layers, roles, version, encoding };
 }

@@ -1,9 +1,9 @@
 // Cuts a scanned drawing down to what the later stages read: entities on layers that play a role, texts that
-// may be size labels, references whose blocks reach either, and the blocks they use. Only this text is parsed,
-// so a plan's architectural background costs a scan, not a parse.
+// may be size labels, references whose blocks reach either, and the blocks they use. Only this text is decoded
+// and parsed, so a plan's architectural background costs a scan, not a parse.
 
 import { blockLookup, effectiveLayer, nameDecoder } from './layer-summary.js';
-import type { BlockEntry, EntityEntry, ScannedDxf } from './scan.js';
+import type { BlockEntry, Decode, EntityEntry, ScannedDxf } from './scan.js';
 
 export interface Wanted {
   /** Layers whose every entity is read. */
@@ -14,8 +14,11 @@ export interface Wanted {
 
 const isText = (type: string) => type === 'TEXT' || type === 'MTEXT';
 
-/** DXF text holding the header, the blocks in use and the wanted model-space entities, in their original order. */
-export function selectedText(text: string, scan: ScannedDxf, wanted: Wanted): string {
+/**
+ * DXF text holding the header, the blocks in use and the wanted model-space entities of the drawing `bytes`, in
+ * their original order, decoded with `decode`.
+ */
+export function selectedText(bytes: Uint8Array, scan: ScannedDxf, wanted: Wanted, decode: Decode): string {
   const blocks = blockLookup(scan);
   const named = nameDecoder();
   const reachMemo = new Map<string, boolean>();
@@ -23,7 +26,7 @@ export function selectedText(text: string, scan: ScannedDxf, wanted: Wanted): st
   const blockOf = (e: EntityEntry) => (e.type === 'INSERT' && e.block !== null ? blocks.find(named(e.block)) : null);
   const wants = (e: EntityEntry, inherited: string | null): boolean => {
     const layer = effectiveLayer(named(e.layer), inherited);
-    if (wanted.layer(layer) || (isText(e.type) && wanted.label(layer, e.text ?? ''))) return true;
+    if (wanted.layer(layer) || (isText(e.type) && wanted.label(layer, decode(bytes.subarray(e.textStart, e.textEnd))))) return true;
     const block = blockOf(e);
     return block !== null && reaches(block, layer);
   };
@@ -50,17 +53,21 @@ export function selectedText(text: string, scan: ScannedDxf, wanted: Wanted): st
     for (const e of b.entities) { const inner = blockOf(e); if (inner) stack.push(inner); }
   }
   const header = scan.sections.find((s) => s.name === 'HEADER');
-  const parts: string[] = [];
-  /** A range of the original text, ending with a line break. */
+  const parts: Uint8Array[] = [];
+  const ascii = (s: string) => parts.push(Uint8Array.from(s, (ch) => ch.charCodeAt(0)));
+  /** A range of the original bytes, ending with a line break. */
   const piece = (start: number, end: number) => {
-    const t = text.slice(start, end);
-    parts.push(t.endsWith('\n') ? t : `${t}\n`);
+    parts.push(bytes.subarray(start, end));
+    if (end > start && bytes[end - 1] !== 10) ascii('\n');
   };
   if (header) piece(header.start, header.end);
-  parts.push('  0\nSECTION\n  2\nBLOCKS\n');
+  ascii('  0\nSECTION\n  2\nBLOCKS\n');
   for (const b of scan.blocks) if (used.has(b)) piece(b.start, b.end);
-  parts.push('  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n');
+  ascii('  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n');
   for (const e of entities) piece(e.start, e.end);
-  parts.push('  0\nENDSEC\n  0\nEOF\n');
-  return parts.join('');
+  ascii('  0\nENDSEC\n  0\nEOF\n');
+  const joined = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
+  let at = 0;
+  for (const p of parts) { joined.set(p, at); at += p.length; }
+  return decode(joined);
 }
