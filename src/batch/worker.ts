@@ -3,12 +3,12 @@
 
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { annotatedDrawing, reportPage } from '../check/outputs.js';
+import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
 import { DEFAULT_SETTINGS, parseSettingsText } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../read/errors.js';
-import { readInputFile, sha256Hex, writeAllAtomically } from '../cli/files.js';
+import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../cli/files.js';
 
 export interface BatchTask {
   file: string;
@@ -47,10 +47,10 @@ export default function checkOne(task: BatchTask): BatchRow {
     const bytes = readInputFile(task.file, settings.inputLimits.fileMB);
     const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units };
     const result = runCheck(input);
-    const files: { path: string; data: string | Uint8Array }[] = [];
-    if (task.outputs.json) files.push({ path: join(task.outDir, `${task.name}.json`), data: `${JSON.stringify(result.report, null, 2)}\n` });
-    if (task.outputs.dxf) files.push({ path: join(task.outDir, `${task.name}.dxf`), data: annotatedDrawing(input, result) });
-    if (task.outputs.html) files.push({ path: join(task.outDir, `${task.name}.html`), data: reportPage(input, result) });
+    const files: { path: string; data: () => OutputData }[] = [];
+    if (task.outputs.json) files.push({ path: join(task.outDir, `${task.name}.json`), data: () => reportJson(result) });
+    if (task.outputs.dxf) files.push({ path: join(task.outDir, `${task.name}.dxf`), data: () => annotatedDrawing(input, result) });
+    if (task.outputs.html) files.push({ path: join(task.outDir, `${task.name}.html`), data: () => reportPage(input, result) });
     writeAllAtomically(files);
     const s = result.report.summary;
     const best = result.report.designAreas.find((a) => a.rank === 'most-demanding')?.hydraulics;

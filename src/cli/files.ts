@@ -2,7 +2,7 @@
 // then rename) that never leave a partial output, and a guard that an output never replaces the input.
 
 import { createHash } from 'node:crypto';
-import { readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { closeSync, openSync, readFileSync, renameSync, rmSync, statSync, writeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { InputError } from '../read/errors.js';
 
@@ -19,7 +19,8 @@ export function readInputFile(path: string, maxMB: number): Uint8Array {
   }
   if (size > maxMB * 1024 * 1024) throw new InputError(`${path}: larger than ${maxMB} MiB (inputLimits.fileMB)`);
   try {
-    return new Uint8Array(readFileSync(path));
+    const buffer = readFileSync(path);
+    return new Uint8Array(buffer.buffer, buffer.byteOffset, buffer.byteLength); // a view: no second copy of the file
   } catch (err) {
     throw new InputError(`${path}: cannot be read (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
   }
@@ -32,21 +33,45 @@ export function assertNotInput(output: string, input: string): void {
   if (resolve(output) === resolve(input)) throw new InputError(`${output}: an output may not overwrite the input drawing`);
 }
 
-/** Writes all files or none: each goes to a temporary name first; the renames happen only when all are written. */
-export function writeAllAtomically(files: { path: string; data: string | Uint8Array }[]): void {
+/** An output's content: text (written as UTF-8), bytes, or bytes in pieces written one after another. */
+export type OutputData = string | Uint8Array | Uint8Array[];
+
+/**
+ * Writes all files or none: each goes to a temporary name first; the renames happen only when all are written.
+ * A file's data may be a function, called when its turn comes, so that each output is garbage once written;
+ * an error it throws leaves no file behind and is passed on as it is.
+ */
+export function writeAllAtomically(files: { path: string; data: OutputData | (() => OutputData) }[]): void {
   const temps: { tmp: string; path: string }[] = [];
-  try {
-    for (const f of files) {
-      const tmp = join(dirname(f.path), `.${basename(f.path)}.${process.pid}.${temps.length}.tmp`);
-      temps.push({ tmp, path: f.path });
-      writeFileSync(tmp, f.data);
+  const clean = () => { for (const t of temps) removeQuietly(t.tmp); };
+  for (const f of files) {
+    let data: OutputData;
+    try {
+      data = typeof f.data === 'function' ? f.data() : f.data;
+    } catch (err) {
+      clean();
+      throw err;
     }
-  } catch (err) {
-    for (const t of temps) removeQuietly(t.tmp);
-    const code = (err as NodeJS.ErrnoException).code ?? 'error';
-    throw new InputError(`${temps.at(-1)?.path ?? 'output'}: cannot be written (${code})`);
+    const tmp = join(dirname(f.path), `.${basename(f.path)}.${process.pid}.${temps.length}.tmp`);
+    temps.push({ tmp, path: f.path });
+    try {
+      writeData(tmp, data);
+    } catch (err) {
+      clean();
+      throw new InputError(`${f.path}: cannot be written (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
+    }
   }
   for (const t of temps) renameSync(t.tmp, t.path);
+}
+
+function writeData(path: string, data: OutputData): void {
+  const pieces = typeof data === 'string' ? [Buffer.from(data, 'utf8')] : Array.isArray(data) ? data : [data];
+  const fd = openSync(path, 'w');
+  try {
+    for (const piece of pieces) for (let at = 0; at < piece.length;) at += writeSync(fd, piece, at, piece.length - at);
+  } finally {
+    closeSync(fd);
+  }
 }
 
 function removeQuietly(path: string): void {

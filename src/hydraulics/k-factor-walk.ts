@@ -71,68 +71,87 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
   const stamp = new Int32Array(nA);
   const touchedRanks = new Int32Array(nA);
   const chainStamp = new Int32Array(nC);
-  const chainHeads: { index: number; e: Emitter }[][] = sk.chains.map(() => []);
+  // A chain's open heads, in order along it: how many, their interior indices and emitters (parallel lists,
+  // reused: their lengths only grow, since shortening an array gives its storage up).
+  const chainHeadCount = new Int32Array(nC);
+  const chainHeadIndex: number[][] = sk.chains.map(() => []);
+  const chainHeadEmitter: Emitter[][] = sk.chains.map(() => []);
+  const heads: Emitter[] = [];
+  let headCount = 0;
   let epoch = 0;
+  let touched = 0;
+  // Numbers that change per call live in a typed array: a number captured by these closures and reassigned
+  // would be boxed anew on every write. [0, 1]: the running join's pressure and flow; [2]: the one elevation
+  // of every node reached this call, once `levelSeen`.
+  const at = new Float64Array(3);
+  let levelSeen = false;
   /** a^x for a > 0 (exp and log: twice as fast as the power operator in V8). */
   const pow = (a: number, x: number) => Math.exp(x * Math.log(a));
-  /** The running (pressure, flow) of a join; `join` adds an input (p, q) to it: the higher pressure wins, the other
-   * side's flow is raised to it. */
-  let jp = 0;
-  let jq = 0;
+  /** Adds an input (p, q) to the running join (at[0], at[1]): the higher pressure wins, the other side's flow is
+   * raised to it. */
   const join = (p: number, q: number) => {
-    if (jq === 0) { jp = p; jq = q; } else if (p <= jp) jq += q * pow(jp / p, raiseExponent);
-    else { jq = jq * pow(p / jp, raiseExponent) + q; jp = p; }
+    const jp = at[0]!;
+    const jq = at[1]!;
+    if (jq === 0) { at[0] = p; at[1] = q; } else if (p <= jp) at[1] = jq + q * pow(jp / p, raiseExponent);
+    else { at[1] = jq * pow(p / jp, raiseExponent) + q; at[0] = p; }
   };
+  const atLevel = (h: number | null) => {
+    if (h === null) return true;
+    if (Number.isNaN(h)) return false;
+    if (!levelSeen) { at[2] = h; levelSeen = true; }
+    return Math.abs(h - at[2]!) <= 1e-9;
+  };
+  /** Marks the anchors from `from` to the source as reached this call; false where the elevations differ. */
+  const touch = (from: number): boolean => {
+    for (let v = from; v >= 0 && stamp[v] !== epoch; v = upAnchor[v]!) {
+      stamp[v] = epoch; P[v] = 0; Q[v] = 0; R[v] = 0; touchedRanks[touched++] = rank[v]!;
+      if (v !== sk.source && (!atLevel(anchorZ[v]!) || (upChain[v]! >= 0 && upAnchor[v] !== sk.source && !atLevel(chainZ[upChain[v]!]!)))) return false;
+      if (v !== sk.source && upAnchor[v] === sk.source && !atLevel(chainZ[upChain[v]!]!)) return false;
+    }
+    return true;
+  };
+  /** An anchor's pressure with the resistance still pending on its flow. */
+  const pressureAt = (v: number) => P[v]! + (R[v]! > 0 ? R[v]! * pow(Q[v]!, HW_EXPONENT) : 0);
+  /** Resistance of chain `c` between interior positions x and y (0 and length + 1 are its ends). */
+  const resistance = (c: number, x: number, y: number) => Math.abs(sk.chains[c]!.cumR[y]! - sk.chains[c]!.cumR[x]!);
   return {
     bound(headIds) {
       epoch++;
-      let touched = 0;
-      let level: number | null = null;
-      const atLevel = (h: number | null) => {
-        if (h === null) return true;
-        if (Number.isNaN(h)) return false;
-        if (level === null) level = h;
-        return Math.abs(h - level) <= 1e-9;
-      };
-      const touch = (from: number): boolean => {
-        for (let v = from; v >= 0 && stamp[v] !== epoch; v = upAnchor[v]!) {
-          stamp[v] = epoch; P[v] = 0; Q[v] = 0; R[v] = 0; touchedRanks[touched++] = rank[v]!;
-          if (v !== sk.source && (!atLevel(anchorZ[v]!) || (upChain[v]! >= 0 && upAnchor[v] !== sk.source && !atLevel(chainZ[upChain[v]!]!)))) return false;
-          if (v !== sk.source && upAnchor[v] === sk.source && !atLevel(chainZ[upChain[v]!]!)) return false;
-        }
-        return true;
-      };
-      const heads: Emitter[] = [];
+      touched = 0;
+      levelSeen = false;
+      headCount = 0;
       for (const id of headIds) {
         const e = emitterOf.get(id);
         if (!e) return null;
-        heads.push(e);
+        heads[headCount++] = e;
         const anchor = sk.anchorOf[e.node]!;
         if (anchor >= 0) { if (!touch(anchor)) return null; continue; }
         const c = sk.chainOf[e.node]!;
-        if (chainStamp[c] !== epoch) { chainStamp[c] = epoch; chainHeads[c]!.length = 0; }
+        const indices = chainHeadIndex[c]!;
+        const emitters = chainHeadEmitter[c]!;
+        if (chainStamp[c] !== epoch) { chainStamp[c] = epoch; chainHeadCount[c] = 0; }
         // Kept in order along the chain (a few heads: an insertion, no sort).
-        const list = chainHeads[c]!;
         const index = sk.indexInChain[e.node]!;
-        let at = list.length;
-        while (at > 0 && list[at - 1]!.index > index) at--;
-        list.splice(at, 0, { index, e });
+        let k = chainHeadCount[c]!++;
+        for (; k > 0 && indices[k - 1]! > index; k--) { indices[k] = indices[k - 1]!; emitters[k] = emitters[k - 1]!; }
+        indices[k] = index;
+        emitters[k] = e;
         // The chain's lower end: the anchor whose way to the source runs through it.
         const chain = sk.chains[c]!;
         if (!touch(upChain[chain.a] === c ? chain.a : chain.b)) return null;
       }
-      for (const e of heads) {
+      for (let h = 0; h < headCount; h++) {
+        const e = heads[h]!;
         const anchor = sk.anchorOf[e.node]!;
         if (anchor < 0) continue;
-        jp = P[anchor]!; jq = Q[anchor]!;
+        at[0] = P[anchor]!; at[1] = Q[anchor]!;
         join(e.required, e.k * Math.sqrt(e.required));
-        P[anchor] = jp; Q[anchor] = jq;
+        P[anchor] = at[0]!; Q[anchor] = at[1]!;
       }
       // Deepest first: in breadth-first order from the source, read backwards (typed sort, in place).
-      const ranks = touchedRanks.subarray(0, touched).sort();
-      const pressureAt = (v: number) => P[v]! + (R[v]! > 0 ? R[v]! * pow(Q[v]!, HW_EXPONENT) : 0);
+      touchedRanks.subarray(0, touched).sort();
       for (let x = touched - 1; x >= 0; x--) {
-        const v = order[ranks[x]!]!;
+        const v = order[touchedRanks[x]!]!;
         const u = upAnchor[v]!;
         if (u < 0) return { pressure: pressureAt(v), flow: Q[v]! };
         // Up the chain from v to u, joining its open heads on the way.
@@ -140,35 +159,37 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         const chain = sk.chains[c]!;
         const fromA = chain.a === v;
         const end = fromA ? chain.nodes.length + 1 : 0;
-        const rOf = (x: number, y: number) => Math.abs(chain.cumR[y]! - chain.cumR[x]!);
         const rise = PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
         let p: number;
         let q: number;
         let r: number;
         if (chainStamp[c] === epoch) {
           let pos = fromA ? 0 : chain.nodes.length + 1;
-          jp = Q[v]! > 0 ? pressureAt(v) : 0;
-          jq = Q[v]!;
-          const list = chainHeads[c]!;
-          for (let h = 0; h < list.length; h++) {
-            const { index, e } = list[fromA ? h : list.length - 1 - h]!;
-            if (jq > 0) jp += rOf(pos, index + 1) * pow(jq, HW_EXPONENT);
+          at[0] = Q[v]! > 0 ? pressureAt(v) : 0;
+          at[1] = Q[v]!;
+          const indices = chainHeadIndex[c]!;
+          const emitters = chainHeadEmitter[c]!;
+          const count = chainHeadCount[c]!;
+          for (let h = 0; h < count; h++) {
+            const k = fromA ? h : count - 1 - h;
+            const e = emitters[k]!;
+            if (at[1]! > 0) at[0] = at[0]! + resistance(c, pos, indices[k]! + 1) * pow(at[1]!, HW_EXPONENT);
             join(e.required, e.k * Math.sqrt(e.required));
-            pos = index + 1;
+            pos = indices[k]! + 1;
           }
-          p = jp + rise;
-          q = jq;
-          r = rOf(pos, end);
+          p = at[0]! + rise;
+          q = at[1]!;
+          r = resistance(c, pos, end);
         } else {
           p = P[v]! + rise;
           q = Q[v]!;
-          r = R[v]! + rOf(fromA ? 0 : chain.nodes.length + 1, end);
+          r = R[v]! + resistance(c, fromA ? 0 : chain.nodes.length + 1, end);
         }
         if (q === 0) continue;
         if (Q[u] === 0) { P[u] = p; Q[u] = q; R[u] = r; continue; }
-        jp = pressureAt(u); jq = Q[u]!;
+        at[0] = pressureAt(u); at[1] = Q[u]!;
         join(p + r * pow(q, HW_EXPONENT), q);
-        P[u] = jp; Q[u] = jq; R[u] = 0;
+        P[u] = at[0]!; Q[u] = at[1]!; R[u] = 0;
       }
       return null;
     },

@@ -10,9 +10,14 @@ import { formatGroups } from './dxf-format.js';
 import * as rec from './dxf-records.js';
 import { dxfStructure, type TableEntry, type TableInfo } from './dxf-structure.js';
 
-interface Splice { at: number; end: number; text: string }
+/** Bytes [at, end) of the original replaced by `bytes` (at = end: an insertion). */
+interface Splice { at: number; end: number; bytes: Uint8Array }
 
-export function annotateDxf(bytes: Uint8Array, version: string, units: LengthUnit, notes: Annotations): Uint8Array {
+/**
+ * The annotated drawing in pieces, to be written one after another: ranges of the original bytes (views, not
+ * copies) between the new bytes.
+ */
+export function annotateDxf(bytes: Uint8Array, version: string, units: LengthUnit, notes: Annotations): Uint8Array[] {
   const { sections, tables, blockNames, handseed, nextHandle } = dxfStructure(bytes);
   const eol = lineBreakOf(bytes);
   const modern = version >= 'AC1015';
@@ -24,7 +29,7 @@ export function annotateDxf(bytes: Uint8Array, version: string, units: LengthUni
   const put = (p: Point): Point => ({ x: p.x * perFoot, y: p.y * perFoot });
   const splices: Splice[] = [];
   const encode = (s: string) => encodeText(s, utf8);
-  const insertAt = (at: number, pairs: rec.Pairs) => splices.push({ at, end: at, text: encode(formatGroups(pairs, eol)) });
+  const insertAt = (at: number, pairs: rec.Pairs) => splices.push({ at, end: at, bytes: encode(formatGroups(pairs, eol)) });
 
   // Layers (in the LAYER table, or a new TABLES section if the drawing has none).
   const layerTable = tables.get('LAYER');
@@ -60,7 +65,7 @@ export function annotateDxf(bytes: Uint8Array, version: string, units: LengthUni
     ...rec.insert(ctx, notes.legend.layer, legendBlock, put(notes.legend.at)),
   ]);
 
-  if (handles && handseed) splices.push({ at: handseed.valueStart, end: handseed.valueEnd, text: handles.seed });
+  if (handles && handseed) splices.push({ at: handseed.valueStart, end: handseed.valueEnd, bytes: encode(handles.seed) });
   return applySplices(bytes, splices);
 }
 
@@ -76,15 +81,13 @@ function primitive(ctx: rec.RecordContext, p: Primitive, put: (p: Point) => Poin
 /** DXF text values are one line; control characters and the ^ escape are not wanted in labels. */
 const sanitize = (s: string) => s.replace(/[\r\n\t]+/g, ' ').replace(/\^/g, ' ');
 
-/** R2007 and later are UTF-8; older drawings take non-ASCII characters as \U+XXXX escapes. */
-function encodeText(s: string, utf8: boolean): string {
-  if (utf8) {
-    const b = new TextEncoder().encode(s);
-    let out = '';
-    for (const c of b) out += String.fromCharCode(c);
-    return out;
-  }
-  return s.replace(/[^\x00-\x7f]/g, (ch) => `\\U+${ch.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`);
+/** R2007 and later are UTF-8; older drawings take non-ASCII characters as \U+XXXX escapes (then all ASCII). */
+function encodeText(s: string, utf8: boolean): Uint8Array {
+  if (utf8) return new TextEncoder().encode(s);
+  const ascii = s.replace(/[^\x00-\x7f]/g, (ch) => `\\U+${ch.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`);
+  const out = new Uint8Array(ascii.length);
+  for (let i = 0; i < ascii.length; i++) out[i] = ascii.charCodeAt(i);
+  return out;
 }
 
 const nameOf = (entry: TableEntry) => entry.find((g) => g.code === 2)?.value;
@@ -100,11 +103,11 @@ function plotStyleOf(table: TableInfo): rec.Pairs {
   return (zero ?? []).filter((g) => g.code === 390 || g.code === 347).flatMap((g) => [g.code, g.value]);
 }
 
-function bumpCount(table: TableInfo, by: number, splices: Splice[], encode: (s: string) => string): void {
+function bumpCount(table: TableInfo, by: number, splices: Splice[], encode: (s: string) => Uint8Array): void {
   const g = table.count;
   if (!g || by === 0) return;
   const n = Number.parseInt(g.value, 10);
-  if (Number.isFinite(n)) splices.push({ at: g.valueStart, end: g.valueEnd, text: encode(String(n + by)) });
+  if (Number.isFinite(n)) splices.push({ at: g.valueStart, end: g.valueEnd, bytes: encode(String(n + by)) });
 }
 
 /** `base`, or `base-2`, `base-3`... when a block of that name (any case) exists. */
@@ -114,22 +117,14 @@ function uniqueName(base: string, taken: Set<string>): string {
   return name;
 }
 
-function applySplices(bytes: Uint8Array, splices: Splice[]): Uint8Array {
+function applySplices(bytes: Uint8Array, splices: Splice[]): Uint8Array[] {
   const sorted = [...splices].sort((a, b) => a.at - b.at);
   const parts: Uint8Array[] = [];
   let pos = 0;
-  let size = 0;
   for (const s of sorted) {
-    parts.push(bytes.subarray(pos, s.at));
-    const inserted = Uint8Array.from(s.text, (c) => c.charCodeAt(0));
-    parts.push(inserted);
-    size += s.at - pos + inserted.length;
+    parts.push(bytes.subarray(pos, s.at), s.bytes);
     pos = s.end;
   }
   parts.push(bytes.subarray(pos));
-  size += bytes.length - pos;
-  const out = new Uint8Array(size);
-  let o = 0;
-  for (const p of parts) { out.set(p, o); o += p.length; }
-  return out;
+  return parts;
 }

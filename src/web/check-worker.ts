@@ -1,7 +1,7 @@
 // The Web Worker of the local page: runs the same pure pipeline as the CLI on a dropped drawing and returns
 // the three outputs, byte-identical to what `headcheck check` writes for the same file name and config.
 
-import { annotatedDrawing, reportPage } from '../check/outputs.js';
+import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
 import { parseSettings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
@@ -10,7 +10,7 @@ import { InputError } from '../read/errors.js';
 export interface CheckRequest { bytes: ArrayBuffer; fileName: string; config: unknown; units: UnitSystem }
 export type CheckReply =
   | { type: 'progress'; stage: string }
-  | { type: 'done'; json: string; html: string; dxf: ArrayBuffer; layers: { name: string; counts: Record<string, number> }[]; summary: unknown }
+  | { type: 'done'; json: string; html: string; dxf: Blob; layers: { name: string; counts: Record<string, number> }[]; summary: unknown }
   | { type: 'error'; message: string };
 
 const worker = self as unknown as { onmessage: ((e: MessageEvent<CheckRequest>) => void) | null; postMessage(m: CheckReply, t?: Transferable[]): void };
@@ -25,12 +25,10 @@ worker.onmessage = async (e) => {
     const input = { bytes: data, fileName, sha256: hex(await crypto.subtle.digest('SHA-256', data)), settings, reportUnits: units };
     const result = runCheck({ ...input, onStage: (stage) => worker.postMessage({ type: 'progress', stage }) });
     worker.postMessage({ type: 'progress', stage: 'outputs' });
-    const dxf = annotatedDrawing(input, result);
-    const out = dxf.buffer.slice(dxf.byteOffset, dxf.byteOffset + dxf.byteLength) as ArrayBuffer;
     worker.postMessage({
-      type: 'done', json: `${JSON.stringify(result.report, null, 2)}\n`, html: reportPage(input, result), dxf: out,
+      type: 'done', json: reportJson(result), html: reportPage(input, result), dxf: new Blob(annotatedDrawing(input, result) as Uint8Array<ArrayBuffer>[]),
       layers: result.drawing.layers, summary: result.report.summary,
-    }, [out]);
+    });
   } catch (err) {
     worker.postMessage({ type: 'error', message: err instanceof InputError ? `${fileName}: ${err.message}` : `internal error: ${err instanceof Error ? err.message : String(err)}` });
   }
