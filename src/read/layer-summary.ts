@@ -2,7 +2,7 @@
 // counts by type, references to each symbol block, linework, outlines and points. Layer roles are guessed from it.
 
 import { fail } from './errors.js';
-import type { BlockEntry, EntityEntry, ScannedDxf } from './scan.js';
+import { CLOSED, PAPER_SPACE, type BlockEntry, type Rows, type ScannedDxf } from './scan.js';
 import { decodeUnicodeEscapes } from './text-codes.js';
 import type { LayerSummary } from './types.js';
 
@@ -21,7 +21,10 @@ export function blockLookup(scan: ScannedDxf): BlockLookup {
     exact.set(name, b);
     if (!upper.has(name.toUpperCase())) upper.set(name.toUpperCase(), b);
   }
-  const nesting = new Set(scan.blocks.filter((b) => b.entities.some((e) => e.type === 'INSERT')));
+  const nesting = new Set(scan.blocks.filter((b) => {
+    for (let i = b.rows.first; i < b.rows.end; i++) if (scan.names[scan.table.type[i]!] === 'INSERT') return true;
+    return false;
+  }));
   return {
     find: (name) => exact.get(name) ?? upper.get(name.toUpperCase()) ?? null,
     hasNestedRefs: (block) => nesting.has(block),
@@ -36,6 +39,12 @@ export function nameDecoder(): (raw: string) => string {
     if (name === undefined) known.set(raw, (name = decodeUnicodeEscapes(raw)));
     return name;
   };
+}
+
+/** Each row's layer name, \U+ escapes decoded (each distinct name once). */
+export function rowLayers(scan: ScannedDxf): (row: number) => string {
+  const decoded = scan.names.map(decodeUnicodeEscapes);
+  return (row) => { const k = scan.table.layer[row]!; return k < 0 ? '0' : decoded[k]!; };
 }
 
 /** The layer an entity counts on: its own, or the reference's for an entity on layer 0 inside a block. */
@@ -67,6 +76,8 @@ function addTally(into: Tally, from: Tally, times: number): void {
 export function summarizeLayers(scan: ScannedDxf, maxDepth: number): LayerSummary[] {
   const blocks = blockLookup(scan);
   const named = nameDecoder();
+  const layerOf = rowLayers(scan);
+  const { table, names } = scan;
   const memo = new Map<string, { tally: Tally; height: number }>();
   const open = new Set<BlockEntry>();
   /** One placement of `block` whose reference sits on layer `inherited`: its tally and nesting height. */
@@ -76,12 +87,12 @@ export function summarizeLayers(scan: ScannedDxf, maxDepth: number): LayerSummar
     if (known) return known;
     if (open.has(block)) fail(`block "${named(block.name)}" contains a reference to itself`);
     open.add(block);
-    const result = walk(block.entities, inherited);
+    const result = walk([block.rows], inherited);
     open.delete(block);
     memo.set(key, result);
     return result;
   };
-  const walk = (entities: EntityEntry[], inherited: string | null): { tally: Tally; height: number } => {
+  const walk = (runs: Rows[], inherited: string | null): { tally: Tally; height: number } => {
     const tally: Tally = new Map();
     const on = (layer: string) => {
       let t = tally.get(layer);
@@ -89,29 +100,31 @@ export function summarizeLayers(scan: ScannedDxf, maxDepth: number): LayerSummar
       return t;
     };
     let height = 0;
-    for (const e of entities) {
-      if ((inherited === null && e.paperSpace) || e.type === 'ATTDEF') continue;
-      const layer = effectiveLayer(named(e.layer), inherited);
+    for (const run of runs) for (let row = run.first; row < run.end; row++) {
+      const type = names[table.type[row]!]!;
+      if ((inherited === null && (table.flags[row]! & PAPER_SPACE)) || type === 'ATTDEF') continue;
+      const layer = effectiveLayer(layerOf(row), inherited);
       const s = on(layer);
-      s.counts[e.type] = (s.counts[e.type] ?? 0) + 1;
-      if (e.type === 'LINE' || e.type === 'ARC' || e.type === 'LWPOLYLINE' || e.type === 'POLYLINE') s.strokes++;
-      if (e.closed || e.type === 'CIRCLE') s.outlines++;
-      if (e.type === 'POINT') s.points++;
-      if (e.type !== 'INSERT' || e.block === null) continue;
-      const block = blocks.find(named(e.block));
+      s.counts[type] = (s.counts[type] ?? 0) + 1;
+      if (type === 'LINE' || type === 'ARC' || type === 'LWPOLYLINE' || type === 'POLYLINE') s.strokes++;
+      if ((table.flags[row]! & CLOSED) || type === 'CIRCLE') s.outlines++;
+      if (type === 'POINT') s.points++;
+      if (type !== 'INSERT' || table.block[row]! < 0) continue;
+      const block = blocks.find(named(names[table.block[row]!]!));
       if (!block) continue;
-      s.refs += e.copies;
+      const copies = table.copies[row]!;
+      s.refs += copies;
       if (!blocks.hasNestedRefs(block)) {
         const name = named(block.name);
-        s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + e.copies;
+        s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + copies;
       }
       const inner = placement(block, layer);
-      addTally(tally, inner.tally, e.copies);
+      addTally(tally, inner.tally, copies);
       height = Math.max(height, inner.height + 1);
     }
     return { tally, height };
   };
-  const top = walk(scan.entities, null);
+  const top = walk(scan.modelSpace, null);
   if (top.height > maxDepth) fail(`block nesting deeper than ${maxDepth} levels (inputLimits.blockDepth)`);
   const layers = top.tally;
   for (const raw of scan.layerNames) {

@@ -5,23 +5,36 @@ import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../config/settings.js';
 import { fail, InputError } from './errors.js';
 import { GroupCursor } from './groups.js';
 
-/** One entity with the ATTRIB, VERTEX and SEQEND records that belong to it. */
-export interface EntityEntry {
-  type: string;
-  /** Layer name as written (\U+ escapes not yet decoded); "0" when none is given. */
-  layer: string;
+/**
+ * The scanned entities, one row each with the ATTRIB, VERTEX and SEQEND records that belong to it, in columns
+ * of typed arrays: a drawing's background of hundreds of thousands of entities puts no object on the JS heap.
+ */
+export interface EntityTable {
+  count: number;
+  /** Index into `names` of its type, and of its layer as written (\U+ escapes not yet decoded; -1: none given, layer "0"). */
+  type: Int32Array;
+  layer: Int32Array;
+  /** INSERT: index into `names` of the block name (-1: none), and how many copies a MINSERT array places. */
+  block: Int32Array;
+  copies: Float64Array;
+  /** CLOSED and PAPER_SPACE bits. */
+  flags: Uint8Array;
   /** Byte range of the entity and its trailing records. */
-  start: number;
-  end: number;
-  /** INSERT: the block name, and how many copies a MINSERT array places (columns × rows). */
-  block: string | null;
-  copies: number;
-  /** Closed LWPOLYLINE or POLYLINE. */
-  closed: boolean;
-  paperSpace: boolean;
+  start: Float64Array;
+  end: Float64Array;
   /** TEXT and MTEXT: byte range of the value as written (MTEXT: its last chunk, group 1); -1 for other entities. */
-  textStart: number;
-  textEnd: number;
+  textStart: Float64Array;
+  textEnd: Float64Array;
+}
+
+/** Closed LWPOLYLINE or POLYLINE. */
+export const CLOSED = 1;
+export const PAPER_SPACE = 2;
+
+/** Rows [first, end) of the entity table. */
+export interface Rows {
+  first: number;
+  end: number;
 }
 
 export interface BlockEntry {
@@ -29,7 +42,8 @@ export interface BlockEntry {
   /** Byte range from its BLOCK record to the end of its ENDBLK record. */
   start: number;
   end: number;
-  entities: EntityEntry[];
+  /** Its entities' rows. */
+  rows: Rows;
 }
 
 export interface Section {
@@ -43,8 +57,27 @@ export interface ScannedDxf {
   sections: Section[];
   /** Layer names of the LAYER table. */
   layerNames: string[];
+  /** Each distinct type, layer and block name, as the entity table refers to them. */
+  names: string[];
+  table: EntityTable;
   blocks: BlockEntry[];
-  entities: EntityEntry[];
+  /** Model-space rows: one run per ENTITIES section. */
+  modelSpace: Rows[];
+}
+
+function tableWithRoom(capacity: number, from?: EntityTable): EntityTable {
+  const grow = <T extends Int32Array | Float64Array | Uint8Array>(make: new (n: number) => T, old: T | undefined): T => {
+    const t = new make(capacity);
+    if (old) t.set(old);
+    return t;
+  };
+  return {
+    count: from?.count ?? 0,
+    type: grow(Int32Array, from?.type), layer: grow(Int32Array, from?.layer), block: grow(Int32Array, from?.block),
+    copies: grow(Float64Array, from?.copies), flags: grow(Uint8Array, from?.flags),
+    start: grow(Float64Array, from?.start), end: grow(Float64Array, from?.end),
+    textStart: grow(Float64Array, from?.textStart), textEnd: grow(Float64Array, from?.textEnd),
+  };
 }
 
 /** Text of a byte range in the drawing's encoding. */
@@ -67,53 +100,70 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     }
     return true;
   };
-  // Entity types, layer and block names repeat across a drawing: each distinct name is decoded once, found
-  // again by a hash of its bytes (no string made per entity).
-  const names = new Map<number, { start: number; end: number; name: string }[]>();
-  const sharedName = () => {
+  // Entity types, layer and block names repeat across a drawing: each distinct name is decoded once and
+  // numbered, found again by a hash of its bytes (no string made per entity).
+  const names: string[] = [];
+  const byHash = new Map<number, { start: number; end: number; index: number }[]>();
+  const nameIndex = (): number => {
     const { valueStart: s, valueEnd: e } = c;
     let h = e - s;
     for (let i = s; i < e; i++) h = (Math.imul(h, 31) + bytes[i]!) | 0;
-    let bucket = names.get(h);
-    if (!bucket) names.set(h, (bucket = []));
-    for (const k of bucket) if (sameBytes(bytes, k.start, k.end, s, e)) return k.name;
-    const name = decode(bytes.subarray(s, e));
-    bucket.push({ start: s, end: e, name });
-    return name;
+    let bucket = byHash.get(h);
+    if (!bucket) byHash.set(h, (bucket = []));
+    for (const k of bucket) if (sameBytes(bytes, k.start, k.end, s, e)) return k.index;
+    bucket.push({ start: s, end: e, index: names.length });
+    names.push(decode(bytes.subarray(s, e)));
+    return names.length - 1;
   };
+  const sharedName = () => names[nameIndex()]!;
   const value = () => c.latin1();
   /** The current code (a call, so that TypeScript does not narrow it across `next`). */
   const codeIs = (n: number) => c.code === n;
   const valueIs = (word: string) => c.valueIs(word);
 
-  const out: ScannedDxf = { sections: [], layerNames: [], blocks: [], entities: [] };
+  let table = tableWithRoom(1024);
+  const out: Omit<ScannedDxf, 'names' | 'table'> = { sections: [], layerNames: [], blocks: [], modelSpace: [] };
   let more = next();
-  /** Reads one entity whose "0 TYPE" group is current, with its trailing records; leaves the next code 0 current. */
-  let entityCount = 0;
-  const readEntity = (): EntityEntry => {
-    if (++entityCount > limits.entities) fail(`more than ${limits.entities} entities (inputLimits.entities)`);
-    const e: EntityEntry = { type: sharedName(), layer: '0', start: c.start, end: 0, block: null, copies: 1, closed: false, paperSpace: false, textStart: -1, textEnd: -1 };
-    const isInsert = e.type === 'INSERT';
-    const isText = e.type === 'TEXT' || e.type === 'MTEXT';
-    const isPolyline = e.type === 'LWPOLYLINE' || e.type === 'POLYLINE';
+  /** Reads one entity whose "0 TYPE" group is current, with its trailing records, into the next row; leaves the next code 0 current. */
+  const readEntity = (): void => {
+    const row = table.count;
+    if (row >= limits.entities) fail(`more than ${limits.entities} entities (inputLimits.entities)`);
+    if (row === table.type.length) table = tableWithRoom(2 * row, table);
+    const typeIndex = nameIndex();
+    const type = names[typeIndex]!;
+    const isInsert = type === 'INSERT';
+    const isText = type === 'TEXT' || type === 'MTEXT';
+    const isPolyline = type === 'LWPOLYLINE' || type === 'POLYLINE';
+    table.type[row] = typeIndex;
+    table.start[row] = c.start;
+    let layer = -1;
+    let block = -1;
+    let flags = 0;
+    let textStart = -1;
+    let textEnd = -1;
     let columns = 1;
     let rows = 1;
     while ((more = next()) && c.code !== 0) {
-      if (c.code === 8) e.layer = sharedName();
-      else if (c.code === 67) e.paperSpace = value() === '1';
-      else if (isInsert && c.code === 2) e.block = sharedName();
+      if (c.code === 8) layer = nameIndex();
+      else if (c.code === 67) flags = value() === '1' ? flags | PAPER_SPACE : flags & ~PAPER_SPACE;
+      else if (isInsert && c.code === 2) block = nameIndex();
       else if (isInsert && c.code === 70) columns = Math.max(1, Math.floor(Number(value())) || 1);
       else if (isInsert && c.code === 71) rows = Math.max(1, Math.floor(Number(value())) || 1);
-      else if (isPolyline && c.code === 70) e.closed = (Number(value()) & 1) === 1;
-      else if (isText && c.code === 1) { e.textStart = c.valueStart; e.textEnd = c.valueEnd; }
+      else if (isPolyline && c.code === 70) flags = (Number(value()) & 1) === 1 ? flags | CLOSED : flags & ~CLOSED;
+      else if (isText && c.code === 1) { textStart = c.valueStart; textEnd = c.valueEnd; }
     }
     // Trailing records (they continue the entity rather than start one) up to the next entity or the end of the section or block.
     while (more && c.code === 0 && (valueIs('ATTRIB') || valueIs('VERTEX') || valueIs('SEQEND'))) {
       while ((more = next()) && c.code !== 0);
     }
-    e.copies = columns * rows;
-    e.end = more ? c.start : bytes.length;
-    return e;
+    table.layer[row] = layer;
+    table.block[row] = block;
+    table.copies[row] = columns * rows;
+    table.flags[row] = flags;
+    table.textStart[row] = textStart;
+    table.textEnd[row] = textEnd;
+    table.end[row] = more ? c.start : bytes.length;
+    table.count = row + 1;
   };
   /** Inside section `name`: true until its ENDSEC; another section or the file's end before it is damage. */
   const within = (name: string) => {
@@ -131,21 +181,25 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     const name = codeIs(2) ? value().toUpperCase() : '';
     if (codeIs(2)) more = next();
     if (name === 'ENTITIES' || name === 'BLOCKS') {
+      const model: Rows = { first: table.count, end: table.count };
       while (within(name)) {
         if (c.code !== 0) { more = next(); continue; }
         if (name === 'BLOCKS' && valueIs('BLOCK')) {
-          const block: BlockEntry = { name: '', start: c.start, end: 0, entities: [] };
+          const block: BlockEntry = { name: '', start: c.start, end: 0, rows: { first: table.count, end: table.count } };
           while ((more = next()) && c.code !== 0) if (c.code === 2 || (c.code === 3 && !block.name)) block.name = sharedName();
-          while (more && c.code === 0 && !valueIs('ENDBLK') && !valueIs('ENDSEC') && !valueIs('SECTION') && !valueIs('EOF')) block.entities.push(readEntity());
+          while (more && c.code === 0 && !valueIs('ENDBLK') && !valueIs('ENDSEC') && !valueIs('SECTION') && !valueIs('EOF')) readEntity();
+          block.rows.end = table.count;
           if (more && valueIs('ENDBLK')) while ((more = next()) && c.code !== 0);
           block.end = more ? c.start : bytes.length;
           out.blocks.push(block);
         } else if (name === 'ENTITIES') {
-          out.entities.push(readEntity());
+          readEntity();
         } else {
           more = next();
         }
       }
+      model.end = table.count;
+      if (name === 'ENTITIES') out.modelSpace.push(model);
     } else if (name === 'TABLES') {
       while (within(name)) {
         const isLayer = c.code === 0 && valueIs('LAYER');
@@ -160,7 +214,7 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     more = next();
     out.sections.push({ name, start, end: more ? c.start : bytes.length });
   }
-  return out;
+  return { ...out, names, table };
 }
 
 function sameBytes(b: Uint8Array, s1: number, e1: number, s2: number, e2: number): boolean {

@@ -2,8 +2,8 @@
 // may be size labels, references whose blocks reach either, and the blocks they use. Only this text is decoded
 // and parsed, so a plan's architectural background costs a scan, not a parse.
 
-import { blockLookup, effectiveLayer, nameDecoder } from './layer-summary.js';
-import type { BlockEntry, Decode, EntityEntry, ScannedDxf } from './scan.js';
+import { blockLookup, effectiveLayer, nameDecoder, rowLayers } from './layer-summary.js';
+import { PAPER_SPACE, type BlockEntry, type Decode, type ScannedDxf } from './scan.js';
 
 export interface Wanted {
   /** Layers whose every entity is read. */
@@ -21,13 +21,16 @@ const isText = (type: string) => type === 'TEXT' || type === 'MTEXT';
 export function selectedText(bytes: Uint8Array, scan: ScannedDxf, wanted: Wanted, decode: Decode): string {
   const blocks = blockLookup(scan);
   const named = nameDecoder();
+  const layerOf = rowLayers(scan);
+  const { table, names } = scan;
   const reachMemo = new Map<string, boolean>();
   const open = new Set<BlockEntry>();
-  const blockOf = (e: EntityEntry) => (e.type === 'INSERT' && e.block !== null ? blocks.find(named(e.block)) : null);
-  const wants = (e: EntityEntry, inherited: string | null): boolean => {
-    const layer = effectiveLayer(named(e.layer), inherited);
-    if (wanted.layer(layer) || (isText(e.type) && wanted.label(layer, decode(bytes.subarray(e.textStart, e.textEnd))))) return true;
-    const block = blockOf(e);
+  const blockOf = (row: number) => (names[table.type[row]!] === 'INSERT' && table.block[row]! >= 0 ? blocks.find(named(names[table.block[row]!]!)) : null);
+  const wants = (row: number, inherited: string | null): boolean => {
+    const layer = effectiveLayer(layerOf(row), inherited);
+    if (wanted.layer(layer)) return true;
+    if (isText(names[table.type[row]!]!) && wanted.label(layer, decode(bytes.subarray(table.textStart[row]!, table.textEnd[row]!)))) return true;
+    const block = blockOf(row);
     return block !== null && reaches(block, layer);
   };
   /** Whether a placement of `block` on layer `inherited` holds anything wanted. */
@@ -37,20 +40,22 @@ export function selectedText(bytes: Uint8Array, scan: ScannedDxf, wanted: Wanted
     if (known !== undefined) return known;
     if (open.has(block)) return false; // a cycle, reported by the layer summary
     open.add(block);
-    const result = block.entities.some((e) => wants(e, inherited));
+    let result = false;
+    for (let row = block.rows.first; row < block.rows.end && !result; row++) result = wants(row, inherited);
     open.delete(block);
     reachMemo.set(key, result);
     return result;
   };
-  const entities = scan.entities.filter((e) => !e.paperSpace && wants(e, null));
+  const chosen: number[] = [];
+  for (const run of scan.modelSpace) for (let row = run.first; row < run.end; row++) if (!(table.flags[row]! & PAPER_SPACE) && wants(row, null)) chosen.push(row);
   // Whole definitions of the blocks the chosen references use, nested ones included.
   const used = new Set<BlockEntry>();
-  const stack = entities.map(blockOf).filter((b): b is BlockEntry => b !== null);
+  const stack = chosen.map(blockOf).filter((b): b is BlockEntry => b !== null);
   while (stack.length) {
     const b = stack.pop()!;
     if (used.has(b)) continue;
     used.add(b);
-    for (const e of b.entities) { const inner = blockOf(e); if (inner) stack.push(inner); }
+    for (let row = b.rows.first; row < b.rows.end; row++) { const inner = blockOf(row); if (inner) stack.push(inner); }
   }
   const header = scan.sections.find((s) => s.name === 'HEADER');
   const parts: Uint8Array[] = [];
@@ -64,7 +69,7 @@ export function selectedText(bytes: Uint8Array, scan: ScannedDxf, wanted: Wanted
   ascii('  0\nSECTION\n  2\nBLOCKS\n');
   for (const b of scan.blocks) if (used.has(b)) piece(b.start, b.end);
   ascii('  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n');
-  for (const e of entities) piece(e.start, e.end);
+  for (const row of chosen) piece(table.start[row]!, table.end[row]!);
   ascii('  0\nENDSEC\n  0\nEOF\n');
   const joined = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
   let at = 0;
