@@ -1,0 +1,49 @@
+// Atomic writes of the outputs: all files or none, each made only when its turn comes, pieces written in
+// order; and an input read as a view of the file's bytes.
+
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { InputError } from '../read/errors.js';
+import { readInputFile, writeAllAtomically } from './files.js';
+
+const folder = () => mkdtempSync(join(tmpdir(), 'headcheck-files-'));
+const ascii = (s: string) => new TextEncoder().encode(s);
+
+describe('writeAllAtomically', () => {
+  it('writes text as UTF-8, bytes as they are, and pieces one after another', () => {
+    const dir = folder();
+    writeAllAtomically([
+      { path: join(dir, 'a.txt'), data: 'Ø 2½"' },
+      { path: join(dir, 'b.dxf'), data: () => [ascii('  0\n'), ascii('SECTION\n'), new Uint8Array(0), ascii('  0\nEOF\n')] },
+    ]);
+    // The expected bytes are UTF-8 of the text (Unicode: Ø U+00D8 is C3 98, ½ U+00BD is C2 BD).
+    expect([...readFileSync(join(dir, 'a.txt'))]).toEqual([0xc3, 0x98, 0x20, 0x32, 0xc2, 0xbd, 0x22]);
+    expect(readFileSync(join(dir, 'b.dxf'), 'latin1')).toBe('  0\nSECTION\n  0\nEOF\n');
+    expect(readdirSync(dir).sort()).toEqual(['a.txt', 'b.dxf']);
+  });
+
+  it('leaves no file, finished or temporary, when making a later output fails, and passes its error on', () => {
+    const dir = folder();
+    const made: string[] = [];
+    expect(() => writeAllAtomically([
+      { path: join(dir, 'report.json'), data: () => { made.push('json'); return '{}\n'; } },
+      { path: join(dir, 'plan.dxf'), data: () => { throw new InputError('the drawing has no ENTITIES section'); } },
+      { path: join(dir, 'report.html'), data: () => { made.push('html'); return '<p>'; } },
+    ])).toThrow(/^the drawing has no ENTITIES section$/);
+    expect(made).toEqual(['json']); // the HTML was never made
+    expect(readdirSync(dir)).toEqual([]);
+  });
+});
+
+describe('readInputFile', () => {
+  it('reads the whole file, the same bytes', () => {
+    const dir = folder();
+    const content = new Uint8Array(100_000).map((_, i) => (i * 7) & 0xff);
+    writeFileSync(join(dir, 'big.dxf'), content);
+    const read = readInputFile(join(dir, 'big.dxf'), 1);
+    expect(read.length).toBe(content.length);
+    expect(Buffer.compare(Buffer.from(read), Buffer.from(content))).toBe(0);
+  });
+});

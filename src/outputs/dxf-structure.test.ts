@@ -1,0 +1,60 @@
+// Where the annotator's additions go, found in one walk: sections, tables and their entries, block names,
+// $HANDSEED and the next free handle (a stale seed is not trusted; handles beyond 2^53 stay exact).
+// Expected values are worked by hand from the DXF rules (from memory: DXF reference, $HANDSEED holds the next
+// available handle; handles are hexadecimal strings of up to 16 digits).
+
+import { describe, expect, it } from 'vitest';
+import { dxfStructure } from './dxf-structure.js';
+
+const dxf = (...pairs: (string | number)[]) => {
+  let s = '';
+  for (let i = 0; i < pairs.length; i += 2) s += `${String(pairs[i]).padStart(3)}\n${pairs[i + 1]}\n`;
+  return new TextEncoder().encode(s);
+};
+
+const header = (seed: string) => [0, 'SECTION', 2, 'HEADER', 9, '$ACADVER', 1, 'AC1015', 9, '$HANDSEED', 5, seed, 0, 'ENDSEC'];
+const tables = [
+  0, 'SECTION', 2, 'TABLES',
+  0, 'TABLE', 2, 'LAYER', 5, '2', 70, 2,
+  0, 'LAYER', 5, '10', 2, '0', 70, 0, 390, 'F',
+  0, 'LAYER', 5, '11', 2, 'fp-pipe', 70, 0,
+  0, 'ENDTAB', 0, 'ENDSEC',
+];
+const blocks = [0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 5, '20', 8, '0', 2, 'Head', 70, 0, 0, 'ENDBLK', 5, '21', 0, 'ENDSEC'];
+
+describe('dxfStructure', () => {
+  it('finds the sections, the LAYER table with its count and entries, and the block names', () => {
+    const bytes = dxf(...header('30'), ...tables, ...blocks, 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 5, '22', 8, 'FP-PIPE', 0, 'ENDSEC', 0, 'EOF');
+    const s = dxfStructure(bytes);
+    expect([...s.sections.keys()]).toEqual(['HEADER', 'TABLES', 'BLOCKS', 'ENTITIES']);
+    const text = new TextDecoder().decode(bytes);
+    expect(text.slice(s.sections.get('ENTITIES')!.endsec)).toBe('  0\nENDSEC\n  0\nEOF\n');
+    const layer = s.tables.get('LAYER')!;
+    expect(layer.handle).toBe('2');
+    expect(layer.count?.value).toBe('2');
+    expect(text.slice(layer.count!.valueStart, layer.count!.valueEnd)).toBe('2');
+    expect([...layer.names]).toEqual(['0', 'FP-PIPE']);
+    expect(layer.entries[0]).toContainEqual({ code: 390, value: 'F' });
+    expect(text.slice(layer.endTab).startsWith('  0\nENDTAB\n')).toBe(true);
+    expect([...s.blockNames]).toEqual(['HEAD']);
+    expect(s.handseed?.value).toBe('30');
+    expect(s.nextHandle).toBe(0x30n); // the seed is above every handle in use (0x22)
+  });
+
+  it('does not trust a stale seed: the next handle is above the highest in use', () => {
+    const s = dxfStructure(dxf(...header('5'), ...blocks, 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 5, 'A0', 0, 'ENDSEC', 0, 'EOF'));
+    expect(s.nextHandle).toBe(0xa1n);
+  });
+
+  it('keeps handles of 16 hex digits exact (beyond 2^53)', () => {
+    const s = dxfStructure(dxf(...header('1'), 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 5, 'FFFFFFFFFFFFFFF0', 0, 'ENDSEC', 0, 'EOF'));
+    expect(s.nextHandle).toBe(0xfffffffffffffff1n);
+  });
+
+  it('gives no handles to a drawing whose entities have none, and skips the byte order mark', () => {
+    const plain = dxf(0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, '0', 0, 'ENDSEC', 0, 'EOF');
+    const s = dxfStructure(new Uint8Array([0xef, 0xbb, 0xbf, ...plain]));
+    expect(s.nextHandle).toBeNull();
+    expect([...s.sections.keys()]).toEqual(['ENTITIES']);
+  });
+});
