@@ -110,6 +110,7 @@ function findingLabel(f: Finding, fmt: Formatter): string {
       case 'area': return fmt.area(v);
       case 'pressure': return fmt.pressure(v);
       case 'flow': return fmt.flow(v);
+      case 'kFactor': return fmt.kFactor(v);
       default: return String(Math.round(v * 100) / 100);
     }
   };

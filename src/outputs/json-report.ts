@@ -119,6 +119,7 @@ export function buildReport(r: ReportInput): Report {
       case 'area': return round(c.area(v));
       case 'flow': return round(c.flow(v));
       case 'pressure': return round(c.pressure(v));
+      case 'kFactor': return round(c.kFactor(v));
       default: return round(v);
     }
   };

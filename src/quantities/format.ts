@@ -12,6 +12,7 @@ export interface Formatter {
   flow(gpm: number): string;
   pressure(psi: number): string;
   density(gpmPerFt2: number): string;
+  kFactor(kUs: number): string;
 }
 
 export function formatterFor(system: UnitSystem): Formatter {
@@ -26,5 +27,6 @@ export function formatterFor(system: UnitSystem): Formatter {
     flow: (v) => `${c.flow(v).toFixed(1)} ${u.flow}`,
     pressure: (v) => `${c.pressure(v).toFixed(system === 'us' ? 1 : 3)} ${u.pressure}`,
     density: (v) => (system === 'us' ? `${v.toFixed(2)} gpm/ft²` : `${c.density(v).toFixed(2)} mm/min`),
+    kFactor: (v) => (system === 'us' ? `K ${v.toFixed(1)} gpm/psi½` : `K ${c.kFactor(v).toFixed(1)} L/min/bar½`),
   };
 }

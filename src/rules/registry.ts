@@ -7,6 +7,7 @@ import { designAreaNotRemote } from './design-area-not-remote.js';
 import { designAreaSize } from './design-area-size.js';
 import { headDistanceMin } from './head-distance-min.js';
 import { headDuplicate } from './head-duplicate.js';
+import { headKFactor } from './head-k-factor.js';
 import { headOutsideRoom } from './head-outside-room.js';
 import { headSpacingMax } from './head-spacing-max.js';
 import { headTypeUnchecked } from './head-type-unchecked.js';
@@ -24,7 +25,7 @@ import { wallDistanceMin } from './wall-distance-min.js';
 
 export const RULES: readonly Rule[] = [
   sourceUnattached, headUnattached, networkDisconnected, protectionArea, headSpacingMax, lineSpacingMax,
-  wallDistanceMax, wallDistanceMin, headDistanceMin, headDuplicate, headOutsideRoom, headTypeUnchecked, designAreaSize, designAreaLength,
+  wallDistanceMax, wallDistanceMin, headDistanceMin, headDuplicate, headOutsideRoom, headTypeUnchecked, headKFactor, designAreaSize, designAreaLength,
   designAreaNotRemote, supplyShort, designAreaMissing, pipeSizeDefaulted, networkTopology,
 ];
 

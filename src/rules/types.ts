@@ -13,7 +13,7 @@ import type { Walls } from './walls.js';
 
 export type Severity = 'error' | 'warning' | 'info';
 /** The physical quantity of a finding's measured/limit values, so reports can convert them. */
-export type Quantity = 'length' | 'area' | 'flow' | 'pressure' | 'count' | 'none';
+export type Quantity = 'length' | 'area' | 'flow' | 'pressure' | 'kFactor' | 'count' | 'none';
 
 export interface Finding {
   rule: string;
