@@ -144,4 +144,15 @@ describe('design-area findings', () => {
     expect(best.hydraulics!.margin).toBeLessThan(0);
     expect(best.hydraulics!.totalDemand).toBeCloseTo(best.hydraulics!.sourceFlow + 250, 3);
   });
+
+  it('a supply that runs dry before the demand gives 0, not a negative pressure, and the finding says where it runs dry', () => {
+    // 40 static, 30 at 100 gpm reaches zero at 100·4^(1/1.85) = 211.6 gpm (NFPA 291 form; Python's math module),
+    // below the 250 gpm hose allowance alone (OH2: NFPA 13 (2019 edition), Table 19.3.3.1.2, from memory).
+    const r = checkLayout({ s: 12, l: 10, heads: 8, lines: 6 }, { design: { hazard: 'OH2', density: 0.2, area: 1500 }, supply: { static: 40, residual: 30, flow: 100 } });
+    const best = r.report.designAreas.find((a) => a.rank === 'most-demanding')!;
+    expect(best.hydraulics!.supplyAvailable).toBe(0);
+    expect(best.hydraulics!.margin).toBeCloseTo(-best.hydraulics!.sourcePressure, 2);
+    const short = findingsOf(r, 'supply-short').find((f) => f.message.startsWith('the most demanding area'))!;
+    expect(short.message).toMatch(/the supply gives 0\.0 psi \(its flow test reaches zero pressure at 211\.6 gpm\)/);
+  });
 });

@@ -9,7 +9,7 @@ import { calculateArea } from './calculate.js';
 import { frictionPsiPerFt, resistance } from './hazen-williams.js';
 import { buildModel, type HydraulicModel } from './model.js';
 import { NetworkSolver } from './solver.js';
-import { availablePressure } from './water-supply.js';
+import { availablePressure, flowAtZeroPressure } from './water-supply.js';
 
 const onePipe = (): HydraulicModel => ({
   nodes: [{ id: 'S', elevation: 0 }, { id: 'H', elevation: 0 }],
@@ -28,6 +28,14 @@ describe('Hazen-Williams and the supply curve', () => {
   it('a flow test 80 static / 60 residual at 1000 gpm leaves 80 − 20·0.5^1.85 = 74.45 psi at 500 gpm (NFPA 291 form, confirmed)', () => {
     expect(availablePressure({ static: 80, residual: 60, flow: 1000 }, 500)).toBeCloseTo(80 - 20 * 0.5 ** 1.85, 9);
     expect(availablePressure({ static: 80, residual: 60, flow: 1000 }, 1000)).toBeCloseTo(60, 9);
+  });
+  it('the same test reaches zero at 1000·4^(1/1.85) = 2115.6 gpm and gives nothing beyond (a supply cannot give negative pressure)', () => {
+    const test = { static: 80, residual: 60, flow: 1000 };
+    // 80 − 20·(Q/1000)^1.85 = 0 ⇔ Q = 1000·(80/20)^(1/1.85), evaluated with Python's math module: 2115.62
+    expect(flowAtZeroPressure(test)).toBeCloseTo(2115.62, 1);
+    expect(availablePressure(test, 2115.62)).toBeCloseTo(0, 2);
+    expect(availablePressure(test, 3000)).toBe(0);
+    expect(flowAtZeroPressure({ static: 60, residual: 60, flow: 500 })).toBe(Number.POSITIVE_INFINITY);
   });
 });
 

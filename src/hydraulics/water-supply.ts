@@ -3,6 +3,13 @@
 
 export interface FlowTest { static: number; residual: number; flow: number }
 
+/** Pressure the supply gives at a flow: the NFPA 291 line, and nothing beyond where it reaches zero. */
 export function availablePressure(test: FlowTest, flowGpm: number): number {
-  return test.static - (test.static - test.residual) * (Math.max(0, flowGpm) / test.flow) ** 1.85;
+  return Math.max(0, test.static - (test.static - test.residual) * (Math.max(0, flowGpm) / test.flow) ** 1.85);
+}
+
+/** The flow at which the supply's line reaches zero pressure (Infinity for a test without pressure drop). */
+export function flowAtZeroPressure(test: FlowTest): number {
+  const drop = test.static - test.residual;
+  return drop > 0 ? test.flow * (test.static / drop) ** (1 / 1.85) : Number.POSITIVE_INFINITY;
 }

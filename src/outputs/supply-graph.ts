@@ -1,7 +1,7 @@
 // The water-supply graph of the report as inline SVG: pressure against flow on the customary Q^1.85
 // abscissa, where a flow-test supply is a straight line; each design area's demand with and without hose.
 
-import { availablePressure, type FlowTest } from '../hydraulics/water-supply.js';
+import { availablePressure, flowAtZeroPressure, type FlowTest } from '../hydraulics/water-supply.js';
 import type { Converter, ReportUnits } from '../quantities/convert.js';
 import { escapeHtml as esc } from './html-escape.js';
 
@@ -37,7 +37,7 @@ export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[]
   parts.push(`<text transform="translate(14 ${T + ph / 2}) rotate(-90)" text-anchor="middle">pressure (${esc(u.pressure)})</text>`);
   if (supply) {
     // Straight on this abscissa: from the static pressure at no flow to where the line meets zero or the edge.
-    const qEnd = Math.min(qMax, supply.flow * (supply.static / (supply.static - supply.residual)) ** (1 / 1.85));
+    const qEnd = Math.min(qMax, flowAtZeroPressure(supply));
     parts.push(`<line class="supply" x1="${x(0).toFixed(1)}" y1="${y(supply.static).toFixed(1)}" x2="${x(qEnd).toFixed(1)}" y2="${y(availablePressure(supply, qEnd)).toFixed(1)}"><title>supply: ${c.pressure(supply.static).toFixed(2)} static, ${c.pressure(supply.residual).toFixed(2)} at ${c.flow(supply.flow).toFixed(0)}</title></line>`);
     parts.push(`<circle class="test" cx="${x(supply.flow).toFixed(1)}" cy="${y(supply.residual).toFixed(1)}" r="3.5" fill="#1f6fd1"/>`);
   }

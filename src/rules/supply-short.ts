@@ -1,6 +1,7 @@
 // Rule supply-short: the water supply (flow test) must cover each design area's demand — source pressure
 // at the design flow plus the hose allowance; a margin under 10 psi is a warning (common practice).
 
+import { flowAtZeroPressure } from '../hydraulics/water-supply.js';
 import { finding, type Rule } from './types.js';
 
 /** Customary safety margin between supply and demand, psi (common practice: several psi, often 10). */
@@ -19,7 +20,8 @@ export const supplyShort: Rule = {
     return design.areas.filter((a) => a.hydraulics && a.hydraulics.margin !== null).flatMap((a) => {
       const h = a.hydraulics!;
       const what = a.source === 'drawn' ? 'the drawn design area' : a.rank === 'runner-up' ? 'the runner-up area' : 'the most demanding area';
-      const text = `${what} needs ${fmt.pressure(h.sourcePressure)} at ${fmt.flow(h.totalDemand)} with hose streams; the supply gives ${fmt.pressure(h.supplyAvailable!)}`;
+      const dry = h.supplyAvailable === 0 ? ` (its flow test reaches zero pressure at ${fmt.flow(flowAtZeroPressure(settings.supply!))})` : '';
+      const text = `${what} needs ${fmt.pressure(h.sourcePressure)} at ${fmt.flow(h.totalDemand)} with hose streams; the supply gives ${fmt.pressure(h.supplyAvailable!)}${dry}`;
       if (h.margin! < 0) {
         return [finding(this.meta, { message: `${text}: short by ${fmt.pressure(-h.margin!)}`, handles: a.handle ? [a.handle] : [], at: a.outline[0]!, measured: h.sourcePressure, limit: h.supplyAvailable, quantity: 'pressure' })];
       }
