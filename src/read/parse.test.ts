@@ -71,6 +71,18 @@ describe('damaged structure', () => {
     expect(parseAll(text).entities).toHaveLength(1);
   });
 
+  it('layer names whose bytes hash alike stay distinct, beyond what one hash keeps', () => {
+    // "Aa" and "BB" hash alike under h·31 + byte (65·31 + 97 = 66·31 + 66), so any mix of 6 such pairs gives
+    // 64 names of one hash: a file could be built to make every name collide.
+    const layers = Array.from({ length: 64 }, (_, k) => Array.from({ length: 6 }, (_, bit) => ((k >> bit) & 1 ? 'Aa' : 'BB')).join(''));
+    const text = dxf(0, 'SECTION', 2, 'ENTITIES', ...layers.flatMap((l) => [0, 'LINE', 8, l, 10, 0, 20, 0, 11, 1, 21, 0]), ...layers.slice(0, 10).flatMap((l) => [0, 'POINT', 8, l]), 0, 'ENDSEC', 0, 'EOF');
+    const scanned = scan(text);
+    const rowLayer = (row: number) => scanned.names[scanned.table.layer[row]!];
+    expect(Array.from({ length: 64 }, (_, row) => rowLayer(row))).toEqual(layers);
+    expect(Array.from({ length: 10 }, (_, k) => rowLayer(64 + k))).toEqual(layers.slice(0, 10));
+    expect(new Set(scanned.names).size).toBe(scanned.names.length); // each name numbered once
+  });
+
   it('a section not closed by ENDSEC is a one-line error naming it', () => {
     const text = dxf(0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 2, 'B', 0, 'ENDBLK', 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'P', 0, 'ENDSEC', 0, 'EOF');
     expect(() => scan(text)).toThrow(/the BLOCKS section is not closed by ENDSEC/);

@@ -80,6 +80,9 @@ function tableWithRoom(capacity: number, from?: EntityTable): EntityTable {
   };
 }
 
+/** Names kept per hash of their bytes before the rest are looked up by text. */
+const BUCKET_SIZE = 8;
+
 /** Text of a byte range in the drawing's encoding. */
 export type Decode = (bytes: Uint8Array) => string;
 
@@ -101,9 +104,11 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     return true;
   };
   // Entity types, layer and block names repeat across a drawing: each distinct name is decoded once and
-  // numbered, found again by a hash of its bytes (no string made per entity).
+  // numbered, found again by a hash of its bytes (no string made per entity). Names beyond a few per hash
+  // (colliding on purpose: a hostile file) are found by their text instead, so a lookup stays cheap.
   const names: string[] = [];
   const byHash = new Map<number, { start: number; end: number; index: number }[]>();
+  const crowded = new Map<string, number>();
   const nameIndex = (): number => {
     const { valueStart: s, valueEnd: e } = c;
     let h = e - s;
@@ -111,9 +116,14 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     let bucket = byHash.get(h);
     if (!bucket) byHash.set(h, (bucket = []));
     for (const k of bucket) if (sameBytes(bytes, k.start, k.end, s, e)) return k.index;
+    const text = decode(bytes.subarray(s, e));
+    if (bucket.length >= BUCKET_SIZE) {
+      let index = crowded.get(text);
+      if (index === undefined) crowded.set(text, (index = names.push(text) - 1));
+      return index;
+    }
     bucket.push({ start: s, end: e, index: names.length });
-    names.push(decode(bytes.subarray(s, e)));
-    return names.length - 1;
+    return names.push(text) - 1;
   };
   const sharedName = () => names[nameIndex()]!;
   const value = () => c.latin1();

@@ -67,7 +67,8 @@ export function selectedText(bytes: Uint8Array, scan: ScannedDxf, wanted: Wanted
   };
   if (header) piece(header.start, header.end);
   ascii('  0\nSECTION\n  2\nBLOCKS\n');
-  for (const b of scan.blocks) if (used.has(b)) piece(b.start, b.end);
+  // A block without a name cannot be expanded (dxf-parser drops it, and says so on the console): left out.
+  for (const b of scan.blocks) if (used.has(b) && b.name !== '') piece(b.start, b.end);
   ascii('  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n');
   for (const row of chosen) piece(table.start[row]!, table.end[row]!);
   ascii('  0\nENDSEC\n  0\nEOF\n');
