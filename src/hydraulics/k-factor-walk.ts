@@ -83,23 +83,23 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
   // Numbers that change per call live in a typed array: a number captured by these closures and reassigned
   // would be boxed anew on every write. [0, 1]: the running join's pressure and flow; [2]: the one elevation
   // of every node reached this call, once `levelSeen`.
-  const at = new Float64Array(3);
+  const scratch = new Float64Array(3);
   let levelSeen = false;
   /** a^x for a > 0 (exp and log: twice as fast as the power operator in V8). */
   const pow = (a: number, x: number) => Math.exp(x * Math.log(a));
-  /** Adds an input (p, q) to the running join (at[0], at[1]): the higher pressure wins, the other side's flow is
+  /** Adds an input (p, q) to the running join (scratch[0], scratch[1]): the higher pressure wins, the other side's flow is
    * raised to it. */
   const join = (p: number, q: number) => {
-    const jp = at[0]!;
-    const jq = at[1]!;
-    if (jq === 0) { at[0] = p; at[1] = q; } else if (p <= jp) at[1] = jq + q * pow(jp / p, raiseExponent);
-    else { at[1] = jq * pow(p / jp, raiseExponent) + q; at[0] = p; }
+    const jp = scratch[0]!;
+    const jq = scratch[1]!;
+    if (jq === 0) { scratch[0] = p; scratch[1] = q; } else if (p <= jp) scratch[1] = jq + q * pow(jp / p, raiseExponent);
+    else { scratch[1] = jq * pow(p / jp, raiseExponent) + q; scratch[0] = p; }
   };
   const atLevel = (h: number | null) => {
     if (h === null) return true;
     if (Number.isNaN(h)) return false;
-    if (!levelSeen) { at[2] = h; levelSeen = true; }
-    return Math.abs(h - at[2]!) <= 1e-9;
+    if (!levelSeen) { scratch[2] = h; levelSeen = true; }
+    return Math.abs(h - scratch[2]!) <= 1e-9;
   };
   /** Marks the anchors from `from` to the source as reached this call; false where the elevations differ. */
   const touch = (from: number): boolean => {
@@ -144,9 +144,9 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         const e = heads[h]!;
         const anchor = sk.anchorOf[e.node]!;
         if (anchor < 0) continue;
-        at[0] = P[anchor]!; at[1] = Q[anchor]!;
+        scratch[0] = P[anchor]!; scratch[1] = Q[anchor]!;
         join(e.required, e.k * Math.sqrt(e.required));
-        P[anchor] = at[0]!; Q[anchor] = at[1]!;
+        P[anchor] = scratch[0]!; Q[anchor] = scratch[1]!;
       }
       // Deepest first: in breadth-first order from the source, read backwards (typed sort, in place).
       touchedRanks.subarray(0, touched).sort();
@@ -165,20 +165,20 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         let r: number;
         if (chainStamp[c] === epoch) {
           let pos = fromA ? 0 : chain.nodes.length + 1;
-          at[0] = Q[v]! > 0 ? pressureAt(v) : 0;
-          at[1] = Q[v]!;
+          scratch[0] = Q[v]! > 0 ? pressureAt(v) : 0;
+          scratch[1] = Q[v]!;
           const indices = chainHeadIndex[c]!;
           const emitters = chainHeadEmitter[c]!;
           const count = chainHeadCount[c]!;
           for (let h = 0; h < count; h++) {
             const k = fromA ? h : count - 1 - h;
             const e = emitters[k]!;
-            if (at[1]! > 0) at[0] = at[0]! + resistance(c, pos, indices[k]! + 1) * pow(at[1]!, HW_EXPONENT);
+            if (scratch[1]! > 0) scratch[0] = scratch[0]! + resistance(c, pos, indices[k]! + 1) * pow(scratch[1]!, HW_EXPONENT);
             join(e.required, e.k * Math.sqrt(e.required));
             pos = indices[k]! + 1;
           }
-          p = at[0]! + rise;
-          q = at[1]!;
+          p = scratch[0]! + rise;
+          q = scratch[1]!;
           r = resistance(c, pos, end);
         } else {
           p = P[v]! + rise;
@@ -187,9 +187,9 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         }
         if (q === 0) continue;
         if (Q[u] === 0) { P[u] = p; Q[u] = q; R[u] = r; continue; }
-        at[0] = pressureAt(u); at[1] = Q[u]!;
+        scratch[0] = pressureAt(u); scratch[1] = Q[u]!;
         join(p + r * pow(q, HW_EXPONENT), q);
-        P[u] = at[0]!; Q[u] = at[1]!; R[u] = 0;
+        P[u] = scratch[0]!; Q[u] = scratch[1]!; R[u] = 0;
       }
       return null;
     },
