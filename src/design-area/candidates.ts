@@ -91,7 +91,9 @@ export function selectHeads(
     }
     if (headIds.length >= count && covered >= area - 1e-6) break;
   }
-  return { headIds, lineIds };
+  // Exact-length copies: an array grown by pushing keeps up to twice its length in slots, and a search keeps
+  // tens of thousands of candidates.
+  return { headIds: headIds.slice(), lineIds: lineIds.slice() };
 }
 
 /** Index of the first head at or after position t along the line (heads sorted by t). */
@@ -105,9 +107,9 @@ function firstAtOrAfter(heads: { t: number }[], t: number): number {
   return lo;
 }
 
-/** Every distinct candidate area of a family. */
+/** Every distinct candidate area of a family (windows that select the same heads are one area). */
 export function candidatesOf(fam: LineFamily, areaOf: (id: string) => number, area: number): Candidate[] {
-  const seen = new Set<string>();
+  const seen = distinctAreas(fam);
   const out: Candidate[] = [];
   const n = fam.shape.headsAlong;
   fam.lines.forEach((line, k) => {
@@ -115,12 +117,45 @@ export function candidatesOf(fam: LineFamily, areaOf: (id: string) => number, ar
     for (const dir of [1, -1] as const) {
       for (const h of starts) {
         const c = selectHeads(fam, k, dir, h.t, fam.shape.totalHeads, area, areaOf);
-        const key = [...c.headIds].sort().join(',');
-        if (c.headIds.length && !seen.has(key)) { seen.add(key); out.push(c); }
+        if (c.headIds.length && seen(c)) out.push(c);
       }
     }
   });
   // A window at the edge of the system that runs out of lines is no design area, unless no window has room.
   const full = out.filter((c) => c.headIds.length >= fam.shape.totalHeads);
   return full.length ? full : out;
+}
+
+/**
+ * A test that is true the first time a set of heads is seen: candidates are filed by a hash of their head set
+ * (the same whatever the order), and compared in full only with those of the same hash. No key string per
+ * candidate is kept.
+ */
+function distinctAreas(fam: LineFamily): (c: Candidate) => boolean {
+  const numberOf = new Map<string, number>();
+  for (const line of fam.lines) for (const h of line.heads) numberOf.set(h.id, numberOf.size);
+  const byHash = new Map<number, Candidate[]>();
+  return (c) => {
+    // Two 32-bit mixes of each head's number, summed and xor-ed (order-independent), make a 53-bit hash.
+    let sum = 0;
+    let xor = 0;
+    for (const id of c.headIds) {
+      const x = Math.imul((numberOf.get(id) ?? -1) + 1, 0x9e3779b1);
+      sum = (sum + (x ^ (x >>> 15))) | 0;
+      xor ^= Math.imul(x ^ (x >>> 13), 0x85ebca6b);
+    }
+    const hash = (sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff);
+    const same = byHash.get(hash);
+    if (!same) { byHash.set(hash, [c]); return true; }
+    if (same.some((o) => sameHeads(o.headIds, c.headIds))) return false;
+    same.push(c);
+    return true;
+  };
+}
+
+/** Whether two lists of distinct head ids hold the same heads. */
+function sameHeads(a: string[], b: string[]): boolean {
+  if (a.length !== b.length) return false;
+  const inA = new Set(a);
+  return b.every((id) => inA.has(id));
 }

@@ -196,7 +196,8 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
         if (c.code !== 0) { more = next(); continue; }
         if (name === 'BLOCKS' && valueIs('BLOCK')) {
           const block: BlockEntry = { name: '', start: c.start, end: 0, rows: { first: table.count, end: table.count } };
-          while ((more = next()) && c.code !== 0) if (c.code === 2 || (c.code === 3 && !block.name)) block.name = sharedName();
+          // Its name is group 2, as dxf-parser reads it (a block it cannot name, it drops).
+          while ((more = next()) && c.code !== 0) if (c.code === 2) block.name = sharedName();
           while (more && c.code === 0 && !valueIs('ENDBLK') && !valueIs('ENDSEC') && !valueIs('SECTION') && !valueIs('EOF')) readEntity();
           block.rows.end = table.count;
           if (more && valueIs('ENDBLK')) while ((more = next()) && c.code !== 0);
