@@ -83,6 +83,18 @@ describe('damaged structure', () => {
     expect(new Set(scanned.names).size).toBe(scanned.names.length); // each name numbered once
   });
 
+  it('a layer name in a double-byte code page is read whole (ANSI_932: 配管 is 94 7A 8A C7 in Shift_JIS, by Python\'s codec)', () => {
+    const head = new TextEncoder().encode(dxf(0, 'SECTION', 2, 'HEADER', 9, '$ACADVER', 1, 'AC1015', 9, '$DWGCODEPAGE', 3, 'ANSI_932', 9, '$INSUNITS', 70, 2, 0, 'ENDSEC',
+      0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'FP-'));
+    const tail = new TextEncoder().encode(`\n 10\n0\n 20\n0\n 11\n10\n 21\n0\n  0\nENDSEC\n  0\nEOF\n`);
+    const bytes = new Uint8Array([...head.slice(0, head.length - 1), 0x94, 0x7a, 0x8a, 0xc7, ...tail]);
+    const drawing = readDrawing(bytes, { layers: { pipes: ['FP-\u914d\u7ba1'] } });
+    expect(drawing.encoding).toBe('shift_jis');
+    expect(drawing.layers.map((l) => l.name)).toEqual(['FP-\u914d\u7ba1']);
+    expect(drawing.strokes).toHaveLength(1);
+    expect(drawing.strokes[0]!.layer).toBe('FP-\u914d\u7ba1');
+  });
+
   it('a section not closed by ENDSEC is a one-line error naming it', () => {
     const text = dxf(0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 2, 'B', 0, 'ENDBLK', 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'P', 0, 'ENDSEC', 0, 'EOF');
     expect(() => scan(text)).toThrow(/the BLOCKS section is not closed by ENDSEC/);
