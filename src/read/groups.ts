@@ -4,6 +4,11 @@
 /** Space, tab or carriage return: blanks around a group's code or value. */
 export const isBlank = (c: number) => c === 32 || c === 9 || c === 13;
 
+/**
+ * Lines end at the byte 0x0A, on bytes before decoding: no code page a DXF may use puts 0x0A, 0x0D, a space or
+ * a tab inside a character (Shift_JIS, GBK, Big5 and EUC-KR trail bytes are 0x40 and above; from memory, the
+ * WHATWG Encoding Standard's indexes).
+ */
 const NEWLINE = 10;
 
 /** Offset of the next line break at or after `from`, or the end of the bytes. */
