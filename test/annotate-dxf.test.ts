@@ -25,7 +25,7 @@ const cases: { name: string; bytes: Uint8Array; config: Record<string, unknown> 
 function annotate(c: (typeof cases)[number]) {
   const input = { bytes: c.bytes, fileName: `${c.name}.dxf`, sha256: '', settings: parseSettings(c.config), reportUnits: 'us' as const };
   const result = runCheck(input);
-  return { result, out: annotatedDrawing(input, result) };
+  return { result, out: new Uint8Array(Buffer.concat(annotatedDrawing(input, result))) };
 }
 
 /** Every group's code and value, read by our own group walker. */
