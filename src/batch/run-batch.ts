@@ -3,7 +3,6 @@
 
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { Piscina } from 'piscina';
@@ -132,5 +131,3 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   const exitCode = rows.some((r) => r.status === 'error') ? 2 : rows.some((r) => r.status === 'fail') ? 1 : 0;
   return { rows, reused, exitCode };
 }
-
-export const defaultWorkers = (): number => availableParallelism();

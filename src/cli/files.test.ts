@@ -24,6 +24,15 @@ describe('writeAllAtomically', () => {
     expect(readdirSync(dir).sort()).toEqual(['a.txt', 'b.dxf']);
   });
 
+  it('writes a long text in pieces without splitting a character (a surrogate pair across a piece boundary)', () => {
+    const dir = folder();
+    // U+1F600 is the surrogate pair D83D DE00; placed so that its first half ends the first 2^20-character piece.
+    const text = `${'a'.repeat(2 ** 20 - 1)}\u{1F600}${'é'.repeat(3000)}`;
+    writeAllAtomically([{ path: join(dir, 'long.json'), data: text }]);
+    // Expected: the whole text encoded at once by Node's own UTF-8 encoder.
+    expect(Buffer.compare(readFileSync(join(dir, 'long.json')), Buffer.from(text, 'utf8'))).toBe(0);
+  });
+
   it('leaves no file, finished or temporary, when making a later output fails, and passes its error on', () => {
     const dir = folder();
     const made: string[] = [];

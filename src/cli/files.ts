@@ -65,12 +65,27 @@ export function writeAllAtomically(files: { path: string; data: OutputData | (()
 }
 
 function writeData(path: string, data: OutputData): void {
-  const pieces = typeof data === 'string' ? [Buffer.from(data, 'utf8')] : Array.isArray(data) ? data : [data];
   const fd = openSync(path, 'w');
+  const put = (piece: Uint8Array) => { for (let at = 0; at < piece.length;) at += writeSync(fd, piece, at, piece.length - at); };
   try {
-    for (const piece of pieces) for (let at = 0; at < piece.length;) at += writeSync(fd, piece, at, piece.length - at);
+    if (typeof data === 'string') for (const piece of utf8Pieces(data)) put(piece);
+    else for (const piece of Array.isArray(data) ? data : [data]) put(piece);
   } finally {
     closeSync(fd);
+  }
+}
+
+/** Characters of text encoded at a time: a large report is written without a second, encoded copy of it whole. */
+const TEXT_PIECE = 1 << 20;
+
+/** The text as UTF-8, a piece at a time, never splitting a surrogate pair. */
+function* utf8Pieces(text: string): Generator<Uint8Array> {
+  for (let at = 0; at < text.length;) {
+    let end = Math.min(text.length, at + TEXT_PIECE);
+    const last = text.charCodeAt(end - 1);
+    if (end < text.length && last >= 0xd800 && last <= 0xdbff) end--;
+    yield Buffer.from(text.slice(at, end), 'utf8');
+    at = end;
   }
 }
 

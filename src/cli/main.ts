@@ -2,16 +2,13 @@
 // Exit codes per the contract: 0 checked and no error, 1 error findings, 2 unusable input or option.
 
 import { mkdirSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Option } from 'commander';
-import { defaultWorkers, runBatch } from '../batch/run-batch.js';
 import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
-import { parseSettingsText, type Settings, DEFAULT_SETTINGS } from '../config/settings.js';
-import { demoDrawing, DEMO_CONFIG } from '../demo/scenario.js';
-import { serve } from '../serve/server.js';
-import { parseSettings } from '../config/settings.js';
+import { DEFAULT_SETTINGS, parseSettings, parseSettingsText, type Settings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../read/errors.js';
 import { TOOL } from '../version.js';
@@ -94,7 +91,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .requiredOption('--out <dir>', 'folder for the reports and summaries')
     .option('--config <file>', 'config JSON for drawings without their own')
     .addOption(unitsOption())
-    .option('--workers <n>', 'worker threads', String(defaultWorkers()))
+    .option('--workers <n>', 'worker threads', String(availableParallelism()))
     .option('--time-limit <s>', 'seconds per drawing', '300')
     .option('--memory-limit <mb>', 'heap per worker, MB', '4096')
     .option('--force', 'check every drawing again, even unchanged ones')
@@ -109,6 +106,9 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       };
       mkdirSync(opts.out, { recursive: true });
       const tty = process.stderr.isTTY === true;
+      // The batch, server and demo modules load only for their command: a check's memory peak grows with the
+      // code loaded (V8 sizes the heap by what is live), and the worker pool alone is several MB.
+      const { runBatch } = await import('../batch/run-batch.js');
       const outcome = await runBatch({
         inputs, out: opts.out, ...(opts.config ? { config: opts.config } : {}), units: opts.units,
         outputs: { json: opts.json, dxf: opts.dxf, html: opts.html },
@@ -138,6 +138,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .action(async (opts: { port: string; host: string }) => {
       const port = Number(opts.port);
       if (!Number.isInteger(port) || port < 0 || port > 65535) throw new InputError(`--port: must be a port number, not "${opts.port}"`);
+      const { serve } = await import('../serve/server.js');
       const s = await serve(fileURLToPath(new URL('../web/', import.meta.url)), port, opts.host);
       io.out(`headcheck: the local page is at ${s.url} (the drawing stays on this machine; Ctrl-C stops)`);
       await new Promise<void>((done) => process.once('SIGINT', () => { void s.close().then(done); }));
@@ -147,7 +148,8 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .description('build the bundled demo drawing and check it')
     .option('--out <dir>', 'folder for the demo drawing and its reports', 'headcheck-demo')
     .addOption(unitsOption())
-    .action((opts: { out: string; units: UnitSystem }) => {
+    .action(async (opts: { out: string; units: UnitSystem }) => {
+      const { demoDrawing, DEMO_CONFIG } = await import('../demo/scenario.js');
       mkdirSync(opts.out, { recursive: true });
       const dxfPath = join(opts.out, 'demo-plan.dxf');
       const configPath = join(opts.out, 'demo-plan.config.json');
