@@ -95,6 +95,22 @@ describe('damaged structure', () => {
     expect(drawing.strokes[0]!.layer).toBe('FP-\u914d\u7ba1');
   });
 
+  it('a drawing of more entities than the scan first makes room for keeps every one, blocks included', () => {
+    // 3000 lines (the scan's table starts with room for 1024 and grows) and a block defined after them.
+    const lines = Array.from({ length: 3000 }, (_, i) => [0, 'LINE', 8, i % 2 ? 'FP-PIPE' : 'A-GRID', 10, i, 20, 0, 11, i, 21, 5]).flat();
+    const text = dxf(0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 2, 'HEAD', 70, 0, 10, 0, 20, 0, 0, 'CIRCLE', 8, '0', 10, 0, 20, 0, 40, 0.25, 0, 'ENDBLK', 0, 'ENDSEC',
+      0, 'SECTION', 2, 'ENTITIES', ...lines, 0, 'INSERT', 8, 'FP-HEAD', 2, 'HEAD', 10, 1, 20, 1, 0, 'ENDSEC', 0, 'EOF');
+    const scanned = scan(text);
+    expect(scanned.table.count).toBe(3002);
+    expect(scanned.modelSpace).toEqual([{ first: 1, end: 3002 }]);
+    expect(scanned.blocks.map((b) => [b.name, b.rows])).toEqual([['HEAD', { first: 0, end: 1 }]]);
+    const drawing = readDrawing(new TextEncoder().encode(text), { units: 'ft', layers: { pipes: ['FP-PIPE'], heads: ['FP-HEAD'] } });
+    expect(drawing.layers.find((l) => l.name === 'FP-PIPE')!.counts).toEqual({ LINE: 1500 });
+    expect(drawing.layers.find((l) => l.name === 'A-GRID')!.counts).toEqual({ LINE: 1500 });
+    expect(drawing.strokes.filter((x) => x.layer === 'FP-PIPE')).toHaveLength(1500);
+    expect(drawing.refs.map((r) => r.block)).toEqual(['HEAD']);
+  });
+
   it('a section not closed by ENDSEC is a one-line error naming it', () => {
     const text = dxf(0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 2, 'B', 0, 'ENDBLK', 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 8, 'P', 0, 'ENDSEC', 0, 'EOF');
     expect(() => scan(text)).toThrow(/the BLOCKS section is not closed by ENDSEC/);
