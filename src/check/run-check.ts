@@ -11,7 +11,7 @@ import type { UnitSystem } from '../quantities/convert.js';
 import { fail } from '../read/errors.js';
 import { planFromDrawing, type Plan } from '../read/plan.js';
 import { readDrawing } from '../read/read-drawing.js';
-import type { Drawing } from '../read/types.js';
+import type { Drawing, DrawingFacts } from '../read/types.js';
 import { computeCoverage, type Coverage } from '../rules/coverage.js';
 import { resolveLimits, type Limits } from '../rules/limits.js';
 import { runRules } from '../rules/registry.js';
@@ -31,7 +31,8 @@ export interface CheckInput {
 }
 
 export interface CheckResult {
-  drawing: Drawing;
+  /** The drawing's facts; its raw geometry is let go once the plan holds what the stages use. */
+  drawing: DrawingFacts;
   plan: Plan;
   network: Network;
   coverage: Map<string, Coverage>;
@@ -50,8 +51,7 @@ export function runCheck(input: CheckInput): CheckResult {
     last = now;
     return value;
   };
-  const drawing = stage('read', readDrawing(input.bytes, { layers: settings.layers, limits: settings.inputLimits, ...(settings.units ? { units: settings.units } : {}) }));
-  const plan = stage('plan', planFromDrawing(drawing, settings));
+  const { drawing, plan } = planOf(input, stage);
   if (plan.heads.length === 0) {
     const layers = plan.roles.heads.layers.length ? plan.roles.heads.layers.join(', ') : 'none chosen';
     fail(`no sprinkler heads found (head layers: ${layers}); set "layers.heads" and "headBlocks" in the config`);
@@ -68,4 +68,16 @@ export function runCheck(input: CheckInput): CheckResult {
   const findings = stage('rules', runRules({ plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) }));
   const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
   return { drawing, plan, network, coverage, limits, design, findings, report };
+}
+
+/**
+ * Reads the drawing and builds its plan. A function of its own so that the drawing's raw geometry (block
+ * references, linework, texts) is garbage once it returns: the plan keeps what the later stages use.
+ */
+function planOf(input: CheckInput, stage: <T>(name: string, value: T) => T): { drawing: DrawingFacts; plan: Plan } {
+  const { settings } = input;
+  const read: Drawing = stage('read', readDrawing(input.bytes, { layers: settings.layers, limits: settings.inputLimits, ...(settings.units ? { units: settings.units } : {}) }));
+  const plan = stage('plan', planFromDrawing(read, settings));
+  const { version, units, unitsFrom, encoding, handseed, layers, roles } = read;
+  return { drawing: { version, units, unitsFrom, encoding, handseed, layers, roles }, plan };
 }

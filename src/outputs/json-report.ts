@@ -8,7 +8,7 @@ import type { Point } from '../geometry/point.js';
 import type { Network, PipeRole } from '../network/types.js';
 import { converterFor, REPORT_UNITS, type ReportUnits, type UnitSystem } from '../quantities/convert.js';
 import type { Plan } from '../read/plan.js';
-import type { Drawing } from '../read/types.js';
+import type { DrawingFacts } from '../read/types.js';
 import type { Coverage } from '../rules/coverage.js';
 import type { Limits } from '../rules/limits.js';
 import type { Finding, Quantity, Severity } from '../rules/types.js';
@@ -89,7 +89,7 @@ export interface ReportInput {
   sha256: string;
   settings: Settings;
   reportUnits: UnitSystem;
-  drawing: Drawing;
+  drawing: DrawingFacts;
   plan: Plan;
   network: Network;
   coverage: Map<string, Coverage>;

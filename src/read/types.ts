@@ -76,7 +76,8 @@ export interface LayerSummary {
 }
 
 /** Everything the later stages read: every layer summarized, the content of the layers that play a role. */
-export interface Drawing {
+/** What is said of a drawing beside its geometry: what the reports state and what the annotator needs. */
+export interface DrawingFacts {
   version: string;
   units: LengthUnit;
   /** Where the units came from. */
@@ -86,6 +87,9 @@ export interface Drawing {
   layers: LayerSummary[];
   /** Which layers hold heads, pipes, walls, design areas and the source; only their content is read below. */
   roles: LayerRoles;
+}
+
+export interface Drawing extends DrawingFacts {
   refs: BlockRef[];
   strokes: Stroke[];
   outlines: Outline[];
