@@ -8,6 +8,7 @@ import { runCheck } from '../check/run-check.js';
 import { DEFAULT_SETTINGS, parseSettingsText } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../read/errors.js';
+import { collectBetweenStages } from '../cli/collect.js';
 import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../cli/files.js';
 
 export interface BatchTask {
@@ -45,7 +46,8 @@ export default function checkOne(task: BatchTask): BatchRow {
   try {
     const settings = task.config ? parseSettingsText(readFileSync(task.config, 'utf8'), task.config) : structuredClone(DEFAULT_SETTINGS);
     const bytes = readInputFile(task.file, settings.inputLimits.fileMB);
-    const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units };
+    const onStage = collectBetweenStages(bytes.length);
+    const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units, ...(onStage ? { onStage } : {}) };
     const result = runCheck(input);
     const files: { path: string; data: () => OutputData }[] = [];
     if (task.outputs.json) files.push({ path: join(task.outDir, `${task.name}.json`), data: () => reportJson(result) });

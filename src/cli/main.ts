@@ -12,6 +12,7 @@ import { DEFAULT_SETTINGS, parseSettings, parseSettingsText, type Settings } fro
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../read/errors.js';
 import { TOOL } from '../version.js';
+import { collectBetweenStages } from './collect.js';
 import { assertNotInput, readConfigText, readInputFile, sha256Hex, writeAllAtomically, type OutputData } from './files.js';
 import { describeLayers } from './layers-table.js';
 import { summaryLine } from './summary-line.js';
@@ -46,7 +47,8 @@ function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void
   for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
   const settings = loadSettings(opts.config);
   const bytes = readInputFile(file, settings.inputLimits.fileMB);
-  const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units };
+  const onStage = collectBetweenStages(bytes.length);
+  const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units, ...(onStage ? { onStage } : {}) };
   const result = withFile(file, () => runCheck(input));
   const files: { path: string; data: () => OutputData }[] = [];
   if (opts.json) files.push({ path: opts.json, data: () => reportJson(result) });
