@@ -44,47 +44,45 @@ function takeCommon(entity: Fields, g: Group): boolean {
   return true;
 }
 
+/**
+ * A handler for an entity read in one run of groups: `start` makes it, `take` reads each group that is not one
+ * every entity shares.
+ */
+const handlerFor = (type: string, start: () => Fields, take: (entity: Fields, g: Group) => void) =>
+  class {
+    readonly ForEntityName = type;
+    parseEntity(scanner: Scanner): IEntity {
+      const entity = start();
+      readFields(scanner, (g) => { if (!takeCommon(entity, g)) take(entity, g); });
+      return entity;
+    }
+  };
+
 /** ATTRIB: the stock parser skips these, losing head K-factors and elevations. */
-export class AttribHandler {
-  readonly ForEntityName = 'ATTRIB';
-  parseEntity(scanner: Scanner): IEntity {
-    const entity = { type: 'ATTRIB', tag: '', value: '' } as unknown as Fields;
-    readFields(scanner, (g) => {
-      if (takeCommon(entity, g)) return;
-      if (g.code === 1) entity['value'] = String(g.value);
-      else if (g.code === 2) entity['tag'] = String(g.value);
-    });
-    return entity;
-  }
-}
+const AttribHandler = handlerFor('ATTRIB', () => ({ type: 'ATTRIB', tag: '', value: '' }) as unknown as Fields, (entity, g) => {
+  if (g.code === 1) entity['value'] = String(g.value);
+  else if (g.code === 2) entity['tag'] = String(g.value);
+});
 
 /**
  * LWPOLYLINE: each code 10 starts a vertex. The stock handler (1.1.2) rewinds to the vertex it was reading when
  * an unknown code sits among the vertices, and then reads it again forever.
  */
-export class LwpolylineHandler {
-  readonly ForEntityName = 'LWPOLYLINE';
-  parseEntity(scanner: Scanner): IEntity {
-    const vertices: Record<string, number>[] = [];
-    const entity = { type: 'LWPOLYLINE', vertices } as unknown as Fields;
-    let vertex: Record<string, number> | null = null;
-    readFields(scanner, (g) => {
-      if (takeCommon(entity, g)) return;
-      if (g.code === 10) vertices.push((vertex = { x: num(g.value) }));
-      else if (g.code === 20 && vertex) vertex['y'] = num(g.value);
-      else if (g.code === 42 && vertex) vertex['bulge'] = num(g.value);
-      else if (g.code === 70) entity['shape'] = (num(g.value) & 1) === 1;
-      else if (g.code === 230) entity['extrusionDirectionZ'] = num(g.value);
-    });
-    return entity;
-  }
-}
+const LwpolylineHandler = handlerFor('LWPOLYLINE', () => ({ type: 'LWPOLYLINE', vertices: [] }) as unknown as Fields, (entity, g) => {
+  const vertices = entity['vertices'] as Record<string, number>[];
+  const vertex = vertices.at(-1);
+  if (g.code === 10) vertices.push({ x: num(g.value) });
+  else if (g.code === 20 && vertex) vertex['y'] = num(g.value);
+  else if (g.code === 42 && vertex) vertex['bulge'] = num(g.value);
+  else if (g.code === 70) entity['shape'] = (num(g.value) & 1) === 1;
+  else if (g.code === 230) entity['extrusionDirectionZ'] = num(g.value);
+});
 
 /**
  * Old-style POLYLINE with its VERTEX run and SEQEND. The stock handler (1.1.2) loops without advancing when
  * anything but VERTEX or SEQEND follows a vertex.
  */
-export class PolylineHandler {
+class PolylineHandler {
   readonly ForEntityName = 'POLYLINE';
   parseEntity(scanner: Scanner): IEntity {
     const vertices: Record<string, number>[] = [];
@@ -115,15 +113,7 @@ export class PolylineHandler {
 /** Entity types no stage reads (dimensions, splines, ellipses, solids, faces): skipped unparsed. */
 const SKIPPED_TYPES = ['DIMENSION', 'SPLINE', 'ELLIPSE', 'SOLID', '3DFACE'] as const;
 
-const skipperFor = (type: string) =>
-  class {
-    readonly ForEntityName = type;
-    parseEntity(scanner: Scanner): IEntity {
-      const entity = { type } as Fields;
-      readFields(scanner, (g) => takeCommon(entity, g));
-      return entity;
-    }
-  };
+const skipperFor = (type: string) => handlerFor(type, () => ({ type }) as Fields, () => undefined);
 
 /** Every handler the reader registers on top of dxf-parser's defaults. */
 export const ENTITY_HANDLERS = [AttribHandler, LwpolylineHandler, PolylineHandler, ...SKIPPED_TYPES.map(skipperFor)];
