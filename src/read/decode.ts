@@ -2,6 +2,7 @@
 // drawing's code page (R2004 and older: `$DWGCODEPAGE`; R2007 and later: UTF-8), so non-ASCII names survive.
 
 import { fail } from './errors.js';
+import { GroupCursor } from './groups.js';
 
 const BINARY_SENTINEL = 'AutoCAD Binary DXF';
 
@@ -53,12 +54,11 @@ export function drawingEncoding(bytes: Uint8Array): DrawingEncoding {
   if (bytes.length === 0) fail('the file is empty');
   const start = new TextDecoder('latin1').decode(bytes.subarray(0, Math.min(bytes.length, 65536)));
   if (start.startsWith(BINARY_SENTINEL)) fail('binary DXF is not supported; save the drawing as ASCII DXF');
-  const firstLines = start.replace(/^\uFEFF|^\u00EF\u00BB\u00BF/, '').split(/\r\n|\r|\n/).map((l) => l.trim());
-  let i = 0;
-  while (firstLines[i] === '999') i += 2; // leading comments
-  if (!/^\d+$/.test(firstLines[i] ?? '') || firstLines[i] !== '0' || firstLines[i + 1]?.toUpperCase() !== 'SECTION') {
-    fail('not a DXF file (it does not start with a DXF section)');
-  }
+  // The first group after any 999 comments must be 0/SECTION (a byte order mark before it is skipped).
+  const first = new GroupCursor(bytes);
+  let more = first.next();
+  while (more && first.code === 999) more = first.next();
+  if (!more || first.code !== 0 || first.latin1().toUpperCase() !== 'SECTION') fail('not a DXF file (it does not start with a DXF section)');
   if (!endsWithEof(bytes)) fail('the DXF file is truncated (it does not end with an EOF group)');
   const version = headerValue(start, 'ACADVER') ?? 'AC1009';
   const codePage = headerValue(start, 'DWGCODEPAGE');
