@@ -6,8 +6,8 @@ import { basename, join } from 'node:path';
 import { DxfParser } from 'dxf-parser';
 import { annotatedDrawing, reportJson, reportPage } from '../src/check/outputs.js';
 import { runCheck } from '../src/check/run-check.js';
-import { collectBetweenStages } from '../src/cli/collect.js';
-import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../src/cli/files.js';
+import { collectBetweenStages } from '../src/io/collect.js';
+import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../src/io/files.js';
 import { parseSettings } from '../src/config/settings.js';
 
 const [file, configFile, mode] = process.argv.slice(2);

@@ -157,3 +157,42 @@ describe('the installed command', () => {
     expect(bad.stderr.trim().split('\n')).toHaveLength(1);
   });
 });
+
+describe('which config a command uses', () => {
+  const drawing = () => {
+    const sub = mkdtempSync(join(tmpdir(), 'hc-lookup-'));
+    writeFileSync(join(sub, 'plan.dxf'), layoutDxf({ s: 12, l: 10, heads: 4, lines: 3 }));
+    return sub;
+  };
+
+  it('check uses NAME.config.json beside the drawing, as batch does, and says so on stderr; --no-config uses none', async () => {
+    const sub = drawing();
+    // a limit that breaks every head: 120 ft² each against 100 (an adopted edition's override)
+    writeFileSync(join(sub, 'plan.config.json'), JSON.stringify({ limits: { maxArea: 100 } }));
+    const found = await run('check', join(sub, 'plan.dxf'));
+    expect(found.code).toBe(1);
+    expect(found.err).toBe(`headcheck: config ${join(sub, 'plan.config.json')} (found beside the drawing)`);
+    const none = await run('check', join(sub, 'plan.dxf'), '--no-config');
+    expect(none.code).toBe(0);
+    expect(none.err).toBe('');
+  });
+
+  it('else headcheck.json in the folder or a parent; an unusable one is exit 2, one line naming it', async () => {
+    const sub = drawing();
+    writeFileSync(join(sub, 'headcheck.json'), JSON.stringify({ design: { hazzard: 'EH1' } }));
+    const r = await run('check', join(sub, 'plan.dxf'));
+    expect(r.code).toBe(2);
+    expect(r.err.split('\n')).toHaveLength(1);
+    expect(r.err).toBe(`headcheck: ${join(sub, 'headcheck.json')}: unknown key "design.hazzard" (did you mean "design.hazard"?)`);
+  });
+
+  it('an error in the drawing names the config found, in the same one line', async () => {
+    const sub = drawing();
+    writeFileSync(join(sub, 'plan.dxf'), 'not a drawing');
+    writeFileSync(join(sub, 'headcheck.json'), '{}');
+    const r = await run('check', join(sub, 'plan.dxf'));
+    expect(r.code).toBe(2);
+    expect(r.err.split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/not a DXF file .*\[config .*headcheck\.json \(found in a parent folder\)\]$/);
+  });
+});

@@ -9,7 +9,7 @@ import { main } from '../src/cli/main.js';
 import { DEFAULT_INPUT_LIMITS, parseSettings, type InputLimits } from '../src/config/settings.js';
 import { layoutDxf } from '../src/demo/generated-layout.js';
 import { DxfWriter } from '../src/demo/dxf-writer.js';
-import { InputError } from '../src/read/errors.js';
+import { InputError } from '../src/input-error.js';
 import { readDrawing } from '../src/read/read-drawing.js';
 import { checkLayout } from './support/check.js';
 

@@ -2,9 +2,9 @@
 // directly, each with the root it was found under, in a stable order; and each drawing's config file.
 
 import { existsSync, readdirSync, statSync } from 'node:fs';
-import { basename, dirname, extname, join, relative, resolve, sep } from 'node:path';
+import { dirname, extname, join, relative, resolve, sep } from 'node:path';
 import { createHash } from 'node:crypto';
-import { InputError } from '../read/errors.js';
+import { InputError } from '../input-error.js';
 
 export interface BatchItem {
   /** Path as found (for messages and reports). */
@@ -60,17 +60,4 @@ const isBatchOutput = (dir: string) => existsSync(join(dir, '.results')) && exis
 export function outputName(rel: string, abs: string): string {
   const readable = rel.replace(/\.dxf$/i, '').replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^[._]+/, '').slice(0, 80) || 'drawing';
   return `${readable}-${createHash('sha256').update(abs).digest('hex').slice(0, 8)}`;
-}
-
-/** NAME.config.json beside the drawing, else headcheck.json in its folder or the nearest parent up to the root, else the fallback. */
-export function configFor(item: BatchItem, fallback: string | undefined): string | undefined {
-  const abs = resolve(item.file);
-  const beside = join(dirname(abs), `${basename(abs, extname(abs))}.config.json`);
-  if (existsSync(beside)) return beside;
-  for (let d = dirname(abs); ; d = dirname(d)) {
-    const candidate = join(d, 'headcheck.json');
-    if (existsSync(candidate)) return candidate;
-    if (d === item.root || d === dirname(d) || !d.startsWith(item.root)) break;
-  }
-  return fallback;
 }

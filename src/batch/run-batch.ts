@@ -6,10 +6,11 @@ import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { Piscina } from 'piscina';
-import { writeAllAtomically } from '../cli/files.js';
+import { writeAllAtomically } from '../io/files.js';
 import { REPORT_UNITS, type UnitSystem } from '../quantities/convert.js';
 import { TOOL } from '../version.js';
-import { configFor, discoverDrawings, type BatchItem } from './discover.js';
+import { findConfig } from '../io/config-file.js';
+import { discoverDrawings, type BatchItem } from './discover.js';
 import { summaryCsv, summaryHtml } from './summary.js';
 import type { BatchRow, BatchTask } from './worker.js';
 
@@ -56,7 +57,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   const todo: { i: number; item: BatchItem; config: string | undefined; key: string }[] = [];
   let reused = 0;
   items.forEach((item, i) => {
-    const config = configFor(item, o.config);
+    const config = findConfig(item.file, { root: item.root, ...(o.config ? { fallback: o.config } : {}) })?.path;
     let key: string;
     try {
       key = keyOf(item, config);

@@ -1,15 +1,14 @@
 // A batch worker (run by the pool in a worker thread): checks one drawing, writes its outputs atomically
 // and returns its summary row. Unusable input becomes a row with status "error", never a thrown error.
 
-import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
-import { DEFAULT_SETTINGS, parseSettingsText } from '../config/settings.js';
+import { loadSettings } from '../io/config-file.js';
 import type { UnitSystem } from '../quantities/convert.js';
-import { InputError } from '../read/errors.js';
-import { collectBetweenStages } from '../cli/collect.js';
-import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../cli/files.js';
+import { InputError } from '../input-error.js';
+import { collectBetweenStages } from '../io/collect.js';
+import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../io/files.js';
 
 export interface BatchTask {
   file: string;
@@ -44,7 +43,7 @@ export default function checkOne(task: BatchTask): BatchRow {
     demandPressure: null, demandFlow: null, margin: null, message: null, ms: 0, outputs: [],
   };
   try {
-    const settings = task.config ? parseSettingsText(readFileSync(task.config, 'utf8'), task.config) : structuredClone(DEFAULT_SETTINGS);
+    const settings = loadSettings(task.config);
     const bytes = readInputFile(task.file, settings.inputLimits.fileMB);
     const onStage = collectBetweenStages(bytes.length);
     const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units, ...(onStage ? { onStage } : {}) };

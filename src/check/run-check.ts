@@ -8,7 +8,7 @@ import type { Network } from '../network/types.js';
 import { buildReport, type Report } from '../outputs/json-report.js';
 import { formatterFor } from '../quantities/format.js';
 import type { UnitSystem } from '../quantities/convert.js';
-import { fail } from '../read/errors.js';
+import { fail } from '../input-error.js';
 import { planFromDrawing, type Plan } from '../read/plan.js';
 import { readDrawing } from '../read/read-drawing.js';
 import type { Drawing, DrawingFacts } from '../read/types.js';
@@ -65,7 +65,7 @@ export function runCheck(input: CheckInput): CheckResult {
   const coverage = stage('coverage', computeCoverage(plan.heads, network, walls));
   const limits = resolveLimits(settings);
   const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings, walls.roomOf));
-  const findings = stage('rules', runRules({ plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) }));
+  const findings = stage('rules', runRules({ drawing, plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) }));
   const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
   return { drawing, plan, network, coverage, limits, design, findings, report };
 }
@@ -78,6 +78,6 @@ function planOf(input: CheckInput, stage: <T>(name: string, value: T) => T): { d
   const { settings } = input;
   const read: Drawing = stage('read', readDrawing(input.bytes, { layers: settings.layers, limits: settings.inputLimits, ...(settings.units ? { units: settings.units } : {}) }));
   const plan = stage('plan', planFromDrawing(read, settings));
-  const { version, units, unitsFrom, encoding, handseed, layers, roles } = read;
-  return { drawing: { version, units, unitsFrom, encoding, handseed, layers, roles }, plan };
+  const { version, units, unitsFrom, headerUnits, encoding, handseed, layers, roles } = read;
+  return { drawing: { version, units, unitsFrom, headerUnits, encoding, handseed, layers, roles }, plan };
 }

@@ -8,12 +8,13 @@ import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Option } from 'commander';
 import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
-import { DEFAULT_SETTINGS, parseSettings, parseSettingsText, type Settings } from '../config/settings.js';
+import { parseSettings, type Settings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
-import { InputError } from '../read/errors.js';
+import { InputError } from '../input-error.js';
 import { TOOL } from '../version.js';
-import { collectBetweenStages } from './collect.js';
-import { assertNotInput, readConfigText, readInputFile, sha256Hex, writeAllAtomically, type OutputData } from './files.js';
+import { collectBetweenStages } from '../io/collect.js';
+import { findConfig, loadSettings, type FoundConfig } from '../io/config-file.js';
+import { assertNotInput, readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../io/files.js';
 import { describeLayers } from './layers-table.js';
 import { summaryLine } from './summary-line.js';
 
@@ -31,21 +32,33 @@ interface BatchCliOptions {
 }
 
 interface CheckOptions {
-  config?: string;
+  /** A config file; false with --no-config; absent: looked up beside the drawing. */
+  config?: string | false;
   json?: string;
   dxf?: string;
   html?: string;
   units: UnitSystem;
 }
 
-function loadSettings(path: string | undefined): Settings {
-  return path ? parseSettingsText(readConfigText(path), path) : structuredClone(DEFAULT_SETTINGS);
+/** A config the command found by itself (not given): said on stderr when the command ends. */
+const lookup: { found: FoundConfig | null } = { found: null };
+const foundConfig = (): FoundConfig | null => lookup.found;
+const configSaid = (c: FoundConfig) => `config ${c.path} (found ${c.how})`;
+
+/**
+ * The settings a command reads `drawing` with: the config given, none with --no-config, else the one `batch` would
+ * use (found beside the drawing or in a parent folder).
+ */
+function settingsFor(drawing: string, config: string | false | undefined): Settings {
+  const found = config === false ? null : config ? null : findConfig(drawing);
+  lookup.found = found;
+  return loadSettings(config || found?.path);
 }
 
 /** Checks one drawing and writes the requested outputs; returns the exit code. */
-function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void): number {
+function checkCommand(file: string, opts: CheckOptions, io: { out: (s: string) => void; err: (s: string) => void }): number {
   for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
-  const settings = loadSettings(opts.config);
+  const settings = settingsFor(file, opts.config);
   const bytes = readInputFile(file, settings.inputLimits.fileMB);
   const onStage = collectBetweenStages(bytes.length);
   const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units, ...(onStage ? { onStage } : {}) };
@@ -55,7 +68,7 @@ function checkCommand(file: string, opts: CheckOptions, out: (s: string) => void
   if (opts.dxf) files.push({ path: opts.dxf, data: () => withFile(file, () => annotatedDrawing(input, result)) });
   if (opts.html) files.push({ path: opts.html, data: () => reportPage(input, result) });
   writeAllAtomically(files);
-  out(summaryLine(file, result.report));
+  io.out(summaryLine(file, result.report));
   return result.report.summary.pass ? 0 : 1;
 }
 
@@ -79,14 +92,17 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .configureOutput({ writeOut: (s) => io.out(s.trimEnd()), writeErr: (s) => io.err(s.trimEnd()) });
   const unitsOption = () => new Option('--units <system>', 'units of the report').choices(['us', 'si']).default('us');
 
-  program.command('check <drawing>')
-    .description('audit one drawing')
-    .option('--config <file>', 'config JSON')
+  const configOptions = (cmd: Command) => cmd
+    .option('--config <file>', 'config JSON (default: DRAWING.config.json beside it, else headcheck.json in its folder or a parent)')
+    .option('--no-config', 'use no config file, only the defaults');
+
+  configOptions(program.command('check <drawing>')
+    .description('audit one drawing'))
     .option('--json <file>', 'write the JSON report')
     .option('--dxf <file>', 'write the annotated drawing')
     .option('--html <file>', 'write the HTML report')
     .addOption(unitsOption())
-    .action((drawing: string, opts: CheckOptions) => { code = checkCommand(drawing, opts, io.out); });
+    .action((drawing: string, opts: CheckOptions) => { code = checkCommand(drawing, opts, io); });
 
   program.command('batch <inputs...>')
     .description('audit many drawings (folders are searched for .dxf files); one bad file never stops the rest')
@@ -124,11 +140,10 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       code = outcome.exitCode;
     });
 
-  program.command('layers <drawing>')
-    .description('list layers, entity counts and the role each would get')
-    .option('--config <file>', 'config JSON')
-    .action((drawing: string, opts: { config?: string }) => {
-      const settings = loadSettings(opts.config);
+  configOptions(program.command('layers <drawing>')
+    .description('list layers, entity counts and the role each would get'))
+    .action((drawing: string, opts: { config?: string | false }) => {
+      const settings = settingsFor(drawing, opts.config);
       const bytes = readInputFile(drawing, settings.inputLimits.fileMB);
       io.out(withFile(drawing, () => describeLayers(bytes, settings)));
     });
@@ -163,19 +178,25 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       const verdict = checkCommand(dxfPath, {
         config: configPath, json: join(opts.out, 'demo-plan.json'), dxf: join(opts.out, 'demo-plan.annotated.dxf'),
         html: join(opts.out, 'demo-plan.html'), units: opts.units,
-      }, io.out);
+      }, io);
       io.out(`demo: drawing, config, JSON and HTML reports and the annotated drawing in ${opts.out}/ ` +
         `(the demo plan has planted findings: the check's own verdict would be exit ${verdict})`);
       code = 0;
     });
 
+  lookup.found = null;
+  // The config a command found for itself is said on stderr: on its own line when the command ran, in the one
+  // line of the error when it did not.
   try {
     await program.parseAsync(argv);
+    const found = foundConfig();
+    if (found) io.err(`headcheck: ${configSaid(found)}`);
     return code;
   } catch (err) {
     if (err instanceof CommanderError) return err.exitCode === 0 ? 0 : 2;
     if (err instanceof InputError) {
-      io.err(`headcheck: ${err.message}`);
+      const found = foundConfig();
+      io.err(`headcheck: ${err.message}${found && !err.message.includes(found.path) ? ` [${configSaid(found)}]` : ''}`);
       return 2;
     }
     io.err(`headcheck: internal error: ${err instanceof Error ? err.message : String(err)}`);

@@ -10,6 +10,9 @@ interface Curve { start: [number, number]; end: [number, number] }
  * confirmed by a secondary source (LH 0.10/1500, OH1 0.15/1500, OH2 0.20/1500, EH1 0.30/2500, EH2 0.40/2500);
  * end points from memory (LH 0.07/3000, OH1 0.10/4000, OH2 0.15/4000, EH1 0.20/5000, EH2 0.30/5000).
  */
+export const CURVE_SOURCE =
+  'NFPA 13 (2019 edition), Figure 19.3.3.1.1, density/area curves: start points confirmed by a secondary source, end points from memory';
+
 export const CURVES: Record<Hazard, Curve> = {
   LH: { start: [1500, 0.1], end: [3000, 0.07] },
   OH1: { start: [1500, 0.15], end: [4000, 0.1] },

@@ -1,8 +1,8 @@
 // Equivalent pipe lengths of fittings for friction (45° elbow, 90° standard elbow, 90° long-turn elbow,
 // tee or cross with flow turned 90°), Schedule 40 steel at C = 120, with the C and inside-diameter factors.
 
-import type { NominalSize } from '../network/pipe-sizes.js';
-import { INSIDE_DIAMETER } from '../network/pipe-sizes.js';
+import type { NominalSize } from '../quantities/pipe-sizes.js';
+import { INSIDE_DIAMETER } from '../quantities/pipe-sizes.js';
 
 export interface FittingLengths { elbow45: number; elbow90: number; longTurn90: number; teeTurn: number }
 

@@ -3,9 +3,9 @@
 
 import type { Settings } from '../config/settings.js';
 import { distance, dot, sub, unit, type Point } from '../geometry/point.js';
-import { fail } from '../read/errors.js';
+import { fail } from '../input-error.js';
 import type { Plan } from '../read/plan.js';
-import { INSIDE_DIAMETER, normaliseSize, type NominalSize } from './pipe-sizes.js';
+import { INSIDE_DIAMETER, type NominalSize } from '../quantities/pipe-sizes.js';
 import { groupRuns } from './runs.js';
 import { sizesFromLabels } from './size-labels.js';
 import { snapStrokes, type Edge } from './snap.js';
@@ -19,8 +19,7 @@ const DROP_MAX_FT = 3;
 const BEND_MIN_RAD = (30 * Math.PI) / 180;
 
 export function buildNetwork(plan: Plan, settings: Settings): Network {
-  const defaultSize = normaliseSize(settings.defaults.pipeSize);
-  if (!defaultSize) fail(`config: "defaults.pipeSize" ${JSON.stringify(settings.defaults.pipeSize)} is not a known nominal pipe size`);
+  const defaultSize = settings.defaults.pipeSize;
   const tol = settings.tolerances;
   const strokeSizes = sizesFromLabels(plan.pipes, plan.labels, tol.sizeLabel);
   const attachPoints = [
@@ -45,10 +44,10 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
   }));
   const schedule = settings.defaults.schedule;
   const runs = groupRuns(
-    nodes.length, chains.map((c) => ({ from: keep.get(c.from)!, to: keep.get(c.to)!, points: c.points, size: c.size ?? defaultSize! })), (n) => nodes[n]!.headId !== undefined,
+    nodes.length, chains.map((c) => ({ from: keep.get(c.from)!, to: keep.get(c.to)!, points: c.points, size: c.size ?? defaultSize })), (n) => nodes[n]!.headId !== undefined,
   );
   const pipes: NetPipe[] = chains.map((c, i) => {
-    const size = c.size ?? defaultSize!;
+    const size = c.size ?? defaultSize;
     return {
       id: `P${i + 1}`, from: nodes[keep.get(c.from)!]!.id, to: nodes[keep.get(c.to)!]!.id,
       handles: [...new Set(c.edges.map((e) => plan.pipes[e.stroke]!.handle))], points: c.points, length: c.length, bends: c.bends,

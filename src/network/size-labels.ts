@@ -4,7 +4,7 @@
 import RBush from 'rbush';
 import { distanceToSegment, type Point } from '../geometry/point.js';
 import type { Stroke, TextItem } from '../read/types.js';
-import { parseSizeLabel, type NominalSize } from './pipe-sizes.js';
+import { parseSizeLabel, type NominalSize } from '../quantities/pipe-sizes.js';
 
 interface Box { minX: number; minY: number; maxX: number; maxY: number; i: number }
 

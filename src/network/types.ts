@@ -2,7 +2,7 @@
 // and what could not be connected. Lengths in feet, diameters in inches.
 
 import type { Point } from '../geometry/point.js';
-import type { NominalSize } from './pipe-sizes.js';
+import type { NominalSize } from '../quantities/pipe-sizes.js';
 
 export type PipeRole = 'branch' | 'cross-main' | 'feed-main' | 'riser' | 'drop' | 'unknown';
 

@@ -111,6 +111,7 @@ function findingLabel(f: Finding, fmt: Formatter): string {
       case 'pressure': return fmt.pressure(v);
       case 'flow': return fmt.flow(v);
       case 'kFactor': return fmt.kFactor(v);
+      case 'density': return fmt.density(v);
       default: return String(Math.round(v * 100) / 100);
     }
   };

@@ -120,6 +120,7 @@ export function buildReport(r: ReportInput): Report {
       case 'flow': return round(c.flow(v));
       case 'pressure': return round(c.pressure(v));
       case 'kFactor': return round(c.kFactor(v));
+      case 'density': return round(c.density(v), 5);
       default: return round(v);
     }
   };

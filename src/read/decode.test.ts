@@ -3,7 +3,7 @@
 
 import { describe, expect, it } from 'vitest';
 import { drawingEncoding, textDecoder } from './decode.js';
-import { InputError } from './errors.js';
+import { InputError } from '../input-error.js';
 
 const bytes = (s: string) => new TextEncoder().encode(s);
 const minimal = (acadver: string, codepage: string, extra = '') =>

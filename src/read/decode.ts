@@ -1,7 +1,7 @@
 // Tells how a drawing's bytes are to be read: rejects binary DXF and non-DXF input, and decodes text by the
 // drawing's code page (R2004 and older: `$DWGCODEPAGE`; R2007 and later: UTF-8), so non-ASCII names survive.
 
-import { fail } from './errors.js';
+import { fail } from '../input-error.js';
 import { GroupCursor } from './groups.js';
 
 const BINARY_SENTINEL = 'AutoCAD Binary DXF';

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_INPUT_LIMITS } from '../config/settings.js';
 import { DxfWriter } from '../demo/dxf-writer.js';
-import { InputError } from './errors.js';
+import { InputError } from '../input-error.js';
 import { readDrawing } from './read-drawing.js';
 
 const bytes = (s: string) => new TextEncoder().encode(s);

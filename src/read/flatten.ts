@@ -6,7 +6,7 @@ import type { InputLimits } from '../config/settings.js';
 import { apply, compose, determinant, insertPlacement, meanScale, rotationOf, scaling, type Affine } from '../geometry/affine.js';
 import { distance, type Point } from '../geometry/point.js';
 import { ccwSweep, sampleArc, sampleBulge } from './arcs.js';
-import { fail } from './errors.js';
+import { fail } from '../input-error.js';
 import type { AttribEntity } from './entity-handlers.js';
 import { decodeUnicodeEscapes, plainMText, plainText } from './text-codes.js';
 import type { BlockRef, Outline, PointItem, Stroke, TextItem } from './types.js';

@@ -3,7 +3,7 @@
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { parseSizeLabel } from '../network/pipe-sizes.js';
+import { parseSizeLabel } from '../quantities/pipe-sizes.js';
 import { couldBeSizeLabel } from './layer-roles.js';
 
 describe('couldBeSizeLabel', () => {

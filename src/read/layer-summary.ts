@@ -1,7 +1,7 @@
 // What each layer of a scanned drawing holds, counted through block references without expanding them: entity
 // counts by type, references to each symbol block, linework, outlines and points. Layer roles are guessed from it.
 
-import { fail } from './errors.js';
+import { fail } from '../input-error.js';
 import { CLOSED, PAPER_SPACE, type BlockEntry, type Rows, type ScannedDxf } from './scan.js';
 import { decodeUnicodeEscapes } from './text-codes.js';
 import type { LayerSummary } from './types.js';

@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { textDecoder } from './decode.js';
-import { InputError } from './errors.js';
+import { InputError } from '../input-error.js';
 import { parseDxfText } from './parse.js';
 import { readDrawing } from './read-drawing.js';
 import { scanDxf } from './scan.js';

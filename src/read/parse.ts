@@ -5,7 +5,7 @@
 import * as dxfParserModule from 'dxf-parser';
 import type { IDxf } from 'dxf-parser';
 import { ENTITY_HANDLERS } from './entity-handlers.js';
-import { InputError } from './errors.js';
+import { InputError } from '../input-error.js';
 
 /** The parser class: a named export from its ES build (bundlers), the CommonJS default under Node. */
 const DxfParser: typeof dxfParserModule.DxfParser =

@@ -3,7 +3,7 @@
 
 import { DEFAULT_INPUT_LIMITS, LAYER_ROLES, type InputLimits, type LayerRole } from '../config/settings.js';
 import { drawingEncoding, textDecoder } from './decode.js';
-import { fail } from './errors.js';
+import { fail } from '../input-error.js';
 import { flattenDxf } from './flatten.js';
 import { assignLayerRoles, couldBeSizeLabel, isLabelLayer, onRoles } from './layer-roles.js';
 import { summarizeLayers } from './layer-summary.js';
@@ -40,6 +40,7 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
     version,
     units: units!,
     unitsFrom: options.units ? 'config' : 'header',
+    headerUnits: fromHeader,
     encoding,
     handseed: typeof handseed === 'string' ? handseed : handseed === undefined ? null : String(handseed),
     layers,

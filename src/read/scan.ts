@@ -2,7 +2,7 @@
 // layer table, and each block and entity with its type, layer and byte range, so that only what matters is parsed.
 
 import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../config/settings.js';
-import { fail, InputError } from './errors.js';
+import { fail, InputError } from '../input-error.js';
 import { GroupCursor } from './groups.js';
 
 /**

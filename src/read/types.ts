@@ -4,8 +4,9 @@
 import type { Point } from '../geometry/point.js';
 import type { LayerRoles } from './layer-roles.js';
 
-/** Length units a drawing may be in. */
-export type LengthUnit = 'in' | 'ft' | 'mm' | 'cm' | 'm';
+import type { LengthUnit } from '../config/settings.js';
+
+export type { LengthUnit };
 
 /** A block reference after expansion, at any nesting depth. */
 export interface BlockRef {
@@ -82,6 +83,8 @@ export interface DrawingFacts {
   units: LengthUnit;
   /** Where the units came from. */
   unitsFrom: 'config' | 'header';
+  /** What the header's $INSUNITS says, when it names a unit. */
+  headerUnits: LengthUnit | null;
   encoding: string;
   handseed: string | null;
   layers: LayerSummary[];

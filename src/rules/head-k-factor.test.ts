@@ -24,12 +24,10 @@ describe('head-k-factor', () => {
     expect(r.report.summary.pass).toBe(false);
   });
 
-  it('flags a K above every listed sprinkler, and a config default that is no K-factor', () => {
+  it('flags a K above every listed sprinkler; a config default that is no K-factor is refused with the config', () => {
     const high = findingsOf(checkLayout(withK('80')), 'head-k-factor');
     expect(high).toHaveLength(6);
     expect(high[0]!.limit).toBe(34.8);
-    const fromDefault = findingsOf(checkLayout({ s: 12, l: 10, heads: 3, lines: 2 }, { defaults: { kFactor: 0.5 } }), 'head-k-factor');
-    expect(fromDefault).toHaveLength(6);
-    expect(fromDefault[0]!.message).toMatch(/config's defaults\.kFactor/);
+    expect(() => checkLayout({ s: 12, l: 10, heads: 3, lines: 2 }, { defaults: { kFactor: 0.5 } })).toThrow(/"defaults\.kFactor" must be at least 1\.3 gpm\/psi½, not 0\.5/);
   });
 });

@@ -20,9 +20,9 @@ export const headKFactor: Rule = {
     return plan.heads
       .filter((h) => !(h.kFactor >= min && h.kFactor <= max))
       .map((h) => {
-        const fromDrawing = h.attributes['K'] !== undefined;
+        // Only a K attribute can be out of range: the config's default is checked with the config.
         const limit = h.kFactor < min ? min : max;
-        const cause = fromDrawing ? `its K attribute "${h.attributes['K']}" is read in ${unit}` : 'it is the config\'s defaults.kFactor';
+        const cause = `its K attribute "${h.attributes['K']}" is read in ${unit}`;
         return finding(this.meta, {
           message: `head ${h.id} has ${fmt.kFactor(h.kFactor)}, outside the listed ${fmt.kFactor(min)} to ${fmt.kFactor(max)} (${cause}): check the head and the unit`,
           handles: [h.handle], at: h.position, measured: h.kFactor, limit, quantity: 'kFactor',

@@ -2,7 +2,6 @@
 // each value says where it comes from. `limits` in the config overrides any value (adopted editions differ).
 
 import type { Hazard, Settings } from '../config/settings.js';
-import { M2_PER_FT2, M_PER_FT } from '../quantities/convert.js';
 
 export const EDITION = 'NFPA 13 (2019 edition)';
 
@@ -27,7 +26,6 @@ export interface Limits {
 
 export type LimitKey = 'maxArea' | 'maxSpacing' | 'maxWallDistance' | 'minWallDistance' | 'minHeadDistance';
 const LIMIT_KEYS: readonly LimitKey[] = ['maxArea', 'maxSpacing', 'maxWallDistance', 'minWallDistance', 'minHeadDistance'];
-const AREA_KEYS = new Set<LimitKey>(['maxArea']);
 
 interface Row { maxArea: number; maxSpacing: number; areaSource: string; spacingSource: string }
 
@@ -76,13 +74,12 @@ export function resolveLimits(settings: Settings): Limits {
       minHeadDistance: `${EDITION}, 10.2.5.3.1: 6 ft unless baffles separate the heads (from memory)`,
     },
   };
-  const si = settings.unitSystem === 'si';
-  for (const [key, value] of Object.entries(settings.limits)) {
-    if (!LIMIT_KEYS.includes(key as LimitKey)) continue;
-    const k = key as LimitKey;
-    limits[k] = si ? (AREA_KEYS.has(k) ? value / M2_PER_FT2 : value / M_PER_FT) : value;
+  for (const k of LIMIT_KEYS) {
+    const value = settings.limits[k];
+    if (value === undefined) continue;
+    limits[k] = value;
     limits.sources[k] = `config override of ${k} (the adopted code)`;
-    if (k === 'maxSpacing' && settings.limits['maxWallDistance'] === undefined) limits.maxWallDistance = limits.maxSpacing / 2;
+    if (k === 'maxSpacing' && settings.limits.maxWallDistance === undefined) limits.maxWallDistance = value / 2;
   }
   return limits;
 }

@@ -1,10 +1,13 @@
 // Every rule, in report order, and the one function that runs them all over a rule context.
 // Adding a rule means adding its module and one line here.
 
+import { configUnitsHeader } from './config-units-header.js';
+import { configUnitsMixed } from './config-units-mixed.js';
 import { designAreaLength } from './design-area-length.js';
 import { designAreaMissing } from './design-area-missing.js';
 import { designAreaNotRemote } from './design-area-not-remote.js';
 import { designAreaSize } from './design-area-size.js';
+import { designBasisBelowCurve } from './design-basis-below-curve.js';
 import { headDistanceMin } from './head-distance-min.js';
 import { headDuplicate } from './head-duplicate.js';
 import { headKFactor } from './head-k-factor.js';
@@ -24,7 +27,7 @@ import { wallDistanceMax } from './wall-distance-max.js';
 import { wallDistanceMin } from './wall-distance-min.js';
 
 export const RULES: readonly Rule[] = [
-  sourceUnattached, headUnattached, networkDisconnected, protectionArea, headSpacingMax, lineSpacingMax,
+  configUnitsHeader, configUnitsMixed, designBasisBelowCurve, sourceUnattached, headUnattached, networkDisconnected, protectionArea, headSpacingMax, lineSpacingMax,
   wallDistanceMax, wallDistanceMin, headDistanceMin, headDuplicate, headOutsideRoom, headTypeUnchecked, headKFactor, designAreaSize, designAreaLength,
   designAreaNotRemote, supplyShort, designAreaMissing, pipeSizeDefaulted, networkTopology,
 ];

@@ -6,6 +6,7 @@ import type { DesignAreas } from '../design-area/evaluate.js';
 import type { Point } from '../geometry/point.js';
 import type { Network } from '../network/types.js';
 import type { Plan } from '../read/plan.js';
+import type { DrawingFacts } from '../read/types.js';
 import type { Formatter } from '../quantities/format.js';
 import type { Coverage } from './coverage.js';
 import type { Limits } from './limits.js';
@@ -13,7 +14,7 @@ import type { Walls } from './walls.js';
 
 export type Severity = 'error' | 'warning' | 'info';
 /** The physical quantity of a finding's measured/limit values, so reports can convert them. */
-export type Quantity = 'length' | 'area' | 'flow' | 'pressure' | 'kFactor' | 'count' | 'none';
+export type Quantity = 'length' | 'area' | 'flow' | 'pressure' | 'kFactor' | 'density' | 'count' | 'none';
 
 export interface Finding {
   rule: string;
@@ -36,6 +37,8 @@ export interface RuleMeta {
 }
 
 export interface RuleContext {
+  /** What the drawing says of itself (version, units, header). */
+  drawing: DrawingFacts;
   plan: Plan;
   network: Network;
   settings: Settings;

@@ -6,7 +6,7 @@ import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
 import { extname, join, relative, sep } from 'node:path';
 import { REPORT_SCRIPT } from '../outputs/html-report.js';
-import { InputError } from '../read/errors.js';
+import { InputError } from '../input-error.js';
 
 const TYPES: Record<string, string> = {
   '.html': 'text/html; charset=utf-8', '.js': 'text/javascript; charset=utf-8', '.css': 'text/css; charset=utf-8',

@@ -5,7 +5,7 @@ import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
 import { parseSettings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
-import { InputError } from '../read/errors.js';
+import { InputError } from '../input-error.js';
 
 export interface CheckRequest { bytes: ArrayBuffer; fileName: string; config: unknown; units: UnitSystem }
 export type CheckReply =

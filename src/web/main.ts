@@ -1,7 +1,7 @@
 // The local page: takes a dropped drawing, builds a config from the form (remembered in this browser), runs
 // the check in a Web Worker, shows the report and offers the outputs, re-checking whenever the inputs change.
 
-import { LAYER_ROLES, type LayerRole } from '../config/settings.js';
+import { LAYER_ROLES, type LayerRole } from '../config/names.js';
 import { CAUTION } from '../outputs/caution.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import type { CheckReply, CheckRequest } from './check-worker.js';

@@ -4,7 +4,7 @@ import { parentPort } from 'node:worker_threads';
 import { annotatedDrawing, reportPage } from '../../dist/check/outputs.js';
 import { runCheck } from '../../dist/check/run-check.js';
 import { parseSettings } from '../../dist/config/settings.js';
-import { InputError } from '../../dist/read/errors.js';
+import { InputError } from '../../dist/input-error.js';
 
 parentPort.on('message', ({ bytes, config }) => {
   try {

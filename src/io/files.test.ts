@@ -5,7 +5,7 @@ import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../read/errors.js';
+import { InputError } from '../input-error.js';
 import { readInputFile, writeAllAtomically } from './files.js';
 
 const folder = () => mkdtempSync(join(tmpdir(), 'headcheck-files-'));

@@ -4,7 +4,7 @@
 import { createHash } from 'node:crypto';
 import { closeSync, openSync, readFileSync, renameSync, rmSync, statSync, writeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { InputError } from '../read/errors.js';
+import { InputError } from '../input-error.js';
 
 /** Reads a drawing of at most `maxMB` MiB (the config's inputLimits.fileMB), checked before it is read. */
 export function readInputFile(path: string, maxMB: number): Uint8Array {
@@ -94,14 +94,5 @@ function removeQuietly(path: string): void {
     rmSync(path, { force: true });
   } catch {
     // the folder itself is unusable; nothing was written there
-  }
-}
-
-/** Reads and parses a JSON config file, naming it in errors. */
-export function readConfigText(path: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (err) {
-    throw new InputError(`${path}: config cannot be read (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
   }
 }

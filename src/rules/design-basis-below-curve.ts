@@ -1,0 +1,33 @@
+// Rule design-basis-below-curve: a configured density and area must lie on or above the hazard's density/area
+// curve; a design below it (0.10 gpm/ft² over 1500 ft² for OH2) would pass a system that is too weak.
+
+import { CURVES, CURVE_SOURCE, curveDensity } from '../design-area/design-basis.js';
+import { finding, type Rule } from './types.js';
+
+/** Densities are compared to this many gpm/ft² (a rounding of the configured value is no finding). */
+const DENSITY_TOLERANCE = 1e-6;
+
+export const designBasisBelowCurve: Rule = {
+  meta: { id: 'design-basis-below-curve', title: "Design basis below the hazard's density/area curve", severity: 'error', reference: CURVE_SOURCE },
+  check({ design, settings, fmt, plan }) {
+    const given = settings.design;
+    if (given.density === undefined && given.area === undefined) return [];
+    const { hazard, density, baseArea } = design.basis;
+    const [startArea, startDensity] = CURVES[hazard].start;
+    const [endArea] = CURVES[hazard].end;
+    const at = plan.heads[0]?.position ?? { x: 0, y: 0 };
+    if (baseArea < startArea - 1e-6) {
+      return [finding(this.meta, {
+        message: `the design area ${fmt.area(baseArea)} is under the least area of the ${hazard} curve, ${fmt.area(startArea)} (its point: ${fmt.density(startDensity)} over ${fmt.area(startArea)})`,
+        handles: [], at, measured: baseArea, limit: startArea, quantity: 'area',
+      })];
+    }
+    const onCurve = Math.min(baseArea, endArea);
+    const need = curveDensity(hazard, onCurve)!;
+    if (density >= need - DENSITY_TOLERANCE) return [];
+    return [finding(this.meta, {
+      message: `the design density ${fmt.density(density)} over ${fmt.area(baseArea)} is below the ${hazard} curve, which asks ${fmt.density(need)} at ${fmt.area(onCurve)}`,
+      handles: [], at, measured: density, limit: need, quantity: 'density',
+    })];
+  },
+};
