@@ -11,7 +11,7 @@ import { annotatedDrawing } from '../src/check/outputs.js';
 import { runCheck } from '../src/check/run-check.js';
 import { parseSettings } from '../src/config/settings.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
-import { GroupCursor } from '../src/read/groups.js';
+import { GroupCursor } from '../src/read/dxf/groups.js';
 import { readDrawing } from '../src/read/read-drawing.js';
 import { describeWith, hasCommand, hasEzdxf, SYSTEM_PYTHON } from './support/external.js';
 

@@ -5,7 +5,7 @@ import type { Point } from '../geometry/point.js';
 import type { LengthUnit } from '../read/types.js';
 import { FEET_PER_UNIT } from '../read/units.js';
 import type { Annotations, Primitive } from './annotations.js';
-import { lineBreakOf } from '../read/groups.js';
+import { lineBreakOf } from '../read/dxf/groups.js';
 import { formatGroups } from './dxf-format.js';
 import * as rec from './dxf-records.js';
 import { dxfStructure, type TableEntry, type TableInfo } from './dxf-structure.js';

@@ -1,7 +1,7 @@
 // Where a DXF file takes the annotator's additions: its sections, its tables with their entries, the block
 // names in use, the $HANDSEED value and the handles in use. One walk over the bytes, nothing kept per entity.
 
-import { GroupCursor, latin1 } from '../read/groups.js';
+import { GroupCursor, latin1 } from '../read/dxf/groups.js';
 
 /** A value in the file: its byte range and its text. */
 export interface Field {

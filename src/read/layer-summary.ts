@@ -2,53 +2,9 @@
 // counts by type, references to each symbol block, linework, outlines and points. Layer roles are guessed from it.
 
 import { fail } from '../input-error.js';
-import { CLOSED, PAPER_SPACE, type BlockEntry, type Rows, type ScannedDxf } from './scan.js';
-import { decodeUnicodeEscapes } from './text-codes.js';
+import { blockLookup, CLOSED, effectiveLayer, nameDecoder, PAPER_SPACE, rowLayers, type BlockEntry, type DrawingSource, type Rows } from './source.js';
+import { kindOf } from './entities/registry.js';
 import type { LayerSummary } from './types.js';
-
-export interface BlockLookup {
-  /** The block a reference names (exact name first, then case-insensitively), or null. */
-  find(name: string): BlockEntry | null;
-  /** Whether the block holds further block references. */
-  hasNestedRefs(block: BlockEntry): boolean;
-}
-
-export function blockLookup(scan: ScannedDxf): BlockLookup {
-  const exact = new Map<string, BlockEntry>();
-  const upper = new Map<string, BlockEntry>();
-  for (const b of scan.blocks) {
-    const name = decodeUnicodeEscapes(b.name);
-    exact.set(name, b);
-    if (!upper.has(name.toUpperCase())) upper.set(name.toUpperCase(), b);
-  }
-  const nesting = new Set(scan.blocks.filter((b) => {
-    for (let i = b.rows.first; i < b.rows.end; i++) if (scan.names[scan.table.type[i]!] === 'INSERT') return true;
-    return false;
-  }));
-  return {
-    find: (name) => exact.get(name) ?? upper.get(name.toUpperCase()) ?? null,
-    hasNestedRefs: (block) => nesting.has(block),
-  };
-}
-
-/** Decodes layer and block names' \U+ escapes, each distinct name once (a drawing repeats a few names). */
-export function nameDecoder(): (raw: string) => string {
-  const known = new Map<string, string>();
-  return (raw) => {
-    let name = known.get(raw);
-    if (name === undefined) known.set(raw, (name = decodeUnicodeEscapes(raw)));
-    return name;
-  };
-}
-
-/** Each row's layer name, \U+ escapes decoded (each distinct name once). */
-export function rowLayers(scan: ScannedDxf): (row: number) => string {
-  const decoded = scan.names.map(decodeUnicodeEscapes);
-  return (row) => { const k = scan.table.layer[row]!; return k < 0 ? '0' : decoded[k]!; };
-}
-
-/** The layer an entity counts on: its own, or the reference's for an entity on layer 0 inside a block. */
-export const effectiveLayer = (own: string, inherited: string | null): string => (own === '0' && inherited !== null ? inherited : own);
 
 type Tally = Map<string, LayerSummary>;
 
@@ -73,7 +29,7 @@ function addTally(into: Tally, from: Tally, times: number): void {
  * contents count once per placed copy (MINSERT arrays and nesting multiply). A block that contains itself, or
  * nesting deeper than `maxDepth`, is an error.
  */
-export function summarizeLayers(scan: ScannedDxf, maxDepth: number): LayerSummary[] {
+export function summarizeLayers(scan: Pick<DrawingSource, 'blocks' | 'names' | 'table' | 'modelSpace' | 'layerNames'>, maxDepth: number): LayerSummary[] {
   const blocks = blockLookup(scan);
   const named = nameDecoder();
   const layerOf = rowLayers(scan);
@@ -106,9 +62,10 @@ export function summarizeLayers(scan: ScannedDxf, maxDepth: number): LayerSummar
       const layer = effectiveLayer(layerOf(row), inherited);
       const s = on(layer);
       s.counts[type] = (s.counts[type] ?? 0) + 1;
-      if (type === 'LINE' || type === 'ARC' || type === 'LWPOLYLINE' || type === 'POLYLINE') s.strokes++;
-      if ((table.flags[row]! & CLOSED) || type === 'CIRCLE') s.outlines++;
-      if (type === 'POINT') s.points++;
+      const kind = kindOf(type);
+      if (kind?.shape === 'stroke') s.strokes++;
+      if ((kind?.closedOutline && (table.flags[row]! & CLOSED)) || kind?.shape === 'outline') s.outlines++;
+      if (kind?.shape === 'point') s.points++;
       if (type !== 'INSERT' || table.block[row]! < 0) continue;
       const block = blocks.find(named(names[table.block[row]!]!));
       if (!block) continue;

@@ -4,12 +4,13 @@
 
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { textDecoder } from './decode.js';
+import { DEFAULT_INPUT_LIMITS } from '../config/settings.js';
 import { InputError } from '../input-error.js';
-import { parseDxfText } from './parse.js';
+import { textDecoder } from './dxf/decode.js';
+import { dxfSource } from './dxf/dxf-source.js';
+import { scanDxf } from './dxf/scan.js';
 import { readDrawing } from './read-drawing.js';
-import { scanDxf } from './scan.js';
-import { selectedText } from './select.js';
+import { decodeSelected } from './select.js';
 
 const dxf = (...pairs: (string | number)[]) => {
   let s = '';
@@ -17,13 +18,11 @@ const dxf = (...pairs: (string | number)[]) => {
   return s;
 };
 
-/** The reader's path to dxf-parser, every layer wanted. */
+/** The reader's decoding, every layer wanted. */
 const utf8 = textDecoder('utf-8');
 const scan = (text: string) => scanDxf(new TextEncoder().encode(text), utf8);
-const parseAll = (text: string) => {
-  const bytes = new TextEncoder().encode(text);
-  return parseDxfText(selectedText(bytes, scanDxf(bytes, utf8), { layer: () => true, label: () => true }, utf8));
-};
+const parseAll = (text: string) =>
+  decodeSelected(dxfSource(new TextEncoder().encode(text), DEFAULT_INPUT_LIMITS), { layer: () => true, label: () => true });
 
 describe('damaged structure', () => {
   it('a POLYLINE followed by a LINE without SEQEND is read, not spun on', () => {
@@ -39,9 +38,9 @@ describe('damaged structure', () => {
       10, 5, 20, 4, 0, 'LINE', 8, 'P', 10, 0, 20, 1, 11, 5, 21, 1, 0, 'ENDSEC', 0, 'EOF');
     const parsed = parseAll(text);
     expect(parsed.entities.map((e) => e.type)).toEqual(['LWPOLYLINE', 'LINE']);
-    const poly = parsed.entities[0] as unknown as { vertices: { x: number; y: number }[]; shape: boolean; layer: string };
-    expect(poly.vertices).toEqual([{ x: 0, y: 0 }, { x: 5, y: 0 }, { x: 5, y: 4 }]);
-    expect(poly.shape).toBe(true);
+    const poly = parsed.entities[0] as unknown as { vertices: { x: number; y: number }[]; closed: boolean; layer: string };
+    expect(poly.vertices.map(({ x, y }) => ({ x, y }))).toEqual([{ x: 0, y: 0 }, { x: 5, y: 0 }, { x: 5, y: 4 }]);
+    expect(poly.closed).toBe(true);
     expect(poly.layer).toBe('A-WALL');
   });
 
@@ -59,9 +58,11 @@ describe('damaged structure', () => {
     expect(damaged.strokes.length).toBe(original.strokes.length);
   });
 
-  it('types no stage reads are skipped but keep their layer for the layer counts', () => {
+  it('types no stage reads are not decoded but keep their layer for the layer counts', () => {
     const text = dxf(0, 'SECTION', 2, 'ENTITIES', 0, 'SPLINE', 8, 'A-DETAIL', 10, 0, 20, 0, 10, 1, -7, 'x', 0, 'DIMENSION', 8, 'A-DIMS', 0, 'ENDSEC', 0, 'EOF');
-    expect(parseAll(text).entities.map((e) => [e.type, e.layer])).toEqual([['SPLINE', 'A-DETAIL'], ['DIMENSION', 'A-DIMS']]);
+    expect(parseAll(text).entities).toEqual([]);
+    const drawing = readDrawing(new TextEncoder().encode(text), { units: 'ft' });
+    expect(drawing.layers.map((l) => [l.name, l.counts])).toEqual([['A-DETAIL', { SPLINE: 1 }], ['A-DIMS', { DIMENSION: 1 }]]);
   });
 
   it('a LAYER table without ENDTAB still gives its layer names and the entities', () => {

@@ -2,14 +2,12 @@
 // feet, what the roles need: head and source symbols, pipe and wall linework, room and area outlines, labels). Pure: no file access, so it runs the same in the CLI, a worker and the browser.
 
 import { DEFAULT_INPUT_LIMITS, LAYER_ROLES, type InputLimits, type LayerRole } from '../config/settings.js';
-import { drawingEncoding, textDecoder } from './decode.js';
 import { fail } from '../input-error.js';
-import { flattenDxf } from './flatten.js';
+import { dxfSource } from './dxf/dxf-source.js';
+import { flatten } from './flatten.js';
 import { assignLayerRoles, couldBeSizeLabel, isLabelLayer, onRoles } from './layer-roles.js';
 import { summarizeLayers } from './layer-summary.js';
-import { parseDxfText } from './parse.js';
-import { scanDxf } from './scan.js';
-import { selectedText } from './select.js';
+import { decodeSelected } from './select.js';
 import type { Drawing, LengthUnit } from './types.js';
 import { FEET_PER_UNIT, unitFromInsunits } from './units.js';
 
@@ -24,25 +22,23 @@ export interface ReadOptions {
 export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawing {
   const limits = options.limits ?? DEFAULT_INPUT_LIMITS;
   if (bytes.length > limits.fileMB * 1024 * 1024) fail(`larger than ${limits.fileMB} MiB (inputLimits.fileMB)`);
-  const { dxf, layers, roles, version, encoding } = parseByRole(bytes, options.layers ?? {}, limits);
-  const header = dxf.header ?? {};
-  const fromHeader = unitFromInsunits(header['$INSUNITS']);
+  const { raw, layers, roles, header, encoding } = decodeByRole(bytes, options.layers ?? {}, limits);
+  const fromHeader = unitFromInsunits(header.insunits);
   const units = options.units ?? fromHeader;
   if (!units) {
     fail('the drawing does not state its length unit ($INSUNITS is missing or unitless); set "units" in the config (in, ft, mm, cm or m)');
   }
-  const flat = flattenDxf(dxf, FEET_PER_UNIT[units!], limits, {
+  const flat = flatten(raw, FEET_PER_UNIT[units!], limits, {
     refs: onRoles(roles, 'heads', 'source'), strokes: onRoles(roles, 'pipes', 'walls'), outlines: onRoles(roles, 'walls', 'designArea'),
     texts: (layer) => isLabelLayer(layer, roles), points: onRoles(roles, 'source'),
   });
-  const handseed = header['$HANDSEED'];
   return {
-    version,
+    version: header.version,
     units: units!,
     unitsFrom: options.units ? 'config' : 'header',
     headerUnits: fromHeader,
     encoding,
-    handseed: typeof handseed === 'string' ? handseed : handseed === undefined ? null : String(handseed),
+    handseed: header.handseed,
     layers,
     roles,
     refs: flat.refs,
@@ -54,18 +50,16 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
 }
 
 /**
- * Scans the file, assigns the layer roles, and decodes and parses what they need. A function of its own so
- * that the scan and the selected text, the largest things read, are garbage once it returns.
+ * Scans the file, assigns the layer roles, and decodes what they need. A function of its own so that the scan,
+ * the largest thing read, is garbage once it returns.
  */
-function parseByRole(bytes: Uint8Array, patterns: Partial<Record<LayerRole, string[]>>, limits: InputLimits) {
-  const { encoding, version } = drawingEncoding(bytes);
-  const decode = textDecoder(encoding);
-  const scan = scanDxf(bytes, decode, limits);
-  const layers = summarizeLayers(scan, limits.blockDepth);
+function decodeByRole(bytes: Uint8Array, patterns: Partial<Record<LayerRole, string[]>>, limits: InputLimits) {
+  const source = dxfSource(bytes, limits);
+  const layers = summarizeLayers(source, limits.blockDepth);
   const roles = assignLayerRoles(layers, patterns);
-  const dxf = parseDxfText(selectedText(bytes, scan, {
+  const raw = decodeSelected(source, {
     layer: onRoles(roles, ...LAYER_ROLES),
     label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
-  }, decode));
-  return { dxf, layers, roles, version, encoding };
+  });
+  return { raw, layers, roles, header: source.header, encoding: source.encoding };
 }

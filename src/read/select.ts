@@ -1,9 +1,10 @@
-// Cuts a scanned drawing down to what the later stages read: entities on layers that play a role, texts that
-// may be size labels, references whose blocks reach either, and the blocks they use. Only this text is decoded
-// and parsed, so a plan's architectural background costs a scan, not a parse.
+// Cuts a drawing down to what the later stages read and decodes only that: entities on layers that play a role,
+// texts that may be size labels, references whose blocks reach either, and the blocks they use. A plan's
+// architectural background costs a scan, not a decode.
 
-import { blockLookup, effectiveLayer, nameDecoder, rowLayers } from './layer-summary.js';
-import { PAPER_SPACE, type BlockEntry, type Decode, type ScannedDxf } from './scan.js';
+import type { Point } from '../geometry/point.js';
+import type { EntityBase } from './entities/types.js';
+import { blockLookup, effectiveLayer, PAPER_SPACE, rowLayers, type BlockEntry, type DrawingSource } from './source.js';
 
 export interface Wanted {
   /** Layers whose every entity is read. */
@@ -12,25 +13,26 @@ export interface Wanted {
   label(layer: string, text: string): boolean;
 }
 
-const isText = (type: string) => type === 'TEXT' || type === 'MTEXT';
+export interface RawBlock { name: string; base: Point; entities: EntityBase[] }
 
-/**
- * DXF text holding the header, the blocks in use and the wanted model-space entities of the drawing `bytes`, in
- * their original order, decoded with `decode`.
- */
-export function selectedText(bytes: Uint8Array, scan: ScannedDxf, wanted: Wanted, decode: Decode): string {
-  const blocks = blockLookup(scan);
-  const named = nameDecoder();
-  const layerOf = rowLayers(scan);
-  const { table, names } = scan;
+/** The decoded part of a drawing: the wanted model-space entities in their order, and the blocks they use. */
+export interface RawDrawing {
+  entities: EntityBase[];
+  /** Blocks by name as written; `block` finds one exactly, then case-insensitively. */
+  block(name: string): RawBlock | null;
+}
+
+export function decodeSelected(source: DrawingSource, wanted: Wanted): RawDrawing {
+  const blocks = blockLookup(source);
+  const layerOf = rowLayers(source);
+  const { table } = source;
   const reachMemo = new Map<string, boolean>();
   const open = new Set<BlockEntry>();
-  const blockOf = (row: number) => (names[table.type[row]!] === 'INSERT' && table.block[row]! >= 0 ? blocks.find(named(names[table.block[row]!]!)) : null);
   const wants = (row: number, inherited: string | null): boolean => {
     const layer = effectiveLayer(layerOf(row), inherited);
     if (wanted.layer(layer)) return true;
-    if (isText(names[table.type[row]!]!) && wanted.label(layer, decode(bytes.subarray(table.textStart[row]!, table.textEnd[row]!)))) return true;
-    const block = blockOf(row);
+    if (table.textStart[row]! >= 0 && wanted.label(layer, source.labelText(row))) return true;
+    const block = blocks.of(row);
     return block !== null && reaches(block, layer);
   };
   /** Whether a placement of `block` on layer `inherited` holds anything wanted. */
@@ -46,34 +48,32 @@ export function selectedText(bytes: Uint8Array, scan: ScannedDxf, wanted: Wanted
     reachMemo.set(key, result);
     return result;
   };
-  const chosen: number[] = [];
-  for (const run of scan.modelSpace) for (let row = run.first; row < run.end; row++) if (!(table.flags[row]! & PAPER_SPACE) && wants(row, null)) chosen.push(row);
-  // Whole definitions of the blocks the chosen references use, nested ones included.
+  const entities: EntityBase[] = [];
   const used = new Set<BlockEntry>();
-  const stack = chosen.map(blockOf).filter((b): b is BlockEntry => b !== null);
+  const stack: BlockEntry[] = [];
+  for (const run of source.modelSpace) {
+    for (let row = run.first; row < run.end; row++) {
+      if (table.flags[row]! & PAPER_SPACE || !wants(row, null)) continue;
+      const e = source.entity(row);
+      if (e) entities.push(e);
+      const b = blocks.of(row);
+      if (b) stack.push(b);
+    }
+  }
+  // Whole definitions of the blocks the chosen references use, nested ones included.
+  const decoded = new Map<BlockEntry, RawBlock>();
   while (stack.length) {
     const b = stack.pop()!;
     if (used.has(b)) continue;
     used.add(b);
-    for (let row = b.rows.first; row < b.rows.end; row++) { const inner = blockOf(row); if (inner) stack.push(inner); }
+    const inner: EntityBase[] = [];
+    for (let row = b.rows.first; row < b.rows.end; row++) {
+      const e = source.entity(row);
+      if (e) inner.push(e);
+      const nested = blocks.of(row);
+      if (nested) stack.push(nested);
+    }
+    decoded.set(b, { name: b.name, base: source.blockBase(b), entities: inner });
   }
-  const header = scan.sections.find((s) => s.name === 'HEADER');
-  const parts: Uint8Array[] = [];
-  const ascii = (s: string) => parts.push(Uint8Array.from(s, (ch) => ch.charCodeAt(0)));
-  /** A range of the original bytes, ending with a line break. */
-  const piece = (start: number, end: number) => {
-    parts.push(bytes.subarray(start, end));
-    if (end > start && bytes[end - 1] !== 10) ascii('\n');
-  };
-  if (header) piece(header.start, header.end);
-  ascii('  0\nSECTION\n  2\nBLOCKS\n');
-  // A block without a name cannot be expanded (dxf-parser drops it, and says so on the console): left out.
-  for (const b of scan.blocks) if (used.has(b) && b.name !== '') piece(b.start, b.end);
-  ascii('  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n');
-  for (const row of chosen) piece(table.start[row]!, table.end[row]!);
-  ascii('  0\nENDSEC\n  0\nEOF\n');
-  const joined = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
-  let at = 0;
-  for (const p of parts) { joined.set(p, at); at += p.length; }
-  return decode(joined);
+  return { entities, block: (name) => { const b = blocks.find(name); return b ? (decoded.get(b) ?? null) : null; } };
 }

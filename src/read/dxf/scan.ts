@@ -1,50 +1,11 @@
 // Walks a DXF file's group structure once on its bytes, decoding only the values it needs: the sections, the
 // layer table, and each block and entity with its type, layer and byte range, so that only what matters is parsed.
 
-import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../config/settings.js';
-import { fail, InputError } from '../input-error.js';
+import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../../config/settings.js';
+import { fail, InputError } from '../../input-error.js';
+import { kindOf } from '../entities/registry.js';
+import { CLOSED, PAPER_SPACE, type BlockEntry, type EntityTable, type Rows } from '../source.js';
 import { GroupCursor } from './groups.js';
-
-/**
- * The scanned entities, one row each with the ATTRIB, VERTEX and SEQEND records that belong to it, in columns
- * of typed arrays: a drawing's background of hundreds of thousands of entities puts no object on the JS heap.
- */
-export interface EntityTable {
-  count: number;
-  /** Index into `names` of its type, and of its layer as written (\U+ escapes not yet decoded; -1: none given, layer "0"). */
-  type: Int32Array;
-  layer: Int32Array;
-  /** INSERT: index into `names` of the block name (-1: none), and how many copies a MINSERT array places. */
-  block: Int32Array;
-  copies: Float64Array;
-  /** CLOSED and PAPER_SPACE bits. */
-  flags: Uint8Array;
-  /** Byte range of the entity and its trailing records. */
-  start: Float64Array;
-  end: Float64Array;
-  /** TEXT and MTEXT: byte range of the value as written (MTEXT: its last chunk, group 1); -1 for other entities. */
-  textStart: Float64Array;
-  textEnd: Float64Array;
-}
-
-/** Closed LWPOLYLINE or POLYLINE. */
-export const CLOSED = 1;
-export const PAPER_SPACE = 2;
-
-/** Rows [first, end) of the entity table. */
-export interface Rows {
-  first: number;
-  end: number;
-}
-
-export interface BlockEntry {
-  name: string;
-  /** Byte range from its BLOCK record to the end of its ENDBLK record. */
-  start: number;
-  end: number;
-  /** Its entities' rows. */
-  rows: Rows;
-}
 
 export interface Section {
   name: string;
@@ -55,6 +16,9 @@ export interface Section {
 
 export interface ScannedDxf {
   sections: Section[];
+  /** Header variables the reader uses, as written: $INSUNITS and $HANDSEED. */
+  insunits: number | null;
+  handseed: string | null;
   /** Layer names of the LAYER table. */
   layerNames: string[];
   /** Each distinct type, layer and block name, as the entity table refers to them. */
@@ -90,6 +54,8 @@ export type Decode = (bytes: Uint8Array) => string;
  * Scans a drawing's bytes; names are decoded with `decode`. A group code line must hold an integer and nothing
  * else ("1e308" or "10.5" is damage, not code 1 or 10): anything else is a one-line error naming the line.
  */
+export type { BlockEntry, EntityTable, Rows };
+
 export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLimits, 'entities' | 'textLength'> = DEFAULT_INPUT_LIMITS): ScannedDxf {
   const c = new GroupCursor(bytes);
   const next = (): boolean => {
@@ -132,7 +98,7 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
   const valueIs = (word: string) => c.valueIs(word);
 
   let table = tableWithRoom(1024);
-  const out: Omit<ScannedDxf, 'names' | 'table'> = { sections: [], layerNames: [], blocks: [], modelSpace: [] };
+  const out: Omit<ScannedDxf, 'names' | 'table'> = { sections: [], insunits: null, handseed: null, layerNames: [], blocks: [], modelSpace: [] };
   let more = next();
   /** Reads one entity whose "0 TYPE" group is current, with its trailing records, into the next row; leaves the next code 0 current. */
   const readEntity = (): void => {
@@ -140,10 +106,10 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     if (row >= limits.entities) fail(`more than ${limits.entities} entities (inputLimits.entities)`);
     if (row === table.type.length) table = tableWithRoom(2 * row, table);
     const typeIndex = nameIndex();
-    const type = names[typeIndex]!;
-    const isInsert = type === 'INSERT';
-    const isText = type === 'TEXT' || type === 'MTEXT';
-    const isPolyline = type === 'LWPOLYLINE' || type === 'POLYLINE';
+    const kept = kindOf(names[typeIndex]!)?.scan;
+    const isInsert = kept?.block === true;
+    const isText = kept?.label === true;
+    const isPolyline = kept?.closedBit === true;
     table.type[row] = typeIndex;
     table.start[row] = c.start;
     let layer = -1;
@@ -184,7 +150,8 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     return true;
   };
 
-  while (more) {
+  // Bytes after the EOF group (a DOS end-of-file byte, blank lines, trailing text) are no part of the drawing.
+  while (more && !(c.code === 0 && valueIs('EOF'))) {
     if (!(c.code === 0 && valueIs('SECTION'))) { more = next(); continue; }
     const start = c.start;
     more = next();
@@ -196,7 +163,7 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
         if (c.code !== 0) { more = next(); continue; }
         if (name === 'BLOCKS' && valueIs('BLOCK')) {
           const block: BlockEntry = { name: '', start: c.start, end: 0, rows: { first: table.count, end: table.count } };
-          // Its name is group 2, as dxf-parser reads it (a block it cannot name, it drops).
+          // Its name is group 2 (a block without one cannot be referenced, and is not decoded).
           while ((more = next()) && c.code !== 0) if (c.code === 2) block.name = sharedName();
           while (more && c.code === 0 && !valueIs('ENDBLK') && !valueIs('ENDSEC') && !valueIs('SECTION') && !valueIs('EOF')) readEntity();
           block.rows.end = table.count;
@@ -218,6 +185,14 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
         if (!isLayer) continue;
         while (more && !codeIs(0) && !codeIs(2)) more = next();
         if (more && codeIs(2)) out.layerNames.push(sharedName());
+      }
+    } else if (name === 'HEADER') {
+      let variable = '';
+      while (within(name)) {
+        if (codeIs(9)) variable = value();
+        else if (variable === '$INSUNITS' && codeIs(70)) out.insunits = Number(value());
+        else if (variable === '$HANDSEED' && codeIs(5)) out.handseed = value();
+        more = next();
       }
     } else {
       while (within(name)) more = next();
