@@ -160,6 +160,121 @@ def transforms_truth(doc):
     return sorted(out, key=lambda h: (round(h["x"], 6), round(h["y"], 6)))
 
 
+def room_and_pipes(msp, layer_pipe="FP-PIPE", layer_wall="A-WALL", layer_source="FP-SOURCE"):
+    """The bay's room, riser, feed main, cross main and three branch lines (heads at x = 6, 18, 30, 42 ft)."""
+    msp.add_lwpolyline([p(0, 0), p(48, 0), p(48, 30), p(0, 30)], close=True, dxfattribs={"layer": layer_wall})
+    msp.add_blockref("RISER", p(-10, 15), dxfattribs={"layer": layer_source})
+    msp.add_line(p(-10, 15), p(2, 15), dxfattribs={"layer": layer_pipe})
+    msp.add_lwpolyline([p(2, 5), p(2, 25)], dxfattribs={"layer": layer_pipe})
+    for y in (5, 15, 25):
+        msp.add_line(p(2, y), p(42, y), dxfattribs={"layer": layer_pipe})
+    for text, x, y in [("2-1/2\"", -5, 15.6), ("2\"", 2.6, 20), ("1\"", 12, 5.6), ("1\"", 12, 15.6), ("1\"", 12, 25.6)]:
+        msp.add_text(text, dxfattribs={"layer": layer_pipe, "height": 4, "insert": p(x, y)})
+
+
+HEAD_POINTS = [(x, y) for y in (5, 15, 25) for x in (6, 18, 30, 42)]
+
+
+def build_exploded():
+    """The bay with its heads exploded: each head a plain CIRCLE (3 in radius) on the head layer, no block."""
+    doc = ezdxf.new("AC1015")
+    doc.header["$INSUNITS"] = 1
+    for name in ("FP-HEAD", "FP-PIPE", "A-WALL", "FP-SOURCE"):
+        doc.layers.new(name)
+    define_blocks(doc)
+    msp = doc.modelspace()
+    room_and_pipes(msp)
+    for x, y in HEAD_POINTS:
+        msp.add_circle(p(x, y), 3, dxfattribs={"layer": "FP-HEAD"})
+    return doc
+
+
+def build_busy():
+    """Heads on a layer named like nothing in particular, beside furniture, light fixtures and dimension ticks."""
+    doc = ezdxf.new("AC1032")
+    doc.header["$INSUNITS"] = 1
+    for name in ("FP-DEVICES", "FP-PIPE", "A-WALL", "FP-SOURCE", "I-FURN", "E-LITE", "A-ANNO-DIMS"):
+        doc.layers.new(name)
+    define_blocks(doc)
+    head = doc.blocks.new("SPRK-UPRIGHT", base_point=(0, 0))
+    head.add_circle((0, 0), 3)
+    head.add_line((-3, 0), (3, 0))
+    head.add_attdef("K", (4, 4), dxfattribs={"height": 2}).dxf.text = "5.6"
+    chair = doc.blocks.new("CHAIR-A", base_point=(0, 0))
+    chair.add_lwpolyline([(0, 0), (20, 0), (20, 22), (0, 22)], close=True)
+    light = doc.blocks.new("LIGHT-2X4", base_point=(0, 0))
+    light.add_lwpolyline([(0, 0), (24, 0), (24, 48), (0, 48)], close=True)
+    tick = doc.blocks.new("TICK", base_point=(0, 0))
+    tick.add_line((-0.05, -0.05), (0.05, 0.05))
+    msp = doc.modelspace()
+    room_and_pipes(msp)
+    for x, y in HEAD_POINTS:
+        msp.add_blockref("SPRK-UPRIGHT", p(x, y), dxfattribs={"layer": "FP-DEVICES"}).add_attrib("K", "5.6", p(x + 0.5, y + 0.5))
+    for i in range(40):
+        msp.add_blockref("CHAIR-A", p(3 + (i % 10) * 4, 2 + (i // 10) * 7), dxfattribs={"layer": "I-FURN"})
+    for i in range(20):
+        msp.add_blockref("LIGHT-2X4", p(4 + (i % 5) * 9, 3 + (i // 5) * 7), dxfattribs={"layer": "E-LITE"})
+    for i in range(60):
+        msp.add_blockref("TICK", p(i * 0.8, -2), dxfattribs={"layer": "A-ANNO-DIMS"})
+    return doc
+
+
+def layer_counts(doc):
+    """Model-space entity counts by layer and type as ezdxf reads them, a block's contents counted once per placed
+    copy on the layer they take (their own, or the reference's for layer 0); attribute definitions not counted."""
+    counts = {}
+
+    def count(entity, layer, times):
+        by_type = counts.setdefault(layer, {})
+        by_type[entity.dxftype()] = by_type.get(entity.dxftype(), 0) + times
+        if entity.dxftype() == "INSERT":
+            copies = entity.dxf.get("row_count", 1) * entity.dxf.get("column_count", 1)
+            for inner in doc.blocks[entity.dxf.name]:
+                if inner.dxftype() != "ATTDEF":
+                    count(inner, layer if inner.dxf.layer == "0" else inner.dxf.layer, times * copies)
+
+    for e in doc.modelspace():
+        count(e, e.dxf.layer, 1)
+    return counts
+
+
+def block_sizes(doc, names):
+    """Each block's drawn extent across (the larger of width and height; attribute definitions are not drawn), by
+    ezdxf's bounding-box module."""
+    from ezdxf import bbox
+    out = {}
+    for name in names:
+        box = bbox.extents([e for e in doc.blocks[name] if e.dxftype() != "ATTDEF"], fast=True)
+        out[name] = round(max(box.size.x, box.size.y), 6)
+    return out
+
+
+def first_contact(out):
+    """Drawings a reviewer meets first: exploded heads, heads among furniture, a drawing that states no unit."""
+    truth = {}
+    exploded = build_exploded()
+    exploded.saveas(out / "exploded-heads.dxf")
+    doc = ezdxf.readfile(out / "exploded-heads.dxf")
+    truth["exploded"] = {
+        "file": "exploded-heads.dxf",
+        "heads": sorted(({"handle": c.dxf.handle, "x": c.dxf.center.x / FT, "y": c.dxf.center.y / FT}
+                         for c in doc.modelspace().query("CIRCLE[layer=='FP-HEAD']")), key=lambda h: (h["y"], h["x"])),
+    }
+    busy = build_busy()
+    busy.saveas(out / "busy-layers.dxf")
+    doc = ezdxf.readfile(out / "busy-layers.dxf")
+    truth["busy"] = {
+        "file": "busy-layers.dxf",
+        "heads": sorted(({"handle": e.dxf.handle, "x": e.dxf.insert.x / FT, "y": e.dxf.insert.y / FT}
+                         for e in doc.modelspace().query("INSERT[name=='SPRK-UPRIGHT']")), key=lambda h: (h["y"], h["x"])),
+        "layers": layer_counts(doc),
+        "blockSizes": block_sizes(doc, ["SPRK-UPRIGHT", "CHAIR-A", "LIGHT-2X4", "TICK", "RISER"]),
+    }
+    r12 = ezdxf.readfile(out / "bay2-r12.dxf")
+    truth["noUnit"] = {"file": "bay2-r12.dxf", "insunits": r12.header.get("$INSUNITS", None), "layers": layer_counts(r12)}
+    (out / "first-contact.truth.json").write_text(json.dumps(truth, indent=2, ensure_ascii=False) + "\n", encoding="utf-8")
+
+
 def main(out_dir):
     out = Path(out_dir)
     out.mkdir(parents=True, exist_ok=True)
@@ -181,6 +296,7 @@ def main(out_dir):
     tdoc.saveas(out / "transforms.dxf")
     truth["transforms"] = {"file": "transforms.dxf", "heads": transforms_truth(ezdxf.readfile(out / "transforms.dxf"))}
     (out / "bay2.truth.json").write_text(json.dumps(truth, indent=2, ensure_ascii=False) + "\n", encoding="utf-8")
+    first_contact(out)
 
 
 if __name__ == "__main__":

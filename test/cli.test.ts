@@ -132,9 +132,34 @@ describe('headcheck layers and demo', () => {
   it('lists layers with counts and roles', async () => {
     const r = await run('layers', 'fixtures/bay2-r2018.dxf');
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/FP-HEAD\s+heads\s+CIRCLE 13, INSERT 14, LINE 13/);
+    expect(r.out).toMatch(/FP-HEAD\s+heads\s+CIRCLE 13, INSERT 14, LINE 13\s+SPK ×13 \(6 in\)/);
     expect(r.out).toMatch(/FP-PIPE\s+pipes/);
     expect(r.out).toMatch(/A-ANNO-\u00d8/);
+  });
+
+  it('layers works without a unit; --json and --config-out write the contract shape and a config check accepts', async () => {
+    const json = join(dir, 'layers.json');
+    const config = join(dir, 'starter.json');
+    const r = await run('layers', 'fixtures/bay2-r12.dxf', '--json', json, '--config-out', config);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/no unit stated/);
+    const report = JSON.parse(readFileSync(json, 'utf8'));
+    expect(report.units).toBeNull();
+    const head = report.layers.find((l: { name: string }) => l.name === 'FP-HEAD');
+    expect(head).toMatchObject({ role: 'heads', entities: { INSERT: 14, CIRCLE: 13, LINE: 13 } });
+    expect(head.blocks[0]).toMatchObject({ name: 'SPK', count: 13, size: 6 });
+    // the drawing states no unit: the starter config says so, and check then asks for one
+    const starter = JSON.parse(readFileSync(config, 'utf8'));
+    expect(starter.layers.heads).toEqual(['FP-HEAD']);
+    expect((await run('check', 'fixtures/bay2-r12.dxf', '--config', config)).err).toMatch(/length unit/);
+    const withUnit = await run('check', 'fixtures/bay2-r12.dxf', '--config', config, '--drawing-units', 'in');
+    expect(withUnit.code).toBe(1);
+    expect(withUnit.out).toMatch(/13 heads/);
+  });
+
+  it('--drawing-units wins over the config and is checked', async () => {
+    expect((await run('layers', 'fixtures/bay2-r2018.dxf', '--drawing-units', 'mm')).out).toMatch(/units mm/);
+    expect((await run('check', 'fixtures/bay2-r2018.dxf', '--drawing-units', 'yd')).code).toBe(2);
   });
 
   it('builds and checks the demo', async () => {

@@ -14,11 +14,13 @@ describeWith('python3-ezdxf', hasEzdxf(), 'fixtures written by ezdxf', () => {
     try {
       const r = spawnSync(SYSTEM_PYTHON, ['scripts/make-fixtures.py', dir], { encoding: 'utf8', timeout: 120_000 });
       expect(r.status, r.stderr).toBe(0);
-      const fresh = JSON.parse(readFileSync(join(dir, 'bay2.truth.json'), 'utf8'));
-      const committed = JSON.parse(readFileSync('fixtures/bay2.truth.json', 'utf8'));
-      delete fresh.writer;
-      delete committed.writer;
-      expect(fresh).toEqual(committed);
+      for (const truth of ['bay2.truth.json', 'first-contact.truth.json']) {
+        const fresh = JSON.parse(readFileSync(join(dir, truth), 'utf8'));
+        const committed = JSON.parse(readFileSync(join('fixtures', truth), 'utf8'));
+        delete fresh.writer;
+        delete committed.writer;
+        expect(fresh).toEqual(committed);
+      }
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }

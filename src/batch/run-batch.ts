@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { Piscina } from 'piscina';
 import { writeAllAtomically } from '../io/files.js';
+import type { LengthUnit } from '../config/settings.js';
 import { REPORT_UNITS, type UnitSystem } from '../quantities/convert.js';
 import { TOOL } from '../version.js';
 import { findConfig } from '../io/config-file.js';
@@ -18,6 +19,8 @@ export interface BatchOptions {
   inputs: string[];
   out: string;
   config?: string;
+  /** The drawings' length unit, over their configs' and headers'. */
+  drawingUnits?: LengthUnit;
   units: UnitSystem;
   outputs: { json: boolean; dxf: boolean; html: boolean };
   workers: number;
@@ -51,7 +54,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   const resultsDir = join(o.out, '.results');
   mkdirSync(resultsDir, { recursive: true });
   const keyOf = (item: BatchItem, config: string | undefined) => sha(JSON.stringify({
-    tool: TOOL.version, file: sha(readFileSync(item.file)), config: config ? sha(readFileSync(config)) : null, units: o.units, outputs: o.outputs,
+    tool: TOOL.version, file: sha(readFileSync(item.file)), config: config ? sha(readFileSync(config)) : null, units: o.units, drawingUnits: o.drawingUnits ?? null, outputs: o.outputs,
   }));
   const rows: BatchRow[] = new Array(items.length);
   const todo: { i: number; item: BatchItem; config: string | undefined; key: string }[] = [];
@@ -97,7 +100,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   const bySize = [...todo].sort((a, b) => statSync(b.item.file).size - statSync(a.item.file).size);
   try {
     await Promise.all(bySize.map(async ({ i, item, config, key }) => {
-      const task: BatchTask = { file: item.file, name: item.name, config: config ?? null, outDir: o.out, outputs: o.outputs, units: o.units };
+      const task: BatchTask = { file: item.file, name: item.name, config: config ?? null, drawingUnits: o.drawingUnits ?? null, outDir: o.out, outputs: o.outputs, units: o.units };
       const abort = new AbortController();
       const timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);
       let row: BatchRow;

@@ -4,6 +4,7 @@
 import { join } from 'node:path';
 import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
+import type { LengthUnit } from '../config/settings.js';
 import { loadSettings } from '../io/config-file.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
@@ -14,6 +15,7 @@ export interface BatchTask {
   file: string;
   name: string;
   config: string | null;
+  drawingUnits: LengthUnit | null;
   outDir: string;
   outputs: { json: boolean; dxf: boolean; html: boolean };
   units: UnitSystem;
@@ -44,6 +46,7 @@ export default function checkOne(task: BatchTask): BatchRow {
   };
   try {
     const settings = loadSettings(task.config);
+    if (task.drawingUnits) settings.units = task.drawingUnits;
     const bytes = readInputFile(task.file, settings.inputLimits.fileMB);
     const onStage = collectBetweenStages(bytes.length);
     const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units, ...(onStage ? { onStage } : {}) };

@@ -8,19 +8,20 @@ import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Option } from 'commander';
 import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
 import { runCheck } from '../check/run-check.js';
-import { parseSettings, type Settings } from '../config/settings.js';
+import { LENGTH_UNITS, parseSettings, type LengthUnit, type Settings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
 import { TOOL } from '../version.js';
 import { collectBetweenStages } from '../io/collect.js';
 import { findConfig, loadSettings, type FoundConfig } from '../io/config-file.js';
 import { assertNotInput, readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../io/files.js';
-import { describeLayers } from './layers-table.js';
+import { layersReport, layersText, starterConfig } from './layers-table.js';
 import { summaryLine } from './summary-line.js';
 
 interface BatchCliOptions {
   out: string;
   config?: string;
+  drawingUnits?: LengthUnit;
   units: UnitSystem;
   workers: string;
   timeLimit: string;
@@ -31,9 +32,14 @@ interface BatchCliOptions {
   html: boolean;
 }
 
-interface CheckOptions {
+interface DrawingOptions {
   /** A config file; false with --no-config; absent: looked up beside the drawing. */
   config?: string | false;
+  /** The drawing's length unit, over the config's and the header's. */
+  drawingUnits?: LengthUnit;
+}
+
+interface CheckOptions extends DrawingOptions {
   json?: string;
   dxf?: string;
   html?: string;
@@ -49,16 +55,18 @@ const configSaid = (c: FoundConfig) => `config ${c.path} (found ${c.how})`;
  * The settings a command reads `drawing` with: the config given, none with --no-config, else the one `batch` would
  * use (found beside the drawing or in a parent folder).
  */
-function settingsFor(drawing: string, config: string | false | undefined): Settings {
-  const found = config === false ? null : config ? null : findConfig(drawing);
+function settingsFor(drawing: string, opts: DrawingOptions): Settings {
+  const found = opts.config === false ? null : opts.config ? null : findConfig(drawing);
   lookup.found = found;
-  return loadSettings(config || found?.path);
+  const settings = loadSettings(opts.config || found?.path);
+  if (opts.drawingUnits) settings.units = opts.drawingUnits;
+  return settings;
 }
 
 /** Checks one drawing and writes the requested outputs; returns the exit code. */
 function checkCommand(file: string, opts: CheckOptions, io: { out: (s: string) => void; err: (s: string) => void }): number {
   for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
-  const settings = settingsFor(file, opts.config);
+  const settings = settingsFor(file, opts);
   const bytes = readInputFile(file, settings.inputLimits.fileMB);
   const onStage = collectBetweenStages(bytes.length);
   const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units, ...(onStage ? { onStage } : {}) };
@@ -92,9 +100,11 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .configureOutput({ writeOut: (s) => io.out(s.trimEnd()), writeErr: (s) => io.err(s.trimEnd()) });
   const unitsOption = () => new Option('--units <system>', 'units of the report').choices(['us', 'si']).default('us');
 
+  const drawingUnitsOption = () => new Option('--drawing-units <unit>', "the drawing's length unit (over the config's and the drawing header's)").choices(LENGTH_UNITS);
   const configOptions = (cmd: Command) => cmd
     .option('--config <file>', 'config JSON (default: DRAWING.config.json beside it, else headcheck.json in its folder or a parent)')
-    .option('--no-config', 'use no config file, only the defaults');
+    .option('--no-config', 'use no config file, only the defaults')
+    .addOption(drawingUnitsOption());
 
   configOptions(program.command('check <drawing>')
     .description('audit one drawing'))
@@ -108,6 +118,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .description('audit many drawings (folders are searched for .dxf files); one bad file never stops the rest')
     .requiredOption('--out <dir>', 'folder for the reports and summaries')
     .option('--config <file>', 'config JSON for drawings without their own')
+    .addOption(drawingUnitsOption())
     .addOption(unitsOption())
     .option('--workers <n>', 'worker threads', String(availableParallelism()))
     .option('--time-limit <s>', 'seconds per drawing', '300')
@@ -128,7 +139,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       // code loaded (V8 sizes the heap by what is live), and the worker pool alone is several MB.
       const { runBatch } = await import('../batch/run-batch.js');
       const outcome = await runBatch({
-        inputs, out: opts.out, ...(opts.config ? { config: opts.config } : {}), units: opts.units,
+        inputs, out: opts.out, ...(opts.config ? { config: opts.config } : {}), ...(opts.drawingUnits ? { drawingUnits: opts.drawingUnits } : {}), units: opts.units,
         outputs: { json: opts.json, dxf: opts.dxf, html: opts.html },
         workers: Math.floor(positive(opts.workers, '--workers')), timeLimit: positive(opts.timeLimit, '--time-limit'),
         memoryLimit: positive(opts.memoryLimit, '--memory-limit'), force: opts.force === true,
@@ -141,11 +152,19 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     });
 
   configOptions(program.command('layers <drawing>')
-    .description('list layers, entity counts and the role each would get'))
-    .action((drawing: string, opts: { config?: string | false }) => {
-      const settings = settingsFor(drawing, opts.config);
+    .description('list layers: what each holds, the role the tool would give it and why'))
+    .option('--json <file>', 'write the same as JSON')
+    .option('--config-out <file>', 'write a starter config with the roles chosen (check --config accepts it)')
+    .action((drawing: string, opts: DrawingOptions & { json?: string; configOut?: string }) => {
+      for (const o of [opts.json, opts.configOut]) if (o) assertNotInput(o, drawing);
+      const settings = settingsFor(drawing, opts);
       const bytes = readInputFile(drawing, settings.inputLimits.fileMB);
-      io.out(withFile(drawing, () => describeLayers(bytes, settings)));
+      const report = withFile(drawing, () => layersReport(bytes, settings));
+      const files: { path: string; data: string }[] = [];
+      if (opts.json) files.push({ path: opts.json, data: `${JSON.stringify(report, null, 2)}\n` });
+      if (opts.configOut) files.push({ path: opts.configOut, data: `${JSON.stringify(starterConfig(report, drawing), null, 2)}\n` });
+      writeAllAtomically(files);
+      io.out(layersText(report));
     });
 
   program.command('serve')

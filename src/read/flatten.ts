@@ -11,7 +11,7 @@ import { placements, type Insert } from './entities/insert.js';
 import { kindOf } from './entities/registry.js';
 import type { EntityBase, ExpandContext } from './entities/types.js';
 import type { RawDrawing } from './select.js';
-import type { BlockRef, Outline, PointItem, Stroke, TextItem } from './types.js';
+import type { BlockRef, Outline, PointItem, Stroke, SymbolItem, TextItem } from './types.js';
 
 export interface Flattened {
   refs: BlockRef[];
@@ -19,6 +19,7 @@ export interface Flattened {
   outlines: Outline[];
   texts: TextItem[];
   points: PointItem[];
+  symbols: SymbolItem[];
 }
 
 /** Which layers each kind of item is kept for (the reader keeps what the layer roles need). */
@@ -35,7 +36,7 @@ interface Context {
 const ocsOf = (e: EntityBase): Affine | null => (e.extrusionZ < 0 ? scaling(-1, 1) : null);
 
 export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<InputLimits, 'blockDepth' | 'blockReferences'>, keep: FlattenKeep): Flattened {
-  const out: Flattened = { refs: [], strokes: [], outlines: [], texts: [], points: [] };
+  const out: Flattened = { refs: [], strokes: [], outlines: [], texts: [], points: [], symbols: [] };
   let refCount = 0;
 
   const walk = (entities: EntityBase[], ctx: Context) => {
@@ -44,7 +45,7 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
       const layer = e.layer === '0' && ctx.layer !== null ? ctx.layer : e.layer;
       const handle = ctx.handle ?? e.handle;
       if (e.type === 'INSERT') expandInsert(e as Insert, layer, handle, ctx);
-      else kindOf(e.type)?.expand?.(e, geometryContext(e, layer, handle, ctx.m));
+      else kindOf(e.type)?.expand?.(e, geometryContext(e, layer, handle, ctx.m, ctx.parents.length === 0));
     }
   };
 
@@ -70,7 +71,7 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
     }
   };
 
-  const geometryContext = (e: EntityBase, layer: string, handle: string, m: Affine): ExpandContext => {
+  const geometryContext = (e: EntityBase, layer: string, handle: string, m: Affine, topLevel: boolean): ExpandContext => {
     const ocs = ocsOf(e);
     return {
       m, ocs: ocs ? compose(m, ocs) : m,
@@ -94,6 +95,10 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
       },
       point(at, t) {
         if (keep.points(layer)) out.points.push({ handle, layer, position: apply(t, at) });
+        if (topLevel && keep.symbols(layer)) out.symbols.push({ handle, layer, position: apply(t, at), type: 'POINT', radius: 0 });
+      },
+      symbol(center, t, localRadius) {
+        if (topLevel && keep.symbols(layer)) out.symbols.push({ handle, layer, position: apply(t, center), type: 'CIRCLE', radius: localRadius * meanScale(t) });
       },
     };
   };

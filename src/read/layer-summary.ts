@@ -8,7 +8,7 @@ import type { LayerSummary } from './types.js';
 
 type Tally = Map<string, LayerSummary>;
 
-const emptySummary = (name: string): LayerSummary => ({ name, counts: {}, symbolRefs: {}, refs: 0, strokes: 0, outlines: 0, points: 0 });
+const emptySummary = (name: string): LayerSummary => ({ name, counts: {}, blockRefs: {}, symbolRefs: {}, refs: 0, strokes: 0, outlines: 0, points: 0 });
 
 /** Adds `times` × `from` into `into`. */
 function addTally(into: Tally, from: Tally, times: number): void {
@@ -16,6 +16,7 @@ function addTally(into: Tally, from: Tally, times: number): void {
     let t = into.get(name);
     if (!t) into.set(name, (t = emptySummary(name)));
     for (const [k, v] of Object.entries(s.counts)) t.counts[k] = (t.counts[k] ?? 0) + v * times;
+    for (const [k, v] of Object.entries(s.blockRefs)) t.blockRefs[k] = (t.blockRefs[k] ?? 0) + v * times;
     for (const [k, v] of Object.entries(s.symbolRefs)) t.symbolRefs[k] = (t.symbolRefs[k] ?? 0) + v * times;
     t.refs += s.refs * times;
     t.strokes += s.strokes * times;
@@ -71,10 +72,9 @@ export function summarizeLayers(scan: Pick<DrawingSource, 'blocks' | 'names' | '
       if (!block) continue;
       const copies = table.copies[row]!;
       s.refs += copies;
-      if (!blocks.hasNestedRefs(block)) {
-        const name = named(block.name);
-        s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + copies;
-      }
+      const name = named(block.name);
+      s.blockRefs[name] = (s.blockRefs[name] ?? 0) + copies;
+      if (!blocks.hasNestedRefs(block)) s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + copies;
       const inner = placement(block, layer);
       addTally(tally, inner.tally, copies);
       height = Math.max(height, inner.height + 1);

@@ -48,6 +48,16 @@ export interface Plan {
   labels: TextItem[];
 }
 
+/**
+ * The block names that are heads: the config's `headBlocks`, or where it keeps its default (every block) and the
+ * head layers were guessed, the blocks the guess took as head symbols.
+ */
+function headBlocksOf(drawing: Drawing, settings: Settings): string[] {
+  const guessed = drawing.roles.heads.from === 'guess' ? drawing.roles.heads.blocks ?? [] : [];
+  const isDefault = settings.headBlocks.length === 1 && settings.headBlocks[0] === '*';
+  return isDefault && guessed.length ? guessed : settings.headBlocks;
+}
+
 /** Head-type attribute values (TYPE or HEADTYPE) and the kind they mean (common practice, no source). */
 function headKind(attributes: Record<string, string>): HeadKind {
   const t = (attributes['TYPE'] ?? attributes['HEADTYPE'] ?? '').trim().toUpperCase();
@@ -71,14 +81,20 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
   const onWalls = onRoles(roles, 'walls');
   const onArea = onRoles(roles, 'designArea');
   const onSource = onRoles(roles, 'source');
-  const headBlock = compilePatterns(settings.headBlocks);
+  const headBlock = compilePatterns(headBlocksOf(drawing, settings));
   const si = settings.unitSystem === 'si';
 
   const candidates = drawing.refs.filter((r) => onHeads(r.layer) && headBlock(r.block));
+  // A head layer without a matching head block holds heads drawn as plain circles or points (an exploded drawing).
+  const withBlocks = new Set(candidates.map((r) => r.layer));
+  const drawnPlain = drawing.symbols.filter((s) => onHeads(s.layer) && !withBlocks.has(s.layer)).map((s): BlockRef => ({
+    handle: s.handle, layer: s.layer, block: `(${s.type.toLowerCase()})`, position: s.position, rotationDeg: 0, mirrored: false,
+    attributes: {}, parents: [], hasNestedRefs: false,
+  }));
   // A matching reference whose block holds further matching references is a group of heads, not a head.
   const containers = new Set(candidates.filter((r) => r.hasNestedRefs).map((r) => r.block));
   const isLeaf = (block: string) => !containers.has(block) || !candidates.some((c) => c.parents.at(-1) === block);
-  const { kept, duplicates } = withoutDuplicates(candidates.filter((r) => isLeaf(r.block)));
+  const { kept, duplicates } = withoutDuplicates([...candidates.filter((r) => isLeaf(r.block)), ...drawnPlain]);
   const heads: Head[] = kept
     .map((r, i) => {
       const k = attributeNumber(r.attributes, 'K');

@@ -5,10 +5,12 @@ import { DEFAULT_INPUT_LIMITS, LAYER_ROLES, type InputLimits, type LayerRole } f
 import { fail } from '../input-error.js';
 import { dxfSource } from './dxf/dxf-source.js';
 import { flatten } from './flatten.js';
-import { assignLayerRoles, couldBeSizeLabel, isLabelLayer, onRoles } from './layer-roles.js';
+import { gatherEvidence, type Evidence } from './evidence.js';
+import { assignLayerRoles, couldBeSizeLabel, isLabelLayer, onRoles, type HeadCandidate, type LayerRoles } from './layer-roles.js';
 import { summarizeLayers } from './layer-summary.js';
 import { decodeSelected } from './select.js';
-import type { Drawing, LengthUnit } from './types.js';
+import type { DrawingSource } from './source.js';
+import type { Drawing, LayerSummary, LengthUnit } from './types.js';
 import { FEET_PER_UNIT, unitFromInsunits } from './units.js';
 
 export interface ReadOptions {
@@ -22,7 +24,7 @@ export interface ReadOptions {
 export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawing {
   const limits = options.limits ?? DEFAULT_INPUT_LIMITS;
   if (bytes.length > limits.fileMB * 1024 * 1024) fail(`larger than ${limits.fileMB} MiB (inputLimits.fileMB)`);
-  const { raw, layers, roles, header, encoding } = decodeByRole(bytes, options.layers ?? {}, limits);
+  const { raw, layers, roles, headCandidates, header, encoding } = decodeByRole(bytes, options, limits);
   const fromHeader = unitFromInsunits(header.insunits);
   const units = options.units ?? fromHeader;
   if (!units) {
@@ -30,7 +32,7 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
   }
   const flat = flatten(raw, FEET_PER_UNIT[units!], limits, {
     refs: onRoles(roles, 'heads', 'source'), strokes: onRoles(roles, 'pipes', 'walls'), outlines: onRoles(roles, 'walls', 'designArea'),
-    texts: (layer) => isLabelLayer(layer, roles), points: onRoles(roles, 'source'),
+    texts: (layer) => isLabelLayer(layer, roles), points: onRoles(roles, 'source'), symbols: onRoles(roles, 'heads'),
   });
   return {
     version: header.version,
@@ -41,11 +43,13 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
     handseed: header.handseed,
     layers,
     roles,
+    headCandidates,
     refs: flat.refs,
     strokes: flat.strokes,
     outlines: flat.outlines,
     texts: flat.texts,
     points: flat.points,
+    symbols: flat.symbols,
   };
 }
 
@@ -53,13 +57,36 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
  * Scans the file, assigns the layer roles, and decodes what they need. A function of its own so that the scan,
  * the largest thing read, is garbage once it returns.
  */
-function decodeByRole(bytes: Uint8Array, patterns: Partial<Record<LayerRole, string[]>>, limits: InputLimits) {
-  const source = dxfSource(bytes, limits);
-  const layers = summarizeLayers(source, limits.blockDepth);
-  const roles = assignLayerRoles(layers, patterns);
+function decodeByRole(bytes: Uint8Array, options: ReadOptions, limits: InputLimits) {
+  const { source, layers, roles, headCandidates } = inspectSource(dxfSource(bytes, limits), options, limits);
   const raw = decodeSelected(source, {
     layer: onRoles(roles, ...LAYER_ROLES),
     label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
   });
-  return { raw, layers, roles, header: source.header, encoding: source.encoding };
+  return { raw, layers, roles, headCandidates, header: source.header, encoding: source.encoding };
+}
+
+/** What a drawing holds and the role of each layer, without reading any geometry (`headcheck layers`). */
+export interface Inspection {
+  source: DrawingSource;
+  layers: LayerSummary[];
+  roles: LayerRoles;
+  headCandidates: HeadCandidate[];
+  evidence: Evidence;
+  /** The drawing unit (the option's, else the header's), or null when neither states one. */
+  units: LengthUnit | null;
+}
+
+export function inspectDrawing(bytes: Uint8Array, options: ReadOptions = {}): Inspection {
+  const limits = options.limits ?? DEFAULT_INPUT_LIMITS;
+  if (bytes.length > limits.fileMB * 1024 * 1024) fail(`larger than ${limits.fileMB} MiB (inputLimits.fileMB)`);
+  return inspectSource(dxfSource(bytes, limits), options, limits);
+}
+
+function inspectSource(source: DrawingSource, options: ReadOptions, limits: InputLimits): Inspection {
+  const layers = summarizeLayers(source, limits.blockDepth);
+  const units = options.units ?? unitFromInsunits(source.header.insunits);
+  const evidence = gatherEvidence(source);
+  const { roles, headCandidates } = assignLayerRoles({ layers, patterns: options.layers ?? {}, evidence, feetPerUnit: units ? FEET_PER_UNIT[units] : null });
+  return { source, layers, roles, headCandidates, evidence, units };
 }

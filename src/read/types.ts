@@ -2,7 +2,7 @@
 // Every item keeps the handle of the top-level entity a reviewer would select in CAD.
 
 import type { Point } from '../geometry/point.js';
-import type { LayerRoles } from './layer-roles.js';
+import type { HeadCandidate, LayerRoles } from './layer-roles.js';
 
 import type { LengthUnit } from '../config/settings.js';
 
@@ -63,11 +63,20 @@ export interface PointItem {
   position: Point;
 }
 
+/** A circle or point drawn on its own (not inside a block): on a head layer without head blocks, a head. */
+export interface SymbolItem extends PointItem {
+  type: 'CIRCLE' | 'POINT';
+  /** Radius, feet (0 for a point). */
+  radius: number;
+}
+
 export interface LayerSummary {
   name: string;
   /** Model-space entity counts by DXF type, block contents counted per reference. */
   counts: Record<string, number>;
-  /** References to each block that holds no further references (a symbol, such as a head), by block name. */
+  /** References to each block placed on the layer, through nesting and arrays, by block name. */
+  blockRefs: Record<string, number>;
+  /** The same for blocks that hold no further references (a symbol, such as a head). */
   symbolRefs: Record<string, number>;
   /** Block references, pieces of linework (lines, arcs, polylines), closed outlines and points. */
   refs: number;
@@ -90,6 +99,8 @@ export interface DrawingFacts {
   layers: LayerSummary[];
   /** Which layers hold heads, pipes, walls, design areas and the source; only their content is read below. */
   roles: LayerRoles;
+  /** Each layer's best head symbol as the guess weighed it (empty when the config names the head layers). */
+  headCandidates: HeadCandidate[];
 }
 
 export interface Drawing extends DrawingFacts {
@@ -98,4 +109,5 @@ export interface Drawing extends DrawingFacts {
   outlines: Outline[];
   texts: TextItem[];
   points: PointItem[];
+  symbols: SymbolItem[];
 }

@@ -31,6 +31,8 @@ export interface ExpandContext {
   outline(points: Point[], t: Affine): void;
   text(at: Point, t: Affine, text: string, localHeight: number): void;
   point(at: Point, t: Affine): void;
+  /** A round symbol (a circle drawn alone may be a head of an exploded drawing): its centre and radius. */
+  symbol(center: Point, t: Affine, localRadius: number): void;
 }
 
 export interface EntityKind<E extends EntityBase = EntityBase> {
