@@ -103,7 +103,7 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
   /** Reads one entity whose "0 TYPE" group is current, with its trailing records, into the next row; leaves the next code 0 current. */
   const readEntity = (): void => {
     const row = table.count;
-    if (row >= limits.entities) fail(`more than ${limits.entities} entities (inputLimits.entities)`);
+    if (row >= limits.entities) fail(`line ${c.line()}: more than ${limits.entities} entities (inputLimits.entities)`);
     if (row === table.type.length) table = tableWithRoom(2 * row, table);
     const typeIndex = nameIndex();
     const kept = kindOf(names[typeIndex]!)?.scan;
@@ -143,10 +143,10 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
   };
   /** Inside section `name`: true until its ENDSEC; another section or the file's end before it is damage. */
   const within = (name: string) => {
-    if (!more) fail(`the ${name} section is not closed by ENDSEC (the file is truncated or damaged)`);
+    if (!more) fail(`line ${c.line()}: the ${name} section is not closed by ENDSEC (the file is truncated or damaged)`);
     if (c.code !== 0) return true;
     if (valueIs('ENDSEC')) return false;
-    if (valueIs('SECTION') || valueIs('EOF')) fail(`the ${name || 'unnamed'} section is not closed by ENDSEC (the file is damaged)`);
+    if (valueIs('SECTION') || valueIs('EOF')) fail(`line ${c.line()}: the ${name || 'unnamed'} section is not closed by ENDSEC before this ${c.latin1()} (the file is damaged)`);
     return true;
   };
 
