@@ -37,7 +37,7 @@ if (mode === 'parse-only') {
   // Each output is made when its turn to be written comes, as the CLI does; 'write' is the writing alone.
   const made = (name: string, make: () => OutputData) => () => { const t = performance.now(); const d = make(); stages[name] = performance.now() - t; return d; };
   last = performance.now();
-  writeAllAtomically([
+  await writeAllAtomically([
     { path: join(dir, `${name}.json`), data: made('json', () => reportJson(r)) },
     { path: join(dir, `${name}.annotated.dxf`), data: made('annotated-dxf', () => annotatedDrawing(input, r)) },
     { path: join(dir, `${name}.html`), data: made('html', () => reportPage(input, r)) },

@@ -3,7 +3,7 @@
 // files in two folders, and per-file time and memory limits.
 
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -50,20 +50,25 @@ describe('headcheck batch', () => {
     const files = readdirSync(out);
     expect(files.filter((f) => f.endsWith('.json') && f.includes('plan'))).toHaveLength(2);
     for (const f of ['summary.json', 'summary.csv', 'index.html']) expect(files).toContain(f);
-    expect(readFileSync(join(out, 'summary.csv'), 'utf8').trim().split('\n')).toHaveLength(6);
+    const csv = readFileSync(join(out, 'summary.csv'), 'utf8').trim().split('\n');
+    expect(csv).toHaveLength(7); // a header, five drawings, and the caution as the last row
+    expect(csv.at(-1)).toMatch(/^caution,.*authority having jurisdiction/);
+    expect(JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')).caution).toMatch(/licensed fire-protection engineer/);
     const index = readFileSync(join(out, 'index.html'), 'utf8');
     expect(index.indexOf('broken.dxf')).toBeLessThan(index.indexOf('clean.dxf')); // worst first
     expect(index).toMatch(/authority having jurisdiction/);
   });
 
-  it('reuses unchanged results, redoes changed ones, and redoes all with --force', () => {
+  it('reuses unchanged results, never a drawing that could not be checked, redoes changed ones, and all with --force', () => {
     const out = join(set, 'out-reuse');
     run(set, '--out', out);
     const again = run(set, '--out', out);
-    expect(again.stderr).toMatch(/5 reused/);
+    // the three checked drawings are reused; the broken and the non-DXF file are tried again
+    expect(again.stderr).toMatch(/3 reused/);
+    expect(again.stderr).toMatch(/5\/5 drawings, 2 could not be checked/);
     writeFileSync(join(set, 'clean.dxf'), layoutDxf({ s: 12, l: 10, heads: 5, lines: 3 }));
     const changed = run(set, '--out', out);
-    expect(changed.stderr).toMatch(/4 reused/);
+    expect(changed.stderr).toMatch(/2 reused/);
     expect(summary(out).find((x) => x.file.endsWith('clean.dxf'))!.heads).toBe(15);
     const forced = run(set, '--out', out, '--force');
     expect(forced.stderr).not.toMatch(/reused/);
@@ -81,6 +86,40 @@ describe('headcheck batch', () => {
     const rows2 = summary(join(big, 'o2'));
     expect(rows2.find((x) => x.file.endsWith('large.dxf'))!.message).toMatch(/out of memory|worker failed/);
     expect(hungry.status).toBe(2);
+  });
+
+  it('counts a time limit from each drawing\'s start: one worker, 40 drawings, none timed out while queued', () => {
+    // each takes a tenth of a second or so; all of them together several times the limit
+    const many = mkdtempSync(join(tmpdir(), 'hc-batch-many-'));
+    for (let i = 0; i < 40; i++) writeFileSync(join(many, `p${i}.dxf`), layoutDxf({ s: 12, l: 10, heads: 20, lines: 12 }));
+    const started = performance.now();
+    const r = run(many, '--out', join(many, 'o'), '--workers', '1', '--time-limit', '1.5', '--no-dxf', '--no-html');
+    expect(performance.now() - started).toBeGreaterThan(1500);
+    expect(r.status, r.stderr).toBe(0);
+    expect(summary(join(many, 'o')).map((x) => x.status)).toEqual(Array(40).fill('pass'));
+  });
+
+  it('follows a link inside the batch folder, lists one that leads out as skipped with the reason', () => {
+    const linked = mkdtempSync(join(tmpdir(), 'hc-batch-links-'));
+    const outside = mkdtempSync(join(tmpdir(), 'hc-batch-outside-'));
+    writeFileSync(join(linked, 'a.dxf'), layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }));
+    writeFileSync(join(outside, 'far.dxf'), layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }));
+    mkdirSync(join(linked, 'sub'));
+    symlinkSync(join(linked, 'a.dxf'), join(linked, 'sub', 'same-as-a.dxf'));
+    symlinkSync(join(outside, 'far.dxf'), join(linked, 'far.dxf'));
+    symlinkSync(linked, join(linked, 'sub', 'loop'));
+    const r = run(linked, '--out', join(linked, 'o'), '--no-dxf', '--no-html');
+    expect(r.status, r.stderr).toBe(0);
+    const rows = summary(join(linked, 'o'));
+    expect(rows.map((x) => [x.file.slice(linked.length + 1), x.status])).toEqual([['a.dxf', 'pass'], ['far.dxf', 'skipped']]);
+    expect(rows[1]!.message).toMatch(/a symbolic link out of the batch folder/);
+  });
+
+  it('an output folder that cannot be made is exit 2 with one line', () => {
+    const r = run(set, '--out', join('fixtures/bay2-r2000.dxf', 'out'));
+    expect(r.status).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/cannot be created \(ENOTDIR\)/);
   });
 
   it('refuses a missing input with exit 2 and one line', () => {

@@ -1,8 +1,8 @@
 // The command line as the contract fixes it: exit codes 0/1/2, a one-line message naming the file for
 // unusable input, no output file left behind, the input never modified, reports in US or SI units.
 
-import { spawnSync } from 'node:child_process';
-import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { spawn, spawnSync } from 'node:child_process';
+import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -109,6 +109,47 @@ describe('headcheck check', () => {
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/may not overwrite the input/);
     expect(readFileSync(copy).equals(before)).toBe(true);
+  });
+
+  it('an output path that is a folder, or two outputs on one path: exit 2, one line, no output and no temporary file', async () => {
+    const out = mkdtempSync(join(tmpdir(), 'hc-out-'));
+    mkdirSync(join(out, 'report.html'));
+    const asFolder = await run('check', 'fixtures/bay2-r2000.dxf', '--no-config', '--json', join(out, 'r.json'), '--html', join(out, 'report.html'));
+    expect(asFolder.code).toBe(2);
+    expect(asFolder.err).toBe(`headcheck: ${join(out, 'report.html')}: is a folder, not a file to write`);
+    expect(readdirSync(out)).toEqual(['report.html']);
+    const shared = await run('check', 'fixtures/bay2-r2000.dxf', '--no-config', '--json', join(out, 'same'), '--html', join(out, 'same'));
+    expect(shared.code).toBe(2);
+    expect(shared.err).toMatch(/two outputs may not share one path/);
+    expect(readdirSync(out)).toEqual(['report.html']);
+  });
+
+  it('sweeps temporary files older than an hour that a killed run left in the output folder', async () => {
+    const out = mkdtempSync(join(tmpdir(), 'hc-stale-'));
+    const stale = join(out, '.headcheck-r.json-99999-0a0b0c0d.tmp');
+    const fresh = join(out, '.headcheck-r.json-99998-0a0b0c0e.tmp');
+    writeFileSync(stale, 'left by a killed run');
+    writeFileSync(fresh, 'another run, still writing');
+    utimesSync(stale, new Date(Date.now() - 2 * 3600_000), new Date(Date.now() - 2 * 3600_000));
+    await run('check', 'fixtures/bay2-r2000.dxf', '--no-config', '--json', join(out, 'r.json'));
+    expect(readdirSync(out).sort()).toEqual(['.headcheck-r.json-99998-0a0b0c0e.tmp', 'r.json']);
+  });
+
+  it('a run stopped by SIGTERM while writing leaves no temporary file and no output', async () => {
+    const out = mkdtempSync(join(tmpdir(), 'hc-killed-'));
+    const drawing = join(out, 'large.dxf');
+    writeFileSync(drawing, layoutDxf({ s: 12, l: 10, heads: 150, lines: 100 }));
+    const child = spawn(process.execPath, ['bin/headcheck.js', 'check', drawing, '--no-config', '--json', join(out, 'r.json'), '--dxf', join(out, 'r.dxf'), '--html', join(out, 'r.html')]);
+    const exited = new Promise<number | null>((done) => child.on('exit', (code, signal) => done(signal ? -1 : code)));
+    let sawTemp = false;
+    for (let i = 0; i < 4000 && child.exitCode === null && !sawTemp; i++) {
+      sawTemp = readdirSync(out).some((f) => f.startsWith('.headcheck-'));
+      if (!sawTemp) await new Promise((r) => setTimeout(r, 2));
+    }
+    expect(sawTemp).toBe(true);
+    child.kill('SIGTERM');
+    expect(await exited).toBe(-1);
+    expect(readdirSync(out)).toEqual(['large.dxf']);
   });
 
   it('a write failure is exit 2 and leaves no partial file', async () => {

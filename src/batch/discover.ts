@@ -1,10 +1,11 @@
 // Finds the drawings of a batch: DXF files in folders (recursively, extension in any case) and files named
 // directly, each with the root it was found under, in a stable order; and each drawing's config file.
 
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { dirname, extname, join, relative, resolve, sep } from 'node:path';
 import { createHash } from 'node:crypto';
 import { InputError } from '../input-error.js';
+import { pushAll } from '../arrays.js';
 
 export interface BatchItem {
   /** Path as found (for messages and reports). */
@@ -16,37 +17,74 @@ export interface BatchItem {
   name: string;
 }
 
-export function discoverDrawings(inputs: string[], outDir: string): BatchItem[] {
+/** A file or link the batch saw and did not check, with the reason. */
+export interface Skipped { file: string; reason: string }
+
+/** The drawings of a batch, in a stable order, and what was passed over and why. */
+export function discoverDrawings(inputs: string[], outDir: string): { items: BatchItem[]; skipped: Skipped[] } {
   const out = resolve(outDir);
   const items: BatchItem[] = [];
+  const skipped: Skipped[] = [];
   const seen = new Set<string>();
   const add = (file: string, root: string) => {
     const abs = resolve(file);
-    if (seen.has(abs)) return;
-    seen.add(abs);
+    const real = realOrSelf(abs);
+    if (seen.has(real)) return;
+    seen.add(real);
     const rel = relative(root, abs).split(sep).join('/');
     items.push({ file, rel, root, name: outputName(rel, abs) });
   };
   for (const input of inputs) {
     if (!existsSync(input)) throw new InputError(`${input}: no such file or folder`);
     if (statSync(input).isDirectory()) {
-      for (const f of walk(input, out)) add(f, resolve(input));
+      const root = resolve(input);
+      for (const f of walk(input, { skip: out, root: realOrSelf(root), visited: new Set([realOrSelf(root)]), skipped })) add(f, root);
     } else {
       add(input, resolve(dirname(input)));
     }
   }
-  return items.sort((a, b) => (a.root === b.root ? a.rel.localeCompare(b.rel) : a.root.localeCompare(b.root)));
+  items.sort((a, b) => (a.root === b.root ? a.rel.localeCompare(b.rel) : a.root.localeCompare(b.root)));
+  return { items, skipped };
 }
 
-function walk(dir: string, skip: string): string[] {
+const realOrSelf = (p: string) => {
+  try {
+    return realpathSync(p);
+  } catch {
+    return p;
+  }
+};
+
+const isDrawingName = (name: string) => extname(name).toLowerCase() === '.dxf';
+
+/**
+ * Drawings under `dir`. A symbolic link is followed where it points inside the batch folder (a folder once only),
+ * else listed as skipped: a batch reads what it was given, not what a link reaches elsewhere.
+ */
+function walk(dir: string, o: { skip: string; root: string; visited: Set<string>; skipped: Skipped[] }): string[] {
   const out: string[] = [];
   const entries = readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
   for (const e of entries) {
     const p = join(dir, e.name);
-    if (e.isDirectory()) {
-      if (resolve(p) === skip || e.name.startsWith('.') || e.name === 'node_modules' || isBatchOutput(p)) continue;
-      out.push(...walk(p, skip));
-    } else if (e.isFile() && extname(e.name).toLowerCase() === '.dxf') {
+    let isDir = e.isDirectory();
+    let isFile = e.isFile();
+    if (e.isSymbolicLink()) {
+      const target = realOrSelf(p);
+      if (target === p || !existsSync(target)) { o.skipped.push({ file: p, reason: 'a symbolic link to nothing' }); continue; }
+      if (target !== o.root && !target.startsWith(`${o.root}${sep}`)) {
+        if (isDrawingName(e.name) || statSync(target).isDirectory()) o.skipped.push({ file: p, reason: `a symbolic link out of the batch folder (to ${target}): not followed` });
+        continue;
+      }
+      isDir = statSync(target).isDirectory();
+      isFile = statSync(target).isFile();
+    }
+    if (isDir) {
+      if (resolve(p) === o.skip || e.name.startsWith('.') || e.name === 'node_modules' || isBatchOutput(p)) continue;
+      const real = realOrSelf(p);
+      if (o.visited.has(real)) continue;
+      o.visited.add(real);
+      pushAll(out, walk(p, o));
+    } else if (isFile && isDrawingName(e.name)) {
       out.push(p);
     }
   }

@@ -6,14 +6,17 @@ import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { Piscina } from 'piscina';
-import { writeAllAtomically } from '../io/files.js';
+import { watchOutputFolder, writeAllAtomically } from '../io/files.js';
+import { loadSettings } from '../io/config-file.js';
+import { InputError } from '../input-error.js';
+import { CAUTION } from '../outputs/caution.js';
 import type { LengthUnit } from '../config/settings.js';
 import { REPORT_UNITS, type UnitSystem } from '../quantities/convert.js';
 import { TOOL } from '../version.js';
 import { findConfig } from '../io/config-file.js';
 import { discoverDrawings, type BatchItem } from './discover.js';
 import { summaryCsv, summaryHtml } from './summary.js';
-import type { BatchRow, BatchTask } from './worker.js';
+import { emptyRow, type BatchRow, type BatchTask } from './worker.js';
 
 export interface BatchOptions {
   inputs: string[];
@@ -50,28 +53,27 @@ interface Cached { key: string; row: BatchRow }
 const TIER_UP_BUDGET = 2 * 1024 * 1024;
 
 export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
-  const items = discoverDrawings(o.inputs, o.out);
+  const { items, skipped } = discoverDrawings(o.inputs, o.out);
   const resultsDir = join(o.out, '.results');
-  mkdirSync(resultsDir, { recursive: true });
-  const keyOf = (item: BatchItem, config: string | undefined) => sha(JSON.stringify({
-    tool: TOOL.version, file: sha(readFileSync(item.file)), config: config ? sha(readFileSync(config)) : null, units: o.units, drawingUnits: o.drawingUnits ?? null, outputs: o.outputs,
-  }));
+  makeFolder(resultsDir);
+  watchOutputFolder(o.out);
   const rows: BatchRow[] = new Array(items.length);
   const todo: { i: number; item: BatchItem; config: string | undefined; key: string }[] = [];
   let reused = 0;
   items.forEach((item, i) => {
     const config = findConfig(item.file, { root: item.root, ...(o.config ? { fallback: o.config } : {}) })?.path;
-    let key: string;
-    try {
-      key = keyOf(item, config);
-    } catch {
-      key = 'unreadable';
-    }
+    // The config and the file's size are checked here, before the file is read whole to be hashed.
+    const refused = refusal(item, config);
+    if (refused) { rows[i] = errorRow(item, config, refused); return; }
+    const key = sha(JSON.stringify({
+      tool: TOOL.version, file: sha(readFileSync(item.file)), config: config ? sha(readFileSync(config)) : null, units: o.units,
+      drawingUnits: o.drawingUnits ?? null, outputs: o.outputs,
+    }));
     const cacheFile = join(resultsDir, `${item.name}.json`);
     if (!o.force && existsSync(cacheFile)) {
       try {
         const cached = JSON.parse(readFileSync(cacheFile, 'utf8')) as Cached;
-        if (cached.key === key && cached.row.outputs.every((f) => existsSync(join(o.out, f)))) {
+        if (cached.key === key && cached.row.status !== 'error' && cached.row.outputs.every((f) => existsSync(join(o.out, f)))) {
           rows[i] = cached.row;
           reused++;
           return;
@@ -84,10 +86,8 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   });
 
   if (o.workers > 1) setFlagsFromString(`--interrupt-budget=${TIER_UP_BUDGET}`);
-  const pool = new Piscina({
-    filename: o.workerFile, maxThreads: Math.max(1, o.workers), minThreads: Math.max(1, Math.min(o.workers, todo.length)),
-    resourceLimits: { maxOldGenerationSizeMb: o.memoryLimit },
-  });
+  const slots = Math.max(1, Math.min(o.workers, todo.length));
+  const pool = new Piscina({ filename: o.workerFile, maxThreads: slots, minThreads: slots, resourceLimits: { maxOldGenerationSizeMb: o.memoryLimit } });
   const started = performance.now();
   let done = 0;
   let failed = rows.filter((r) => r?.status === 'error').length;
@@ -96,42 +96,76 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
     o.progress(`${done + reused}/${items.length} drawings, ${failed} could not be checked, ${s.toFixed(1)} s, ${(done / Math.max(s, 1e-3)).toFixed(1)}/s${reused ? `, ${reused} reused` : ''}`, final);
   };
   // Largest drawings first (longest-processing-time order), so no long job starts last and leaves a core idle;
-  // rows keep the stable order of discovery.
-  const bySize = [...todo].sort((a, b) => statSync(b.item.file).size - statSync(a.item.file).size);
-  try {
-    await Promise.all(bySize.map(async ({ i, item, config, key }) => {
-      const task: BatchTask = { file: item.file, name: item.name, config: config ?? null, drawingUnits: o.drawingUnits ?? null, outDir: o.out, outputs: o.outputs, units: o.units };
-      const abort = new AbortController();
-      const timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);
-      let row: BatchRow;
-      try {
-        row = (await pool.run(task, { signal: abort.signal })) as BatchRow;
-      } catch (err) {
-        const code = (err as { code?: string }).code;
-        const why = abort.signal.aborted ? `timed out after ${o.timeLimit} s`
-          : code === 'ERR_WORKER_OUT_OF_MEMORY' ? `ran out of memory (limit ${o.memoryLimit} MB)`
-            : `worker failed: ${err instanceof Error ? err.message : String(err)}`;
-        row = { file: item.file, name: item.name, config: config ?? null, status: 'error', heads: null, errors: null, warnings: null, demandPressure: null, demandFlow: null, margin: null, message: why, ms: 0, outputs: [] };
-      } finally {
-        clearTimeout(timer);
-      }
+  // rows keep the stable order of discovery. No more drawings are handed to the pool than it has threads, so a
+  // drawing's time limit runs from when it starts, not from when it was queued.
+  const queue = [...todo].sort((a, b) => statSync(b.item.file).size - statSync(a.item.file).size);
+  const checkNext = async (): Promise<void> => {
+    for (let job = queue.shift(); job; job = queue.shift()) {
+      const { i, item, config, key } = job;
+      const row = await checkInWorker(pool, o, item, config);
       rows[i] = row;
       done++;
       if (row.status === 'error') failed++;
-      // Each finished drawing is kept at once, so an interrupted run resumes where it stopped.
-      writeAllAtomically([{ path: join(resultsDir, `${item.name}.json`), data: JSON.stringify({ key, row } satisfies Cached) }]);
+      // Each checked drawing is kept at once, so an interrupted run resumes where it stopped; a drawing that could
+      // not be checked is tried again next time (a time limit or a full disk may not recur).
+      if (row.status !== 'error') await writeAllAtomically([{ path: join(resultsDir, `${item.name}.json`), data: JSON.stringify({ key, row } satisfies Cached) }]);
       report(false);
-    }));
+    }
+  };
+  try {
+    await Promise.all(Array.from({ length: slots }, checkNext));
   } finally {
     await pool.destroy();
   }
   report(true);
+  const all = [...rows, ...skipped.map((x): BatchRow => ({ ...emptyRow(x.file, x.file, null), status: 'skipped', message: x.reason }))];
   const units = REPORT_UNITS[o.units];
-  writeAllAtomically([
-    { path: join(o.out, 'summary.json'), data: `${JSON.stringify({ tool: TOOL, units, drawings: rows }, null, 2)}\n` },
-    { path: join(o.out, 'summary.csv'), data: summaryCsv(rows) },
-    { path: join(o.out, 'index.html'), data: summaryHtml(rows, units) },
+  await writeAllAtomically([
+    { path: join(o.out, 'summary.json'), data: `${JSON.stringify({ tool: TOOL, caution: CAUTION, units, drawings: all }, null, 2)}\n` },
+    { path: join(o.out, 'summary.csv'), data: summaryCsv(all) },
+    { path: join(o.out, 'index.html'), data: summaryHtml(all, units) },
   ]);
-  const exitCode = rows.some((r) => r.status === 'error') ? 2 : rows.some((r) => r.status === 'fail') ? 1 : 0;
-  return { rows, reused, exitCode };
+  const exitCode = all.some((r) => r.status === 'error') ? 2 : all.some((r) => r.status === 'fail') ? 1 : 0;
+  return { rows: all, reused, exitCode };
+
+  /** Why a drawing is not handed to a worker at all: its config cannot be used, or the file is over its size limit. */
+  function refusal(item: BatchItem, config: string | undefined): string | null {
+    try {
+      const { fileMB } = loadSettings(config).inputLimits;
+      const size = statSync(item.file).size;
+      return size > fileMB * 1024 * 1024 ? `larger than ${fileMB} MiB (inputLimits.fileMB)` : null;
+    } catch (err) {
+      if (err instanceof InputError) return err.message;
+      return `cannot be read (${(err as NodeJS.ErrnoException).code ?? 'error'})`;
+    }
+  }
+}
+
+/** One drawing in a worker of the pool, under the time limit from its start; a worker's failure becomes its row. */
+async function checkInWorker(pool: Piscina, o: BatchOptions, item: BatchItem, config: string | undefined): Promise<BatchRow> {
+  const task: BatchTask = { file: item.file, name: item.name, config: config ?? null, drawingUnits: o.drawingUnits ?? null, outDir: o.out, outputs: o.outputs, units: o.units };
+  const abort = new AbortController();
+  const timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);
+  try {
+    return (await pool.run(task, { signal: abort.signal })) as BatchRow;
+  } catch (err) {
+    const code = (err as { code?: string }).code;
+    const why = abort.signal.aborted ? `timed out after ${o.timeLimit} s`
+      : code === 'ERR_WORKER_OUT_OF_MEMORY' ? `ran out of memory (limit ${o.memoryLimit} MB)`
+        : `worker failed: ${err instanceof Error ? err.message : String(err)}`;
+    return errorRow(item, config, why);
+  } finally {
+    clearTimeout(timer);
+  }
+}
+
+const errorRow = (item: BatchItem, config: string | undefined, message: string): BatchRow => ({ ...emptyRow(item.file, item.name, config ?? null), message });
+
+/** Creates a folder (and its parents), or says in one line why it cannot be. */
+function makeFolder(dir: string): void {
+  try {
+    mkdirSync(dir, { recursive: true });
+  } catch (err) {
+    throw new InputError(`${dir}: the output folder cannot be created (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
+  }
 }

@@ -7,7 +7,7 @@ import type { ReportUnits } from '../quantities/convert.js';
 import { TOOL } from '../version.js';
 import type { BatchRow } from './worker.js';
 
-const rankOf = { error: 0, fail: 1, pass: 2 } as const;
+const rankOf = { error: 0, fail: 1, pass: 2, skipped: 3 } as const;
 
 /** Worst first: unreadable, then failing (most errors first), then passing; ties by file. */
 export const worstFirst = (rows: BatchRow[]): BatchRow[] =>
@@ -21,7 +21,9 @@ const csvCell = (v: unknown) => {
 export function summaryCsv(rows: BatchRow[]): string {
   const head = ['file', 'status', 'heads', 'errors', 'warnings', 'demand_pressure', 'demand_flow_with_hose', 'supply_margin', 'config', 'message', 'ms'];
   const lines = rows.map((r) => [r.file, r.status, r.heads, r.errors, r.warnings, r.demandPressure, r.demandFlow, r.margin, r.config, r.message, r.ms].map(csvCell).join(','));
-  return `${head.join(',')}\n${lines.join('\n')}\n`;
+  // The caution closes the table as a row of its own: file "caution", the text where a row's message goes.
+  const caution = ['caution', '', '', '', '', '', '', '', '', CAUTION, ''].map(csvCell).join(',');
+  return `${head.join(',')}\n${[...lines, caution].join('\n')}\n`;
 }
 
 export function summaryHtml(rows: BatchRow[], units: ReportUnits): string {
@@ -37,9 +39,9 @@ export function summaryHtml(rows: BatchRow[], units: ReportUnits): string {
 <title>headcheck batch: ${rows.length} drawings</title><style>
 body{font-family:system-ui,sans-serif;max-width:1200px;margin:0 auto;padding:12px}table{border-collapse:collapse;width:100%;font-size:.9rem}
 th,td{border-bottom:1px solid #ddd;padding:4px 6px;text-align:left}tr.error td:first-child{color:#6a1b9a;font-weight:700}
-tr.fail td:first-child{color:#b3261e;font-weight:700}tr.pass td:first-child{color:#2e7d32}.caution{background:#fff6d6;padding:6px 8px}
+tr.fail td:first-child{color:#b3261e;font-weight:700}tr.pass td:first-child{color:#2e7d32}tr.skipped td:first-child{color:#666}.caution{background:#fff6d6;padding:6px 8px}
 </style></head><body><h1>headcheck batch: ${rows.length} drawings</h1>
-<p>${count('error')} could not be checked, ${count('fail')} fail, ${count('pass')} pass. Pressures in ${esc(units.pressure)}, flows in ${esc(units.flow)}.</p>
+<p>${count('error')} could not be checked, ${count('fail')} fail, ${count('pass')} pass${count('skipped') ? `, ${count('skipped')} skipped` : ''}. Pressures in ${esc(units.pressure)}, flows in ${esc(units.flow)}.</p>
 <p class="caution">${esc(CAUTION)}</p>
 <table><thead><tr><th>verdict</th><th>drawing</th><th>heads</th><th>errors</th><th>warnings</th><th>demand pressure</th><th>demand flow (with hose)</th><th>supply margin</th><th>problem</th></tr></thead>
 <tbody>${body.join('\n')}</tbody></table><p>${esc(TOOL.name)} ${esc(TOOL.version)}</p></body></html>

@@ -25,7 +25,8 @@ export interface BatchRow {
   file: string;
   name: string;
   config: string | null;
-  status: 'pass' | 'fail' | 'error';
+  /** pass, fail (error findings), error (could not be checked), skipped (seen and not checked: a link out of the folder). */
+  status: 'pass' | 'fail' | 'error' | 'skipped';
   heads: number | null;
   errors: number | null;
   warnings: number | null;
@@ -38,12 +39,15 @@ export interface BatchRow {
   outputs: string[];
 }
 
-export default function checkOne(task: BatchTask): BatchRow {
+/** A row that says nothing yet: status error until the drawing is checked. */
+export const emptyRow = (file: string, name: string, config: string | null): BatchRow => ({
+  file, name, config, status: 'error', heads: null, errors: null, warnings: null, demandPressure: null, demandFlow: null, margin: null,
+  message: null, ms: 0, outputs: [],
+});
+
+export default async function checkOne(task: BatchTask): Promise<BatchRow> {
   const t0 = performance.now();
-  const row: BatchRow = {
-    file: task.file, name: task.name, config: task.config, status: 'error', heads: null, errors: null, warnings: null,
-    demandPressure: null, demandFlow: null, margin: null, message: null, ms: 0, outputs: [],
-  };
+  const row = emptyRow(task.file, task.name, task.config);
   try {
     const settings = loadSettings(task.config);
     if (task.drawingUnits) settings.units = task.drawingUnits;
@@ -55,7 +59,7 @@ export default function checkOne(task: BatchTask): BatchRow {
     if (task.outputs.json) files.push({ path: join(task.outDir, `${task.name}.json`), data: () => reportJson(result) });
     if (task.outputs.dxf) files.push({ path: join(task.outDir, `${task.name}.dxf`), data: () => annotatedDrawing(input, result) });
     if (task.outputs.html) files.push({ path: join(task.outDir, `${task.name}.html`), data: () => reportPage(input, result) });
-    writeAllAtomically(files);
+    await writeAllAtomically(files);
     const s = result.report.summary;
     const best = result.report.designAreas.find((a) => a.rank === 'most-demanding')?.hydraulics;
     Object.assign(row, {

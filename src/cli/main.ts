@@ -14,7 +14,7 @@ import { InputError } from '../input-error.js';
 import { TOOL } from '../version.js';
 import { collectBetweenStages } from '../io/collect.js';
 import { findConfig, loadSettings, type FoundConfig } from '../io/config-file.js';
-import { assertNotInput, readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../io/files.js';
+import { assertNotInput, cleanUpOnSignals, readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../io/files.js';
 import { layersReport, layersText, starterConfig } from './layers-table.js';
 import { summaryLine } from './summary-line.js';
 
@@ -64,7 +64,7 @@ function settingsFor(drawing: string, opts: DrawingOptions): Settings {
 }
 
 /** Checks one drawing and writes the requested outputs; returns the exit code. */
-function checkCommand(file: string, opts: CheckOptions, io: { out: (s: string) => void; err: (s: string) => void }): number {
+async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: string) => void; err: (s: string) => void }): Promise<number> {
   for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
   const settings = settingsFor(file, opts);
   const bytes = readInputFile(file, settings.inputLimits.fileMB);
@@ -75,7 +75,7 @@ function checkCommand(file: string, opts: CheckOptions, io: { out: (s: string) =
   if (opts.json) files.push({ path: opts.json, data: () => reportJson(result) });
   if (opts.dxf) files.push({ path: opts.dxf, data: () => withFile(file, () => annotatedDrawing(input, result)) });
   if (opts.html) files.push({ path: opts.html, data: () => reportPage(input, result) });
-  writeAllAtomically(files);
+  await writeAllAtomically(files);
   io.out(summaryLine(file, result.report));
   return result.report.summary.pass ? 0 : 1;
 }
@@ -112,7 +112,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .option('--dxf <file>', 'write the annotated drawing')
     .option('--html <file>', 'write the HTML report')
     .addOption(unitsOption())
-    .action((drawing: string, opts: CheckOptions) => { code = checkCommand(drawing, opts, io); });
+    .action(async (drawing: string, opts: CheckOptions) => { code = await checkCommand(drawing, opts, io); });
 
   program.command('batch <inputs...>')
     .description('audit many drawings (folders are searched for .dxf files); one bad file never stops the rest')
@@ -133,11 +133,12 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
         if (!Number.isFinite(n) || n <= 0) throw new InputError(`${name}: must be a positive number, not "${v}"`);
         return n;
       };
-      mkdirSync(opts.out, { recursive: true });
       const tty = process.stderr.isTTY === true;
       // The batch, server and demo modules load only for their command: a check's memory peak grows with the
       // code loaded (V8 sizes the heap by what is live), and the worker pool alone is several MB.
       const { runBatch } = await import('../batch/run-batch.js');
+      // The main thread waits on the workers: an interrupt takes their temporary files with it.
+      cleanUpOnSignals();
       const outcome = await runBatch({
         inputs, out: opts.out, ...(opts.config ? { config: opts.config } : {}), ...(opts.drawingUnits ? { drawingUnits: opts.drawingUnits } : {}), units: opts.units,
         outputs: { json: opts.json, dxf: opts.dxf, html: opts.html },
@@ -155,7 +156,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .description('list layers: what each holds, the role the tool would give it and why'))
     .option('--json <file>', 'write the same as JSON')
     .option('--config-out <file>', 'write a starter config with the roles chosen (check --config accepts it)')
-    .action((drawing: string, opts: DrawingOptions & { json?: string; configOut?: string }) => {
+    .action(async (drawing: string, opts: DrawingOptions & { json?: string; configOut?: string }) => {
       for (const o of [opts.json, opts.configOut]) if (o) assertNotInput(o, drawing);
       const settings = settingsFor(drawing, opts);
       const bytes = readInputFile(drawing, settings.inputLimits.fileMB);
@@ -163,7 +164,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       const files: { path: string; data: string }[] = [];
       if (opts.json) files.push({ path: opts.json, data: `${JSON.stringify(report, null, 2)}\n` });
       if (opts.configOut) files.push({ path: opts.configOut, data: `${JSON.stringify(starterConfig(report, drawing), null, 2)}\n` });
-      writeAllAtomically(files);
+      await writeAllAtomically(files);
       io.out(layersText(report));
     });
 
@@ -174,7 +175,8 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .action(async (opts: { port: string; host: string }) => {
       const port = Number(opts.port);
       if (!Number.isInteger(port) || port < 0 || port > 65535) throw new InputError(`--port: must be a port number, not "${opts.port}"`);
-      const { serve } = await import('../serve/server.js');
+      const { isLoopback, serve } = await import('../serve/server.js');
+      if (!isLoopback(opts.host)) io.err(`headcheck: warning: --host ${opts.host} serves the page to other machines; drawings dropped there are checked on this one`);
       const s = await serve(fileURLToPath(new URL('../web/', import.meta.url)), port, opts.host);
       io.out(`headcheck: the local page is at ${s.url} (the drawing stays on this machine; Ctrl-C stops)`);
       await new Promise<void>((done) => process.once('SIGINT', () => { void s.close().then(done); }));
@@ -186,15 +188,19 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .addOption(unitsOption())
     .action(async (opts: { out: string; units: UnitSystem }) => {
       const { demoDrawing, DEMO_CONFIG } = await import('../demo/scenario.js');
-      mkdirSync(opts.out, { recursive: true });
+      try {
+        mkdirSync(opts.out, { recursive: true });
+      } catch (err) {
+        throw new InputError(`${opts.out}: the folder cannot be created (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
+      }
       const dxfPath = join(opts.out, 'demo-plan.dxf');
       const configPath = join(opts.out, 'demo-plan.config.json');
-      writeAllAtomically([
+      await writeAllAtomically([
         { path: dxfPath, data: demoDrawing() },
         { path: configPath, data: `${JSON.stringify(DEMO_CONFIG, null, 2)}\n` },
       ]);
       parseSettings(DEMO_CONFIG, configPath);
-      const verdict = checkCommand(dxfPath, {
+      const verdict = await checkCommand(dxfPath, {
         config: configPath, json: join(opts.out, 'demo-plan.json'), dxf: join(opts.out, 'demo-plan.annotated.dxf'),
         html: join(opts.out, 'demo-plan.html'), units: opts.units,
       }, io);

@@ -171,6 +171,8 @@ export function configSchema(system: UnitSystem) {
       entities: count(5_000_000, 'Most entities in the file, blocks included'),
       blockDepth: count(32, 'Deepest block nesting'),
       blockReferences: count(2_000_000, 'Most block references once nesting and arrays are multiplied out'),
+      expandedEntities: count(1_000_000, 'Most entities the read layers hold once blocks are multiplied out (arrays and nesting)'),
+      heads: count(100_000, 'Most head symbols on the head layers'),
       textLength: count(65_536, 'Longest value (a text, a name), characters'),
       networkNodes: count(1_000_000, 'Most nodes of the rebuilt piping'),
     }, 'How much a drawing may cost before it is refused (each far above real plans)'), {}),

@@ -17,6 +17,7 @@ import { candidatesOf, lineFamilies, type LineFamily } from './candidates.js';
 import { designBasis, type DesignBasis } from './design-basis.js';
 import { searchMostDemanding, type SearchOutcome } from './search.js';
 import type { AreaShape } from './shape.js';
+import { maxOf, minOf } from '../arrays.js';
 
 export interface DesignAreaResult {
   source: 'drawn' | 'search';
@@ -112,7 +113,7 @@ function measureSearched(ids: string[], lineIds: string[], fam: LineFamily, head
   const spacingAcross = lines.length > 1 ? Math.abs(lines[1]!.offset - lines[0]!.offset) : fam.perHead / fam.spacing;
   const bands = lines.map((l) => {
     const ts = l.heads.filter((h) => ids.includes(h.id)).map((h) => h.t);
-    return { lo: Math.min(...ts) - fam.spacing / 2, hi: Math.max(...ts) + fam.spacing / 2, o: l.offset };
+    return { lo: minOf(ts) - fam.spacing / 2, hi: maxOf(ts) + fam.spacing / 2, o: l.offset };
   }).sort((a, b) => a.o - b.o);
   const half = spacingAcross / 2;
   const toWorld = (t: number, o: number): Point => ({ x: fam.u.x * t + fam.v.x * o, y: fam.u.y * t + fam.v.y * o });
@@ -123,7 +124,7 @@ function measureSearched(ids: string[], lineIds: string[], fam: LineFamily, head
   const ts = ids.map((id) => dot(headById.get(id)!.position, fam.u));
   return {
     source: 'search', headIds: ids, lineIds, handle: null, outline, outlineArea: null,
-    length: Math.max(...ts) - Math.min(...ts) + fam.spacing,
+    length: maxOf(ts) - minOf(ts) + fam.spacing,
     width: bands.length ? bands[bands.length - 1]!.o - bands[0]!.o + spacingAcross : 0,
     actualArea: ids.reduce((s, id) => s + areaOf(id), 0),
   };
@@ -138,7 +139,7 @@ function measureDrawn(outline: Outline, ids: string[], fam: LineFamily | null, a
   return {
     source: 'drawn', headIds: ids, lineIds, handle: outline.handle, outline: outline.points,
     outlineArea: Math.abs(signedArea(outline.points)),
-    length: Math.max(...ts) - Math.min(...ts), width: Math.max(...os) - Math.min(...os),
+    length: maxOf(ts) - minOf(ts), width: maxOf(os) - minOf(os),
     actualArea: ids.reduce((s, id) => s + areaOf(id), 0),
   };
 }

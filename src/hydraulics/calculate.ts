@@ -8,6 +8,7 @@ import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
 import { buildModel, type FlowingHead, type HydraulicModel } from './model.js';
 import { NetworkSolver, type SolveResult } from './solver.js';
 import { availablePressure } from './water-supply.js';
+import { maxOf } from '../arrays.js';
 
 export interface AreaHydraulics {
   sourcePressure: number;
@@ -108,7 +109,7 @@ export class AreaCalculator {
       return { P, value, critical, state };
     };
     const zSource = model.nodes[model.source]!.elevation;
-    const staticHead = Math.max(...Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)));
+    const staticHead = maxOf(Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)));
     const found = findPressure(slack, staticHead, this.lastPressure, () => solves);
     this.lastPressure = found.P;
     return {

@@ -4,6 +4,7 @@
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import type { Emitter, HydraulicModel } from './model.js';
 import { buildSkeleton, type Skeleton } from './skeleton.js';
+import { maxOf, minOf } from '../arrays.js';
 
 export interface TreeBound {
   /** Upper bounds on the required source pressure (psi) and the source flow (gpm), or null where none holds. */
@@ -58,7 +59,7 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
   const anchorZ = Float64Array.from(sk.anchorNode, z);
   const chainZ = sk.chains.map((c) => {
     const zs = Array.from(c.nodes, z);
-    return zs.length && Math.max(...zs) - Math.min(...zs) > 1e-9 ? Number.NaN : (zs[0] ?? null);
+    return zs.length && maxOf(zs) - minOf(zs) > 1e-9 ? Number.NaN : (zs[0] ?? null);
   });
   const emitterOf = new Map(model.emitters.map((e) => [e.headId, e]));
   // Per-call scratch, reused: each anchor's combined (pressure, flow) and the call that last touched it; each

@@ -12,9 +12,9 @@ const folder = () => mkdtempSync(join(tmpdir(), 'headcheck-files-'));
 const ascii = (s: string) => new TextEncoder().encode(s);
 
 describe('writeAllAtomically', () => {
-  it('writes text as UTF-8, bytes as they are, and pieces one after another', () => {
+  it('writes text as UTF-8, bytes as they are, and pieces one after another', async () => {
     const dir = folder();
-    writeAllAtomically([
+    await writeAllAtomically([
       { path: join(dir, 'a.txt'), data: 'Ø 2½"' },
       { path: join(dir, 'b.dxf'), data: () => [ascii('  0\n'), ascii('SECTION\n'), new Uint8Array(0), ascii('  0\nEOF\n')] },
     ]);
@@ -24,23 +24,23 @@ describe('writeAllAtomically', () => {
     expect(readdirSync(dir).sort()).toEqual(['a.txt', 'b.dxf']);
   });
 
-  it('writes a long text in pieces without splitting a character (a surrogate pair across a piece boundary)', () => {
+  it('writes a long text in pieces without splitting a character (a surrogate pair across a piece boundary)', async () => {
     const dir = folder();
     // U+1F600 is the surrogate pair D83D DE00; placed so that its first half ends the first 2^20-character piece.
     const text = `${'a'.repeat(2 ** 20 - 1)}\u{1F600}${'é'.repeat(3000)}`;
-    writeAllAtomically([{ path: join(dir, 'long.json'), data: text }]);
+    await writeAllAtomically([{ path: join(dir, 'long.json'), data: text }]);
     // Expected: the whole text encoded at once by Node's own UTF-8 encoder.
     expect(Buffer.compare(readFileSync(join(dir, 'long.json')), Buffer.from(text, 'utf8'))).toBe(0);
   });
 
-  it('leaves no file, finished or temporary, when making a later output fails, and passes its error on', () => {
+  it('leaves no file, finished or temporary, when making a later output fails, and passes its error on', async () => {
     const dir = folder();
     const made: string[] = [];
-    expect(() => writeAllAtomically([
+    await expect(writeAllAtomically([
       { path: join(dir, 'report.json'), data: () => { made.push('json'); return '{}\n'; } },
       { path: join(dir, 'plan.dxf'), data: () => { throw new InputError('the drawing has no ENTITIES section'); } },
       { path: join(dir, 'report.html'), data: () => { made.push('html'); return '<p>'; } },
-    ])).toThrow(/^the drawing has no ENTITIES section$/);
+    ])).rejects.toThrow(/^the drawing has no ENTITIES section$/);
     expect(made).toEqual(['json']); // the HTML was never made
     expect(readdirSync(dir)).toEqual([]);
   });

@@ -1,8 +1,10 @@
 // File access for the CLI: reading inputs with errors that name the file, atomic writes (temporary file,
 // then rename) that never leave a partial output, and a guard that an output never replaces the input.
 
-import { createHash } from 'node:crypto';
-import { closeSync, openSync, readFileSync, renameSync, rmSync, statSync, writeSync } from 'node:fs';
+import { createHash, randomBytes } from 'node:crypto';
+import { readdirSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs';
+import { open } from 'node:fs/promises';
+import { isMainThread } from 'node:worker_threads';
 import { basename, dirname, join, resolve } from 'node:path';
 import { InputError } from '../input-error.js';
 
@@ -36,42 +38,153 @@ export function assertNotInput(output: string, input: string): void {
 /** An output's content: text (written as UTF-8), bytes, or bytes in pieces written one after another. */
 export type OutputData = string | Uint8Array | Uint8Array[];
 
+/** Temporary files start so (in the output's own folder, so that the rename stays on one disk) and end `.tmp`. */
+const TEMP_PREFIX = '.headcheck-';
+/** A temporary file older than this in an output folder is left by a run that was killed: removed at start. */
+const STALE_MS = 60 * 60 * 1000;
+
+/** Temporary files this thread has open, and folders where this process writes: cleaned on a signal. */
+const openTemps = new Set<string>();
+const outputFolders = new Set<string>();
+
+const errorCode = (err: unknown) => {
+  const e = err as NodeJS.ErrnoException;
+  return e.code ? `${e.code}${e.syscall ? ` on ${e.syscall}` : ''}` : e instanceof Error ? e.message : String(err);
+};
+
 /**
- * Writes all files or none: each goes to a temporary name first; the renames happen only when all are written.
- * A file's data may be a function, called when its turn comes, so that each output is garbage once written;
- * an error it throws leaves no file behind and is passed on as it is.
+ * Writes all files or none: each goes to a temporary name in its folder first; the renames happen only when all
+ * are written, and a rename that fails takes back the ones before it. A file's data may be a function, called when
+ * its turn comes, so that each output is garbage once written; an error it throws leaves no file behind and is
+ * passed on as it is. Two outputs on one path, an output that is a folder, an unwritable folder: a one-line
+ * InputError naming the path.
  */
-export function writeAllAtomically(files: { path: string; data: OutputData | (() => OutputData) }[]): void {
-  const temps: { tmp: string; path: string }[] = [];
-  const clean = () => { for (const t of temps) removeQuietly(t.tmp); };
+export async function writeAllAtomically(files: { path: string; data: OutputData | (() => OutputData) }[]): Promise<void> {
+  const seen = new Map<string, string>();
   for (const f of files) {
-    let data: OutputData;
-    try {
-      data = typeof f.data === 'function' ? f.data() : f.data;
-    } catch (err) {
-      clean();
-      throw err;
-    }
-    const tmp = join(dirname(f.path), `.${basename(f.path)}.${process.pid}.${temps.length}.tmp`);
-    temps.push({ tmp, path: f.path });
-    try {
-      writeData(tmp, data);
-    } catch (err) {
-      clean();
-      throw new InputError(`${f.path}: cannot be written (${(err as NodeJS.ErrnoException).code ?? 'error'})`);
-    }
+    const abs = resolve(f.path);
+    if (seen.has(abs)) throw new InputError(`${f.path}: two outputs may not share one path (also ${seen.get(abs)})`);
+    seen.set(abs, f.path);
+    if (isFolder(abs)) throw new InputError(`${f.path}: is a folder, not a file to write`);
   }
-  for (const t of temps) renameSync(t.tmp, t.path);
+  for (const dir of new Set([...seen.keys()].map(dirname))) sweepStaleTemps(dir);
+  const temps: { tmp: string; path: string }[] = [];
+  const renamed: string[] = [];
+  const clean = () => {
+    for (const t of temps) { removeQuietly(t.tmp); openTemps.delete(t.tmp); }
+    for (const r of renamed) removeQuietly(r);
+  };
+  const release = guardTemps();
+  try {
+    for (const f of files) {
+      const data = typeof f.data === 'function' ? f.data() : f.data;
+      const tmp = join(dirname(f.path), `${TEMP_PREFIX}${basename(f.path)}-${process.pid}-${randomBytes(4).toString('hex')}.tmp`);
+      temps.push({ tmp, path: f.path });
+      openTemps.add(tmp);
+      try {
+        await writeData(tmp, data);
+      } catch (err) {
+        throw new InputError(`${f.path}: cannot be written (${errorCode(err)})`);
+      }
+    }
+    for (const t of temps) {
+      try {
+        renameSync(t.tmp, t.path);
+      } catch (err) {
+        throw new InputError(`${t.path}: cannot be written (${errorCode(err)})`);
+      }
+      openTemps.delete(t.tmp);
+      renamed.push(t.path);
+    }
+  } catch (err) {
+    clean();
+    throw err;
+  } finally {
+    release();
+  }
 }
 
-function writeData(path: string, data: OutputData): void {
-  const fd = openSync(path, 'w');
-  const put = (piece: Uint8Array) => { for (let at = 0; at < piece.length;) at += writeSync(fd, piece, at, piece.length - at); };
+function isFolder(path: string): boolean {
   try {
-    if (typeof data === 'string') for (const piece of utf8Pieces(data)) put(piece);
-    else for (const piece of Array.isArray(data) ? data : [data]) put(piece);
+    return statSync(path).isDirectory();
+  } catch {
+    return false;
+  }
+}
+
+/** Removes temporary files of ours older than an hour from `dir` (a killed run's); once per folder and process. */
+export function sweepStaleTemps(dir: string): void {
+  if (outputFolders.has(dir)) return;
+  outputFolders.add(dir);
+  let names: string[];
+  try {
+    names = readdirSync(dir);
+  } catch {
+    return; // an unreadable folder is reported when it is written to
+  }
+  const now = Date.now();
+  for (const name of names) {
+    if (!name.startsWith(TEMP_PREFIX) || !name.endsWith('.tmp')) continue;
+    try {
+      if (now - statSync(join(dir, name)).mtimeMs > STALE_MS) rmSync(join(dir, name), { force: true });
+    } catch {
+      // gone already, or not ours to remove
+    }
+  }
+}
+
+const SIGNALS = ['SIGINT', 'SIGTERM', 'SIGHUP'] as const;
+
+/**
+ * Removes this thread's temporary files and, in every output folder of this process, the ones its worker threads
+ * left (they carry the process id); then ends the process as `signal` would have.
+ */
+function cleanAndEnd(signal: NodeJS.Signals): void {
+  for (const t of openTemps) removeQuietly(t);
+  const mine = `-${process.pid}-`;
+  for (const dir of outputFolders) {
+    try {
+      for (const name of readdirSync(dir)) if (name.startsWith(TEMP_PREFIX) && name.includes(mine) && name.endsWith('.tmp')) removeQuietly(join(dir, name));
+    } catch {
+      // the folder went away
+    }
+  }
+  for (const s of SIGNALS) process.removeAllListeners(s);
+  process.kill(process.pid, signal);
+}
+
+/**
+ * While outputs are written (a write yields to the event loop between pieces), a SIGINT, SIGTERM or SIGHUP removes
+ * the temporary files before the process ends. Outside writes the default stands: a check is stopped at once, and
+ * it has written nothing. Returns the function that takes the guard off.
+ */
+function guardTemps(): () => void {
+  if (typeof process.on !== 'function' || !isMainThread) return () => undefined;
+  const handlers = SIGNALS.map((signal) => [signal, () => cleanAndEnd(signal)] as const);
+  for (const [signal, handler] of handlers) process.on(signal, handler);
+  return () => { for (const [signal, handler] of handlers) process.off(signal, handler); };
+}
+
+/** For the whole of a run whose thread waits on workers (the batch): the same cleanup on a signal. */
+let cleaning = false;
+export function cleanUpOnSignals(): void {
+  if (cleaning) return;
+  cleaning = true;
+  for (const signal of SIGNALS) process.once(signal, () => cleanAndEnd(signal));
+}
+
+/** Marks a folder where worker threads of this process write (the batch output folder), for the cleanup above. */
+export const watchOutputFolder = (dir: string) => { sweepStaleTemps(resolve(dir)); };
+
+/** Writes the data a piece at a time, each write a turn of the event loop (so that a signal can be handled). */
+async function writeData(path: string, data: OutputData): Promise<void> {
+  const file = await open(path, 'w');
+  const put = async (piece: Uint8Array) => { for (let at = 0; at < piece.length;) at += (await file.write(piece, at, piece.length - at)).bytesWritten; };
+  try {
+    if (typeof data === 'string') for (const piece of utf8Pieces(data)) await put(piece);
+    else for (const piece of Array.isArray(data) ? data : [data]) await put(piece);
   } finally {
-    closeSync(fd);
+    await file.close();
   }
 }
 

@@ -10,6 +10,7 @@ import { groupRuns } from './runs.js';
 import { sizesFromLabels } from './size-labels.js';
 import { snapStrokes, type Edge } from './snap.js';
 import type { BranchLine, DisconnectedPart, NetNode, NetPipe, Network, Topology } from './types.js';
+import { minOf, pushAll } from '../arrays.js';
 
 /** A source symbol may sit up to 2 ft from the pipe it feeds (common practice, no source). */
 const SOURCE_REACH_FT = 2;
@@ -93,7 +94,7 @@ function mergeChains(nodeCount: number, edges: Edge[], pinned: (n: number) => bo
       const e = edges[ei]!;
       const forward = e.a === node;
       const pts = forward ? e.points : [...e.points].reverse();
-      points.push(...(points.length ? pts.slice(1) : pts));
+      pushAll(points, points.length ? pts.slice(1) : pts);
       list.push(e);
       node = forward ? e.b : e.a;
       if (!through(node) || node === start) break;
@@ -235,7 +236,8 @@ function buildBranchLines(
 ): BranchLine[] {
   const rank = new Map(headOrder.map((h, i) => [h, i]));
   const lines: BranchLine[] = [];
-  const runs = [...runHeads.keys()].sort((a, b) => Math.min(...[...runHeads.get(a)!].map((h) => rank.get(h)!)) - Math.min(...[...runHeads.get(b)!].map((h) => rank.get(h)!)));
+  const firstRank = (run: number) => minOf([...runHeads.get(run)!].map((h) => rank.get(h)!));
+  const runs = [...runHeads.keys()].sort((a, b) => firstRank(a) - firstRank(b));
   for (const run of runs) {
     const own = pipes.filter((p) => p.run === run && p.role === 'branch');
     if (own.length === 0) continue;

@@ -17,7 +17,13 @@ const STRAIGHT_COS = Math.cos((25 * Math.PI) / 180);
 /** Run index of each pipe. */
 export function groupRuns(nodeCount: number, pipes: RunPipe[], hasHead: (node: number) => boolean): number[] {
   const parent = pipes.map((_, i) => i);
-  const find = (i: number): number => (parent[i] === i ? i : (parent[i] = find(parent[i]!)));
+  /** The root of i's set, with the path compressed (a loop: a run may hold a hundred thousand pipes). */
+  const find = (i: number): number => {
+    let root = i;
+    while (parent[root] !== root) root = parent[root]!;
+    for (let at = i; parent[at] !== root;) { const up = parent[at]!; parent[at] = root; at = up; }
+    return root;
+  };
   const union = (a: number, b: number) => { parent[find(a)] = find(b); };
   const incident: number[][] = Array.from({ length: nodeCount }, () => []);
   pipes.forEach((p, i) => { incident[p.from]!.push(i); incident[p.to]!.push(i); });

@@ -5,6 +5,7 @@ import RBush from 'rbush';
 import { distanceToSegment, type Point } from '../geometry/point.js';
 import type { Stroke, TextItem } from '../read/types.js';
 import { parseSizeLabel, type NominalSize } from '../quantities/pipe-sizes.js';
+import { maxOf, minOf } from '../arrays.js';
 
 interface Box { minX: number; minY: number; maxX: number; maxY: number; i: number }
 
@@ -20,7 +21,7 @@ export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: nu
   index.load(strokes.map((s, i) => {
     const xs = [s.a.x, s.b.x, ...s.via.map((v) => v.x)];
     const ys = [s.a.y, s.b.y, ...s.via.map((v) => v.y)];
-    return { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys), i };
+    return { minX: minOf(xs), minY: minOf(ys), maxX: maxOf(xs), maxY: maxOf(ys), i };
   }));
   const own: (NominalSize | null)[] = strokes.map(() => null);
   const ownDistance = strokes.map(() => Infinity);

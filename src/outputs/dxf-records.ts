@@ -66,13 +66,18 @@ export function polyline(ctx: RecordContext, layer: string, pts: Point[], closed
   return out;
 }
 
-export interface InsertOptions { rotation?: number; sx?: number; sy?: number; attribs?: { tag: string; value: string }[] }
+export interface InsertOptions {
+  rotation?: number; sx?: number; sy?: number; attribs?: { tag: string; value: string }[];
+  /** A MINSERT array: columns and rows, and their spacing. */
+  grid?: { columns: number; rows: number; columnSpacing: number; rowSpacing: number };
+}
 
 export function insert(ctx: RecordContext, layer: string, block: string, at: Point, o: InsertOptions = {}): Pairs {
   const attribs = o.attribs ?? [];
   const out = [...head(ctx, 'INSERT', layer, 'AcDbBlockReference')];
   if (attribs.length) out.push(66, 1);
   out.push(2, block, 10, at.x, 20, at.y, 30, 0, 41, o.sx ?? 1, 42, o.sy ?? 1, 50, o.rotation ?? 0);
+  if (o.grid) out.push(70, o.grid.columns, 71, o.grid.rows, 44, o.grid.columnSpacing, 45, o.grid.rowSpacing);
   for (const a of attribs) {
     out.push(...head(ctx, 'ATTRIB', layer, 'AcDbText'), 10, at.x, 20, at.y, 30, 0, 40, 1, 1, a.value);
     if (ctx.modern) out.push(100, 'AcDbAttribute');

@@ -8,7 +8,9 @@ import { converterFor, REPORT_UNITS } from '../quantities/convert.js';
 import { formatterFor } from '../quantities/format.js';
 import { CAUTION } from './caution.js';
 import { escapeHtml as esc } from './html-escape.js';
+import { sha256Base64 } from './sha256.js';
 import { supplyGraph } from './supply-graph.js';
+import { pushAll } from '../arrays.js';
 
 const ROLE_COLOR: Record<PipeRole, string> = {
   branch: '#1f6fd1', 'cross-main': '#7a3fc4', 'feed-main': '#b3261e', riser: '#b3261e', drop: '#2e7d32', unknown: '#888',
@@ -34,7 +36,7 @@ export function htmlReport(input: CheckInput, result: CheckResult): string {
   ];
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; script-src 'unsafe-inline'; img-src data:">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; script-src '${REPORT_SCRIPT_HASH}'; img-src data:">
 <title>headcheck: ${verdict} ${esc(r.input.file)}</title><style>${STYLE}</style></head>
 <body>${body.join('\n')}<script>${REPORT_SCRIPT}</script></body></html>
 `;
@@ -52,8 +54,8 @@ function planSvg(result: CheckResult): string {
   const path = (ps: Point[], close: boolean) => `M${ps.map((p) => `${X(p)} ${Y(p)}`).join(' L')}${close ? ' Z' : ''}`;
   const unit = Math.max(w, h) / 250;
   const parts: string[] = [];
-  parts.push(...plan.rooms.map((room) => `<path class="room" d="${path(room.points, true)}"/>`));
-  parts.push(...plan.walls.map((s) => `<path class="wall" d="${path([s.a, ...s.via, s.b], false)}"/>`));
+  pushAll(parts, plan.rooms.map((room) => `<path class="room" d="${path(room.points, true)}"/>`));
+  pushAll(parts, plan.walls.map((s) => `<path class="wall" d="${path([s.a, ...s.via, s.b], false)}"/>`));
   for (const a of design.areas) {
     if (a.outline.length < 3) continue;
     parts.push(`<path class="area area-${a.rank ?? 'drawn'}" d="${path(a.outline, true)}"><title>${esc(a.rank ?? 'drawn')} design area: ${a.headIds.length} heads</title></path>`);
@@ -69,7 +71,7 @@ function planSvg(result: CheckResult): string {
   for (const [cls, heads] of [['head', plan.heads.filter((h) => !flowing.has(h.id))], ['head flowing', plan.heads.filter((h) => flowing.has(h.id))]] as const) {
     if (heads.length) parts.push(`<path class="${cls}" data-count="${heads.length}" d="${heads.map((h) => ring(h.position)).join('')}"/>`);
   }
-  parts.push(...findings.map((f, i) => `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(f.message)}</title></circle>`));
+  pushAll(parts, findings.map((f, i) => `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(f.message)}</title></circle>`));
   return `<div class="planbox"><svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg></div>`;
 }
 
@@ -175,3 +177,6 @@ row.addEventListener('keydown',function(e){if(e.key==='Enter')highlight(row.data
 svg.querySelectorAll('.marker').forEach(function(m){m.addEventListener('click',function(e){e.stopPropagation();var row=document.querySelector('tr[data-finding="'+m.dataset.finding+'"]');highlight(m.dataset.finding);if(row)row.scrollIntoView({block:'center'});});});
 })();
 `;
+
+/** The CSP source of the report's one script, by its SHA-256 (no other inline script may run). */
+export const REPORT_SCRIPT_HASH = `sha256-${sha256Base64(REPORT_SCRIPT)}`;

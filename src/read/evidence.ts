@@ -12,6 +12,7 @@ import type { EntityBase } from './entities/types.js';
 import { flatten } from './flatten.js';
 import type { RawBlock } from './select.js';
 import { blockLookup, nameDecoder, PAPER_SPACE, rowLayers, type BlockEntry, type DrawingSource } from './source.js';
+import { maxOf, minOf } from '../arrays.js';
 
 export interface BlockFacts {
   name: string;
@@ -139,7 +140,7 @@ export function gatherEvidence(source: DrawingSource): Evidence {
       if (!pts.length) return null;
       const xs = pts.map((p) => p.x);
       const ys = pts.map((p) => p.y);
-      return Math.max(Math.max(...xs) - Math.min(...xs), Math.max(...ys) - Math.min(...ys));
+      return Math.max(maxOf(xs) - minOf(xs), maxOf(ys) - minOf(ys));
     } catch (err) {
       if (err instanceof InputError) return null;
       throw err;

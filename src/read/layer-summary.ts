@@ -43,6 +43,7 @@ export function summarizeLayers(scan: Pick<DrawingSource, 'blocks' | 'names' | '
     const known = memo.get(key);
     if (known) return known;
     if (open.has(block)) fail(`block "${named(block.name)}" contains a reference to itself`);
+    if (open.size >= maxDepth) fail(`block nesting deeper than ${maxDepth} levels at "${named(block.name)}" (inputLimits.blockDepth)`);
     open.add(block);
     const result = walk([block.rows], inherited);
     open.delete(block);

@@ -62,7 +62,7 @@ function decodeByRole(bytes: Uint8Array, options: ReadOptions, limits: InputLimi
   const raw = decodeSelected(source, {
     layer: onRoles(roles, ...LAYER_ROLES),
     label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
-  });
+  }, limits.expandedEntities);
   return { raw, layers, roles, headCandidates, header: source.header, encoding: source.encoding };
 }
 
@@ -88,5 +88,16 @@ function inspectSource(source: DrawingSource, options: ReadOptions, limits: Inpu
   const units = options.units ?? unitFromInsunits(source.header.insunits);
   const evidence = gatherEvidence(source);
   const { roles, headCandidates } = assignLayerRoles({ layers, patterns: options.layers ?? {}, evidence, feetPerUnit: units ? FEET_PER_UNIT[units] : null });
+  checkHeadCount(layers, roles, limits.heads);
   return { source, layers, roles, headCandidates, evidence, units };
+}
+
+/** The head layers' symbols, counted through arrays and nesting before any is expanded, against the limit. */
+function checkHeadCount(layers: LayerSummary[], roles: LayerRoles, limit: number): void {
+  for (const l of layers) {
+    if (!roles.heads.layers.includes(l.name)) continue;
+    for (const [block, count] of Object.entries(l.symbolRefs)) {
+      if (count > limit) fail(`layer "${l.name}" places block "${block}" ${count} times, over the limit of ${limit} heads (inputLimits.heads)`);
+    }
+  }
 }

@@ -3,6 +3,7 @@
 // architectural background costs a scan, not a decode.
 
 import type { Point } from '../geometry/point.js';
+import { fail } from '../input-error.js';
 import type { EntityBase } from './entities/types.js';
 import { blockLookup, effectiveLayer, PAPER_SPACE, rowLayers, type BlockEntry, type DrawingSource } from './source.js';
 
@@ -22,7 +23,11 @@ export interface RawDrawing {
   block(name: string): RawBlock | null;
 }
 
-export function decodeSelected(source: DrawingSource, wanted: Wanted): RawDrawing {
+/**
+ * Decodes what `wanted` selects; refused first, without decoding anything, when expanding the selection would
+ * produce more than `budget` entities (a block arrayed or nested into millions of copies).
+ */
+export function decodeSelected(source: DrawingSource, wanted: Wanted, budget = Infinity): RawDrawing {
   const blocks = blockLookup(source);
   const layerOf = rowLayers(source);
   const { table } = source;
@@ -48,17 +53,17 @@ export function decodeSelected(source: DrawingSource, wanted: Wanted): RawDrawin
     reachMemo.set(key, result);
     return result;
   };
+  const chosen: number[] = [];
+  for (const run of source.modelSpace) for (let row = run.first; row < run.end; row++) if (!(table.flags[row]! & PAPER_SPACE) && wants(row, null)) chosen.push(row);
+  checkExpansion(source, chosen, budget);
   const entities: EntityBase[] = [];
   const used = new Set<BlockEntry>();
   const stack: BlockEntry[] = [];
-  for (const run of source.modelSpace) {
-    for (let row = run.first; row < run.end; row++) {
-      if (table.flags[row]! & PAPER_SPACE || !wants(row, null)) continue;
-      const e = source.entity(row);
-      if (e) entities.push(e);
-      const b = blocks.of(row);
-      if (b) stack.push(b);
-    }
+  for (const row of chosen) {
+    const e = source.entity(row);
+    if (e) entities.push(e);
+    const b = blocks.of(row);
+    if (b) stack.push(b);
   }
   // Whole definitions of the blocks the chosen references use, nested ones included.
   const decoded = new Map<BlockEntry, RawBlock>();
@@ -76,4 +81,41 @@ export function decodeSelected(source: DrawingSource, wanted: Wanted): RawDrawin
     decoded.set(b, { name: b.name, base: source.blockBase(b), entities: inner });
   }
   return { entities, block: (name) => { const b = blocks.find(name); return b ? (decoded.get(b) ?? null) : null; } };
+}
+
+/**
+ * The entities the chosen rows expand to (each reference's block contents times its array copies, through nesting)
+ * are counted before anything is expanded: over `budget` is a one-line refusal naming the largest reference.
+ */
+function checkExpansion(source: DrawingSource, rows: number[], budget: number): void {
+  if (!Number.isFinite(budget)) return;
+  const blocks = blockLookup(source);
+  const { table } = source;
+  const layerOf = rowLayers(source);
+  const size = new Map<BlockEntry, number>();
+  const expanded = (block: BlockEntry): number => {
+    let n = size.get(block);
+    if (n !== undefined) return n;
+    size.set(block, 0); // a cycle is reported by the layer summary; here it adds nothing
+    n = 0;
+    for (let row = block.rows.first; row < block.rows.end; row++) {
+      const inner = blocks.of(row);
+      n += 1 + (inner ? table.copies[row]! * expanded(inner) : 0);
+    }
+    size.set(block, n);
+    return n;
+  };
+  let total = 0;
+  let worst = { row: -1, count: 0 };
+  for (const row of rows) {
+    const block = blocks.of(row);
+    const count = 1 + (block ? table.copies[row]! * expanded(block) : 0);
+    total += count;
+    if (count > worst.count) worst = { row, count };
+  }
+  if (total <= budget) return;
+  const block = blocks.of(worst.row);
+  const copies = table.copies[worst.row]!;
+  const where = block ? `block "${block.name}"${copies > 1 ? ` placed ${copies} times by one array` : ''} on layer "${layerOf(worst.row)}" expands to ${worst.count} entities` : `${total} entities`;
+  fail(`the drawing's read layers expand to ${total} entities, over the limit of ${budget} (inputLimits.expandedEntities): ${where}`);
 }

@@ -5,6 +5,7 @@ import { cross, dot, type Point } from '../geometry/point.js';
 import type { BranchLine, Network } from '../network/types.js';
 import type { Head } from '../read/plan.js';
 import type { Walls } from './walls.js';
+import { maxOf, minOf } from '../arrays.js';
 
 export interface Coverage {
   headId: string;
@@ -45,8 +46,8 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
       const [left, right] = adjacentLines(p, line, summaries, v);
       const wallLeft = left === null ? walls.along(p, v, REACH_FT) : null;
       const wallRight = right === null ? walls.along(p, { x: -v.x, y: -v.y }, REACH_FT) : null;
-      const s = maxOf(before, after, twice(wallBack), twice(wallFwd));
-      const l = maxOf(left, right, twice(wallLeft), twice(wallRight));
+      const s = largest(before, after, twice(wallBack), twice(wallFwd));
+      const l = largest(left, right, twice(wallLeft), twice(wallRight));
       out.set(id, {
         headId: id, branchLine: line.id, s, l, area: s !== null && l !== null ? s * l : null,
         wallAlong: [wallBack, wallFwd], wallAcross: [wallLeft, wallRight], headAlong: [before, after], lineAcross: [left, right],
@@ -62,14 +63,16 @@ interface LineSummary { line: BranchLine; centroid: Point; ends: [Point, Point];
 function summarise(line: BranchLine, pos: Map<string, Point>): LineSummary {
   const pts = line.headIds.map((id) => pos.get(id)!);
   const ts = pts.map((q) => dot(q, line.direction));
-  const first = pts[ts.indexOf(Math.min(...ts))]!;
-  const last = pts[ts.indexOf(Math.max(...ts))]!;
+  const tMin = minOf(ts);
+  const tMax = maxOf(ts);
+  const first = pts[ts.indexOf(tMin)]!;
+  const last = pts[ts.indexOf(tMax)]!;
   const n = pts.length;
   return {
     line,
     centroid: { x: pts.reduce((a, q) => a + q.x, 0) / n, y: pts.reduce((a, q) => a + q.y, 0) / n },
     ends: [first, last],
-    spacing: (Math.max(...ts) - Math.min(...ts)) / Math.max(1, n - 1),
+    spacing: (tMax - tMin) / Math.max(1, n - 1),
   };
 }
 
@@ -96,8 +99,8 @@ function adjacentLines(p: Point, line: BranchLine, others: LineSummary[], v: Poi
 }
 
 const twice = (d: number | null) => (d === null ? null : 2 * d);
-function maxOf(...xs: (number | null)[]): number | null {
+function largest(...xs: (number | null)[]): number | null {
   const v = xs.filter((x): x is number => x !== null);
-  return v.length ? Math.max(...v) : null;
+  return v.length ? maxOf(v) : null;
 }
 

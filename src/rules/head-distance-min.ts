@@ -1,33 +1,65 @@
-// Rule head-distance-min: two standard-spray heads closer than 6 ft wet each other (cold soldering)
-// unless baffles separate them; reported once per pair (a symbol drawn twice at one point is one head).
+// Rule head-distance-min: two standard-spray heads closer than 6 ft wet each other (cold soldering) unless baffles
+// separate them. Heads too close together form clusters (pairs joined through shared heads): one finding a
+// cluster, naming every head, with the least distance in it (27 heads packed together are one cause, not 351).
 
 import RBush from 'rbush';
 import { distance } from '../geometry/point.js';
+import type { Head } from '../read/plan.js';
 import { isStandardSpray } from './standard-heads.js';
 import { finding, type Rule } from './types.js';
 
 interface Box { minX: number; minY: number; maxX: number; maxY: number; i: number }
 
 export const headDistanceMin: Rule = {
-  meta: { id: 'head-distance-min', title: 'Distance between heads (minimum)', severity: 'error', reference: 'see limits.ts' },
+  meta: {
+    id: 'head-distance-min', title: 'Distance between heads (minimum)', severity: 'error',
+    reference: 'NFPA 13 (2019 edition), 10.2.5.3.1: 6 ft between heads unless baffles separate them (from memory)',
+  },
   check({ plan, limits, fmt }) {
     const heads = plan.heads.filter(isStandardSpray);
-    const tree = new RBush<Box>();
-    tree.load(heads.map((h, i) => ({ minX: h.position.x, minY: h.position.y, maxX: h.position.x, maxY: h.position.y, i })));
     const r = limits.minHeadDistance;
-    return heads.flatMap((h, i) =>
-      tree
-        .search({ minX: h.position.x - r, minY: h.position.y - r, maxX: h.position.x + r, maxY: h.position.y + r })
-        .filter((b) => b.i > i && distance(h.position, heads[b.i]!.position) < r - 1e-6)
-        .map((b) => {
-          const o = heads[b.i]!;
-          const d = distance(h.position, o.position);
-          return finding(this.meta, {
-            message: `heads ${h.id} and ${o.id} are ${fmt.length(d)} apart, under the ${fmt.length(r)} required`,
-            handles: [...new Set([h.handle, o.handle])], at: h.position, measured: d, limit: r, quantity: 'length',
-            reference: limits.sources.minHeadDistance,
-          });
-        }),
-    );
+    const clusters = tooClose(heads, r);
+    return clusters.map(({ members, least }) => {
+      const names = members.map((i) => heads[i]!.id);
+      const first = heads[members[0]!]!;
+      const message = members.length === 2
+        ? `heads ${names[0]} and ${names[1]} are ${fmt.length(least)} apart, under the ${fmt.length(r)} required`
+        : `${members.length} heads stand closer than ${fmt.length(r)} to one another (${listed(names)}); the closest are ${fmt.length(least)} apart`;
+      return finding(this.meta, {
+        message, handles: [...new Set(members.map((i) => heads[i]!.handle))], at: first.position, measured: least, limit: r, quantity: 'length',
+        reference: limits.sources.minHeadDistance,
+      });
+    });
   },
 };
+
+/** Ids of a cluster as a message shows them: all of a small one, the first and the count of a large one. */
+const listed = (names: string[]) => (names.length <= 8 ? names.join(', ') : `${names.slice(0, 6).join(', ')} and ${names.length - 6} more`);
+
+/** Groups of heads joined by pairs closer than r (each group in drawing order), with the least distance of each. */
+function tooClose(heads: Head[], r: number): { members: number[]; least: number }[] {
+  const tree = new RBush<Box>();
+  tree.load(heads.map((h, i) => ({ minX: h.position.x, minY: h.position.y, maxX: h.position.x, maxY: h.position.y, i })));
+  const parent = heads.map((_, i) => i);
+  const root = (i: number) => { while (parent[i] !== i) i = parent[i] = parent[parent[i]!]!; return i; };
+  const least = new Map<number, number>();
+  heads.forEach((h, i) => {
+    for (const b of tree.search({ minX: h.position.x - r, minY: h.position.y - r, maxX: h.position.x + r, maxY: h.position.y + r })) {
+      if (b.i <= i) continue;
+      const d = distance(h.position, heads[b.i]!.position);
+      if (d >= r - 1e-6) continue;
+      const [a, c] = [root(i), root(b.i)];
+      if (a !== c) parent[Math.max(a, c)] = Math.min(a, c);
+      least.set(i, Math.min(least.get(i) ?? Infinity, d));
+    }
+  });
+  const groups = new Map<number, { members: number[]; least: number }>();
+  heads.forEach((_, i) => {
+    const g = root(i);
+    let group = groups.get(g);
+    if (!group) groups.set(g, (group = { members: [], least: Infinity }));
+    group.members.push(i);
+    group.least = Math.min(group.least, least.get(i) ?? Infinity);
+  });
+  return [...groups.values()].filter((g) => g.members.length > 1);
+}

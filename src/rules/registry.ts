@@ -22,7 +22,7 @@ import { pipeSizeDefaulted } from './pipe-size-defaulted.js';
 import { protectionArea } from './protection-area.js';
 import { sourceUnattached } from './source-unattached.js';
 import { supplyShort } from './supply-short.js';
-import type { Finding, Rule, RuleContext } from './types.js';
+import { finding, type Finding, type Rule, type RuleContext } from './types.js';
 import { wallDistanceMax } from './wall-distance-max.js';
 import { wallDistanceMin } from './wall-distance-min.js';
 
@@ -32,6 +32,22 @@ export const RULES: readonly Rule[] = [
   designAreaNotRemote, supplyShort, designAreaMissing, pipeSizeDefaulted, networkTopology,
 ];
 
+/**
+ * Findings one rule lists at most; past it the rest are counted in one closing finding (a drawing with thousands
+ * of heads too close or out of range is reviewed by its first ones, not by a report of a million lines).
+ */
+export const FINDINGS_PER_RULE = 200;
+
 export function runRules(ctx: RuleContext, rules: readonly Rule[] = RULES): Finding[] {
-  return rules.flatMap((r) => r.check(ctx));
+  return rules.flatMap((r) => {
+    const found = r.check(ctx);
+    if (found.length <= FINDINGS_PER_RULE) return found;
+    const shown = found.slice(0, FINDINGS_PER_RULE);
+    const rest = found.slice(FINDINGS_PER_RULE);
+    const worst = rest.some((f) => f.severity === 'error') ? 'error' : rest.some((f) => f.severity === 'warning') ? 'warning' : 'info';
+    return [...shown, finding(r.meta, {
+      severity: worst, message: `${rest.length} more findings of this rule are not listed (the first ${FINDINGS_PER_RULE} are)`,
+      handles: [], at: rest[0]!.at, measured: rest.length, quantity: 'count',
+    })];
+  });
 }
