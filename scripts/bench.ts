@@ -5,6 +5,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { layoutDxf } from '../src/demo/generated-layout.js';
+import { HOSTILE } from '../src/demo/hostile.js';
 
 const OUT = 'bench-out';
 const ONE = join('dist-scripts', 'scripts', 'bench-one.js');
@@ -89,6 +90,19 @@ if ((process.env['BENCH_BACKGROUND'] ?? '1') !== '0') {
   console.log(`background: time grows as size^${backgroundGrowth.time.toFixed(2)}, peak memory as size^${backgroundGrowth.memory.toFixed(2)}`);
 }
 
+// Hostile drawings (src/demo/hostile.ts): each bomb must end in exit 2 within a second, the large legal ones in a
+// report, within 1 GiB, through the real command.
+const hostile: Record<string, unknown>[] = [];
+if ((process.env['BENCH_HOSTILE'] ?? '1') !== '0') {
+  for (const [name, { what, dxf }] of Object.entries(HOSTILE)) {
+    const file = join(OUT, `hostile-${name}.dxf`);
+    writeFileSync(file, dxf());
+    const r = JSON.parse(spawnSync(process.execPath, [CLI, file, join(OUT, 'config.json')], { encoding: 'utf8', timeout: 600_000 }).stdout);
+    hostile.push({ name, what, exitCode: r.exitCode, seconds: r.totalMs / 1000, peakRssMb: r.peakRssMb });
+    console.log(`hostile ${name}: exit ${r.exitCode} in ${(r.totalMs / 1000).toFixed(2)} s, peak ${r.peakRssMb.toFixed(0)} MiB (${what})`);
+  }
+}
+
 // Batch throughput: 200 generated drawings of 60 to 600 heads, checked with 1 and with 2 workers.
 const batch: Record<string, number> = {};
 if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
@@ -110,7 +124,7 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
   batch['speedup'] = batch['workers2']! / batch['workers1']!;
   console.log(`2 workers / 1 worker: ${batch['speedup']!.toFixed(2)}×`);
 }
-writeFileSync(join(OUT, 'bench.json'), `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, batch }, null, 2)}\n`);
+writeFileSync(join(OUT, 'bench.json'), `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, hostile, batch }, null, 2)}\n`);
 console.log(`figures written to ${join(OUT, 'bench.json')}`);
 
 /** The least-squares slope of log y against log x: the exponent k of y ~ x^k (1 = linear). */

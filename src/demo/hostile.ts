@@ -46,7 +46,7 @@ export const HOSTILE: Record<string, { what: string; dxf: () => string }> = {
     },
   },
   'head-array-100': {
-    what: 'one head block arrayed 100 × 100 at 1 ft, a field of ten thousand heads packed too close',
+    what: 'one head block arrayed 100 × 100 at 6 in, a field of ten thousand heads packed too close',
     dxf: () => {
       const w = new DxfWriter(2);
       w.block('HEAD', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.25, b); });

@@ -1,5 +1,6 @@
-// The whole pipeline run in a worker thread under a time limit: a drawing that makes any stage loop ends
-// in a "hang" outcome instead of stalling the test run. Needs the build (`npm test` builds first).
+// The whole pipeline run in a worker thread under a time and a memory limit: a drawing that makes any stage loop
+// ends in a "hang" outcome, one that exhausts 1 GiB in a "crash", instead of stalling or killing the test run.
+// Needs the build (`npm test` builds first).
 
 import { Worker } from 'node:worker_threads';
 
@@ -12,11 +13,14 @@ export type Outcome =
 export class GuardedPipeline {
   private worker: Worker | null = null;
 
+  /** Heap a run may use, MiB (V8's old generation; a run past it ends the worker with an out-of-memory error). */
+  static readonly MEMORY_LIMIT_MB = 1024;
+
   constructor(private readonly timeLimitMs: number) {}
 
   /** Checks `bytes` with the raw `config`; a run over the time limit is stopped and reported as a hang. */
   run(bytes: Uint8Array, config: unknown): Promise<Outcome> {
-    const worker = (this.worker ??= new Worker(new URL('./pipeline-worker.mjs', import.meta.url)));
+    const worker = (this.worker ??= new Worker(new URL('./pipeline-worker.mjs', import.meta.url), { resourceLimits: { maxOldGenerationSizeMb: GuardedPipeline.MEMORY_LIMIT_MB } }));
     return new Promise((resolve) => {
       const settle = (outcome: Outcome, stopWorker: boolean) => {
         clearTimeout(timer);
