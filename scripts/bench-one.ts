@@ -4,7 +4,7 @@
 import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { DxfParser } from 'dxf-parser';
-import { annotatedDrawing, reportJson, reportPage } from '../src/check/outputs.js';
+import { FORMAT_NAMES, FORMATS } from '../src/check/formats.js';
 import { runCheck } from '../src/check/run-check.js';
 import { collectBetweenStages } from '../src/io/collect.js';
 import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../src/io/files.js';
@@ -38,12 +38,10 @@ if (mode === 'parse-only') {
   const made = (name: string, make: () => OutputData) => () => { const t = performance.now(); const d = make(); stages[name] = performance.now() - t; return d; };
   last = performance.now();
   await writeAllAtomically([
-    { path: join(dir, `${name}.json`), data: made('json', () => reportJson(r)) },
-    { path: join(dir, `${name}.annotated.dxf`), data: made('annotated-dxf', () => annotatedDrawing(input, r)) },
-    { path: join(dir, `${name}.html`), data: made('html', () => reportPage(input, r)) },
+    ...FORMAT_NAMES.map((f) => ({ path: join(dir, `${name}${FORMATS[f].extension}`), data: made(f, () => FORMATS[f].make(r)) })),
   ]);
   lap('write');
-  stages['write']! -= stages['json']! + stages['annotated-dxf']! + stages['html']!;
+  stages['write']! -= FORMAT_NAMES.reduce((sum, f) => sum + stages[f]!, 0);
   out['totalMs'] = performance.now() - t0;
   out['stages'] = stages;
   out['heads'] = r.plan.heads.length;

@@ -7,7 +7,7 @@ import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeF
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { annotatedDrawing } from '../src/check/outputs.js';
+import { FORMATS } from '../src/check/formats.js';
 import { runCheck } from '../src/check/run-check.js';
 import { parseSettings } from '../src/config/settings.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
@@ -25,7 +25,7 @@ const cases: { name: string; bytes: Uint8Array; config: Record<string, unknown> 
 function annotate(c: (typeof cases)[number]) {
   const input = { bytes: c.bytes, fileName: `${c.name}.dxf`, sha256: '', settings: parseSettings(c.config), reportUnits: 'us' as const };
   const result = runCheck(input);
-  return { result, out: new Uint8Array(Buffer.concat(annotatedDrawing(input, result))) };
+  return { result, out: new Uint8Array(Buffer.concat(FORMATS.dxf.make(result))) };
 }
 
 /** Every group's code and value, read by our own group walker. */

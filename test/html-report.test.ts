@@ -6,7 +6,7 @@ import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { expect, it } from 'vitest';
-import { reportPage } from '../src/check/outputs.js';
+import { FORMATS } from '../src/check/formats.js';
 import { runCheck } from '../src/check/run-check.js';
 import { parseSettings } from '../src/config/settings.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
@@ -20,7 +20,7 @@ describeWith('chromium', hasCommand('chromium'), 'HTML report in Chromium', () =
     const result = runCheck(input);
     const dir = mkdtempSync(join(tmpdir(), 'hc-html-'));
     const file = join(dir, 'report.html');
-    writeFileSync(file, reportPage(input, result));
+    writeFileSync(file, FORMATS.html.make(result));
     const browser = await launchChromium(join(dir, 'profile'), { width: 1200, height: 1600 });
     try {
       const page = await browser.newPage();

@@ -16,6 +16,7 @@ import { TOOL } from '../version.js';
 import { findConfig } from '../io/config-file.js';
 import { discoverDrawings, type BatchItem } from './discover.js';
 import { summaryCsv, summaryHtml } from './summary.js';
+import type { FormatName } from '../check/formats.js';
 import { emptyRow, type BatchRow, type BatchTask } from './worker.js';
 
 export interface BatchOptions {
@@ -25,7 +26,7 @@ export interface BatchOptions {
   /** The drawings' length unit, over their configs' and headers'. */
   drawingUnits?: LengthUnit;
   units: UnitSystem;
-  outputs: { json: boolean; dxf: boolean; html: boolean };
+  outputs: Record<FormatName, boolean>;
   workers: number;
   /** Per drawing, seconds and MB of heap. */
   timeLimit: number;

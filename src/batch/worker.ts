@@ -2,14 +2,14 @@
 // and returns its summary row. Unusable input becomes a row with status "error", never a thrown error.
 
 import { join } from 'node:path';
-import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
+import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
 import { runCheck } from '../check/run-check.js';
 import type { LengthUnit } from '../config/settings.js';
 import { loadSettings } from '../io/config-file.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
 import { collectBetweenStages } from '../io/collect.js';
-import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../io/files.js';
+import { readInputFile, sha256Hex, writeAllAtomically } from '../io/files.js';
 
 export interface BatchTask {
   file: string;
@@ -17,7 +17,7 @@ export interface BatchTask {
   config: string | null;
   drawingUnits: LengthUnit | null;
   outDir: string;
-  outputs: { json: boolean; dxf: boolean; html: boolean };
+  outputs: Record<FormatName, boolean>;
   units: UnitSystem;
 }
 
@@ -55,10 +55,7 @@ export default async function checkOne(task: BatchTask): Promise<BatchRow> {
     const onStage = collectBetweenStages(bytes.length);
     const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units, ...(onStage ? { onStage } : {}) };
     const result = runCheck(input);
-    const files: { path: string; data: () => OutputData }[] = [];
-    if (task.outputs.json) files.push({ path: join(task.outDir, `${task.name}.json`), data: () => reportJson(result) });
-    if (task.outputs.dxf) files.push({ path: join(task.outDir, `${task.name}.dxf`), data: () => annotatedDrawing(input, result) });
-    if (task.outputs.html) files.push({ path: join(task.outDir, `${task.name}.html`), data: () => reportPage(input, result) });
+    const files = FORMAT_NAMES.filter((f) => task.outputs[f]).map((f) => ({ path: join(task.outDir, `${task.name}${FORMATS[f].extension}`), data: () => FORMATS[f].make(result) }));
     await writeAllAtomically(files);
     const s = result.report.summary;
     const best = result.report.designAreas.find((a) => a.rank === 'most-demanding')?.hydraulics;

@@ -2,21 +2,20 @@
 // report out. No file or process access: the CLI, batch workers and the browser all call this.
 
 import type { Settings } from '../config/settings.js';
-import { evaluateDesignAreas, type DesignAreas } from '../design-area/evaluate.js';
+import { evaluateDesignAreas } from '../design-area/evaluate.js';
 import { buildNetwork } from '../network/build-network.js';
-import type { Network } from '../network/types.js';
-import { buildReport, type Report } from '../outputs/json-report.js';
+import { buildReport } from '../outputs/json-report.js';
+import type { Reviewed } from '../outputs/reviewed.js';
 import { formatterFor } from '../quantities/format.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { fail } from '../input-error.js';
 import { planFromDrawing, type Plan } from '../read/plan.js';
 import { readDrawing } from '../read/read-drawing.js';
 import type { Drawing, DrawingFacts } from '../read/types.js';
-import { computeCoverage, type Coverage } from '../rules/coverage.js';
-import { resolveLimits, type Limits } from '../rules/limits.js';
+import { computeCoverage } from '../coverage/coverage.js';
+import { resolveLimits } from '../basis/limits.js';
 import { runRules } from '../rules/registry.js';
-import type { Finding } from '../rules/types.js';
-import { indexWalls } from '../rules/walls.js';
+import { indexWalls } from '../coverage/walls.js';
 
 export interface CheckInput {
   bytes: Uint8Array;
@@ -30,17 +29,8 @@ export interface CheckInput {
   onStage?: (stage: string, ms: number) => void;
 }
 
-export interface CheckResult {
-  /** The drawing's facts; its raw geometry is let go once the plan holds what the stages use. */
-  drawing: DrawingFacts;
-  plan: Plan;
-  network: Network;
-  coverage: Map<string, Coverage>;
-  limits: Limits;
-  design: DesignAreas;
-  findings: Finding[];
-  report: Report;
-}
+/** The check's result: the drawing reviewed, as every output takes it. */
+export type CheckResult = Reviewed;
 
 export function runCheck(input: CheckInput): CheckResult {
   const { settings } = input;
@@ -64,7 +54,7 @@ export function runCheck(input: CheckInput): CheckResult {
   const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings, walls.roomOf));
   const findings = stage('rules', runRules({ drawing, plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) }));
   const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
-  return { drawing, plan, network, coverage, limits, design, findings, report };
+  return { bytes: input.bytes, fileName: input.fileName, settings, reportUnits: input.reportUnits, drawing, plan, network, coverage, limits, design, findings, report };
 }
 
 /** Why no head was found, naming what was seen and the config keys to set: one line. */

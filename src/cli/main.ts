@@ -6,7 +6,7 @@ import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Option } from 'commander';
-import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
+import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
 import { runCheck } from '../check/run-check.js';
 import { LENGTH_UNITS, parseSettings, type LengthUnit, type Settings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
@@ -14,11 +14,11 @@ import { InputError } from '../input-error.js';
 import { TOOL } from '../version.js';
 import { collectBetweenStages } from '../io/collect.js';
 import { findConfig, loadSettings, type FoundConfig } from '../io/config-file.js';
-import { assertNotInput, cleanUpOnSignals, readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../io/files.js';
+import { assertNotInput, cleanUpOnSignals, readInputFile, sha256Hex, writeAllAtomically } from '../io/files.js';
 import { layersReport, layersText, starterConfig } from './layers-table.js';
 import { summaryLine } from './summary-line.js';
 
-interface BatchCliOptions {
+interface BatchCliOptions extends Partial<Record<FormatName, boolean>> {
   out: string;
   config?: string;
   drawingUnits?: LengthUnit;
@@ -27,9 +27,6 @@ interface BatchCliOptions {
   timeLimit: string;
   memoryLimit: string;
   force?: boolean;
-  json: boolean;
-  dxf: boolean;
-  html: boolean;
 }
 
 interface DrawingOptions {
@@ -39,12 +36,7 @@ interface DrawingOptions {
   drawingUnits?: LengthUnit;
 }
 
-interface CheckOptions extends DrawingOptions {
-  json?: string;
-  dxf?: string;
-  html?: string;
-  units: UnitSystem;
-}
+type CheckOptions = DrawingOptions & Partial<Record<FormatName, string>> & { units: UnitSystem };
 
 /** A config the command found by itself (not given): said on stderr when the command ends. */
 const lookup: { found: FoundConfig | null } = { found: null };
@@ -65,17 +57,15 @@ function settingsFor(drawing: string, opts: DrawingOptions): Settings {
 
 /** Checks one drawing and writes the requested outputs; returns the exit code. */
 async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: string) => void; err: (s: string) => void }): Promise<number> {
-  for (const o of [opts.json, opts.dxf, opts.html]) if (o) assertNotInput(o, file);
+  const wanted = FORMAT_NAMES.filter((f) => opts[f]);
+  for (const f of wanted) assertNotInput(opts[f]!, file);
   const settings = settingsFor(file, opts);
   const bytes = readInputFile(file, settings.inputLimits.fileMB);
   const onStage = collectBetweenStages(bytes.length);
   const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units, ...(onStage ? { onStage } : {}) };
   const result = withFile(file, () => runCheck(input));
-  const files: { path: string; data: () => OutputData }[] = [];
-  if (opts.json) files.push({ path: opts.json, data: () => reportJson(result) });
-  if (opts.dxf) files.push({ path: opts.dxf, data: () => withFile(file, () => annotatedDrawing(input, result)) });
-  if (opts.html) files.push({ path: opts.html, data: () => reportPage(input, result) });
-  await writeAllAtomically(files);
+  // Each output is made when its turn to be written comes, and is garbage once written.
+  await writeAllAtomically(wanted.map((f) => ({ path: opts[f]!, data: () => withFile(file, () => FORMATS[f].make(result)) })));
   io.out(summaryLine(file, result.report));
   return result.report.summary.pass ? 0 : 1;
 }
@@ -106,15 +96,12 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .option('--no-config', 'use no config file, only the defaults')
     .addOption(drawingUnitsOption());
 
-  configOptions(program.command('check <drawing>')
-    .description('audit one drawing'))
-    .option('--json <file>', 'write the JSON report')
-    .option('--dxf <file>', 'write the annotated drawing')
-    .option('--html <file>', 'write the HTML report')
-    .addOption(unitsOption())
+  const check = configOptions(program.command('check <drawing>').description('audit one drawing'));
+  for (const f of FORMAT_NAMES) check.option(`--${f} <file>`, `write ${FORMATS[f].description}`);
+  check.addOption(unitsOption())
     .action(async (drawing: string, opts: CheckOptions) => { code = await checkCommand(drawing, opts, io); });
 
-  program.command('batch <inputs...>')
+  const batch = program.command('batch <inputs...>')
     .description('audit many drawings (folders are searched for .dxf files); one bad file never stops the rest')
     .requiredOption('--out <dir>', 'folder for the reports and summaries')
     .option('--config <file>', 'config JSON for drawings without their own')
@@ -123,11 +110,9 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .option('--workers <n>', 'worker threads', String(availableParallelism()))
     .option('--time-limit <s>', 'seconds per drawing', '300')
     .option('--memory-limit <mb>', 'heap per worker, MB', '4096')
-    .option('--force', 'check every drawing again, even unchanged ones')
-    .option('--no-json', 'skip the JSON reports')
-    .option('--no-dxf', 'skip the annotated drawings')
-    .option('--no-html', 'skip the HTML reports')
-    .action(async (inputs: string[], opts: BatchCliOptions) => {
+    .option('--force', 'check every drawing again, even unchanged ones');
+  for (const f of FORMAT_NAMES) batch.option(`--no-${f}`, `skip ${FORMATS[f].description} of each drawing`);
+  batch.action(async (inputs: string[], opts: BatchCliOptions) => {
       const positive = (v: string, name: string) => {
         const n = Number(v);
         if (!Number.isFinite(n) || n <= 0) throw new InputError(`${name}: must be a positive number, not "${v}"`);
@@ -141,7 +126,7 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       cleanUpOnSignals();
       const outcome = await runBatch({
         inputs, out: opts.out, ...(opts.config ? { config: opts.config } : {}), ...(opts.drawingUnits ? { drawingUnits: opts.drawingUnits } : {}), units: opts.units,
-        outputs: { json: opts.json, dxf: opts.dxf, html: opts.html },
+        outputs: Object.fromEntries(FORMAT_NAMES.map((f) => [f, opts[f] !== false])) as Record<FormatName, boolean>,
         workers: Math.floor(positive(opts.workers, '--workers')), timeLimit: positive(opts.timeLimit, '--time-limit'),
         memoryLimit: positive(opts.memoryLimit, '--memory-limit'), force: opts.force === true,
         workerFile: fileURLToPath(new URL('../batch/worker.js', import.meta.url)),

@@ -4,7 +4,7 @@
 import { cross, dot, type Point } from '../geometry/point.js';
 import type { Network } from '../network/types.js';
 import type { Head } from '../read/plan.js';
-import type { Coverage } from '../rules/coverage.js';
+import type { Coverage } from '../coverage/coverage.js';
 import { areaShape, type AreaShape } from './shape.js';
 
 export interface LineFamily {

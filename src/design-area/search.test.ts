@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { checkLayout, findingsOf } from '../../test/support/check.js';
 import { parseSettings } from '../config/settings.js';
 import { candidatesOf, lineFamilies } from './candidates.js';
-import { designBasis } from './design-basis.js';
+import { designBasis } from '../basis/design-basis.js';
 import { searchMostDemanding } from './search.js';
 import { treeBound } from '../hydraulics/k-factor-walk.js';
 import { buildModel } from '../hydraulics/model.js';

@@ -1,7 +1,7 @@
 // Polygon clipping against hand-worked overlaps (common practice, no source).
 
 import { describe, expect, it } from 'vitest';
-import { signedArea } from '../rules/walls.js';
+import { signedArea } from './polygon.js';
 import { clipPolygon } from './clip.js';
 
 const square = (x: number, y: number, s: number) => [{ x, y }, { x: x + s, y }, { x: x + s, y: y + s }, { x, y: y + s }];

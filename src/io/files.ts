@@ -6,6 +6,7 @@ import { readdirSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs
 import { open } from 'node:fs/promises';
 import { isMainThread } from 'node:worker_threads';
 import { basename, dirname, join, resolve } from 'node:path';
+import type { OutputData } from '../check/formats.js';
 import { InputError } from '../input-error.js';
 
 /** Reads a drawing of at most `maxMB` MiB (the config's inputLimits.fileMB), checked before it is read. */
@@ -35,8 +36,6 @@ export function assertNotInput(output: string, input: string): void {
   if (resolve(output) === resolve(input)) throw new InputError(`${output}: an output may not overwrite the input drawing`);
 }
 
-/** An output's content: text (written as UTF-8), bytes, or bytes in pieces written one after another. */
-export type OutputData = string | Uint8Array | Uint8Array[];
 
 /** Temporary files start so (in the output's own folder, so that the rename stays on one disk) and end `.tmp`. */
 const TEMP_PREFIX = '.headcheck-';
@@ -59,6 +58,8 @@ const errorCode = (err: unknown) => {
  * passed on as it is. Two outputs on one path, an output that is a folder, an unwritable folder: a one-line
  * InputError naming the path.
  */
+export type { OutputData };
+
 export async function writeAllAtomically(files: { path: string; data: OutputData | (() => OutputData) }[]): Promise<void> {
   const seen = new Map<string, string>();
   for (const f of files) {

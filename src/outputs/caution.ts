@@ -1,6 +1,6 @@
 // The caution every report carries, with the NFPA 13 edition its limits follow.
 
-import { EDITION } from '../rules/limits.js';
+import { EDITION } from '../basis/limits.js';
 
 export const CAUTION =
   'headcheck is a screening aid for plan reviewers and designers, not a substitute for a licensed fire-protection ' +

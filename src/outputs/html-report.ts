@@ -1,7 +1,7 @@
 // The HTML report: one self-contained page (no network, no external script) with the verdict, the plan as SVG
 // (zoom, pan, findings that highlight), findings, design areas, hydraulics and the water-supply graph.
 
-import type { CheckInput, CheckResult } from '../check/run-check.js';
+import type { Reviewed } from './reviewed.js';
 import { boundsOf, type Point } from '../geometry/point.js';
 import type { PipeRole } from '../network/types.js';
 import { converterFor, REPORT_UNITS } from '../quantities/convert.js';
@@ -16,7 +16,8 @@ const ROLE_COLOR: Record<PipeRole, string> = {
   branch: '#1f6fd1', 'cross-main': '#7a3fc4', 'feed-main': '#b3261e', riser: '#b3261e', drop: '#2e7d32', unknown: '#888',
 };
 
-export function htmlReport(input: CheckInput, result: CheckResult): string {
+export function htmlReport(result: Reviewed): string {
+  const input = result;
   const r = result.report;
   const fmt = formatterFor(input.reportUnits);
   const c = converterFor(input.reportUnits);
@@ -31,7 +32,7 @@ export function htmlReport(input: CheckInput, result: CheckResult): string {
     planSvg(result), legendHtml(), '</section>',
     findingsTable(r.findings),
     designAreasHtml(result, fmt),
-    supplyHtml(input, result, c, u),
+    supplyHtml(result, c, u),
     `<footer><p>${esc(r.tool.name)} ${esc(r.tool.version)} · drawing SHA-256 ${esc(r.input.sha256)} · ${esc(r.input.dxfVersion)}, units ${esc(r.input.drawingUnits)}</p></footer>`,
   ];
   return `<!doctype html>
@@ -42,7 +43,7 @@ export function htmlReport(input: CheckInput, result: CheckResult): string {
 `;
 }
 
-function planSvg(result: CheckResult): string {
+function planSvg(result: Reviewed): string {
   const { plan, network, design, findings } = result;
   const pts: Point[] = [...plan.heads.map((h) => h.position), ...network.nodes.map((n) => n.position), ...plan.rooms.flatMap((x) => x.points)];
   const b = boundsOf(pts.length ? pts : [{ x: 0, y: 0 }]);
@@ -81,13 +82,13 @@ function legendHtml(): string {
 <span><i class="k-head"></i>head</span> <span><i class="k-flow"></i>flowing head</span> <span><i class="k-err"></i>error</span> <span><i class="k-warn"></i>warning</span> <span><i class="k-info"></i>info</span></p>`;
 }
 
-function findingsTable(findings: CheckResult['report']['findings']): string {
+function findingsTable(findings: Reviewed['report']['findings']): string {
   if (!findings.length) return '<section><h2>Findings</h2><p>None.</p></section>';
   const rows = findings.map((f, i) => `<tr class="${f.severity}" data-finding="${i}" tabindex="0"><td>${esc(f.severity)}</td><td><code>${esc(f.rule)}</code></td><td>${esc(f.message)}</td><td>${f.measured ?? ''}</td><td>${f.limit ?? ''}</td><td>${esc(f.handles.join(' '))}</td><td class="ref">${esc(f.reference)}</td></tr>`);
   return `<section><h2>Findings (${findings.length})</h2><div class="scroll"><table id="findings"><thead><tr><th>severity</th><th>rule</th><th>message</th><th>measured</th><th>limit</th><th>handles</th><th>reference</th></tr></thead><tbody>${rows.join('')}</tbody></table></div></section>`;
 }
 
-function designAreasHtml(result: CheckResult, fmt: ReturnType<typeof formatterFor>): string {
+function designAreasHtml(result: Reviewed, fmt: ReturnType<typeof formatterFor>): string {
   const { design } = result;
   const basis = design.basis;
   const head = `<p>Design basis: ${esc(fmt.density(basis.density))} over ${esc(fmt.area(basis.area))} (${esc(basis.source)})` +
@@ -112,8 +113,8 @@ ${best ? `<h3>Hydraulics of the most demanding area${best.riser.modelled === 'vi
 <details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>` : ''}</section>`;
 }
 
-function supplyHtml(input: CheckInput, result: CheckResult, c: ReturnType<typeof converterFor>, u: (typeof REPORT_UNITS)['us']): string {
-  const supply = input.settings.supply;
+function supplyHtml(result: Reviewed, c: ReturnType<typeof converterFor>, u: (typeof REPORT_UNITS)['us']): string {
+  const supply = result.settings.supply;
   const demands = result.design.areas.flatMap((a) => (a.hydraulics ? [{ label: a.rank ?? 'drawn', flow: a.hydraulics.sourceFlow, withHose: a.hydraulics.totalDemand, pressure: a.hydraulics.sourcePressure }] : []));
   if (!supply && !demands.length) return '';
   return `<section><h2>Water supply</h2>${supply ? '' : '<p>No flow test given: demand points only.</p>'}${supplyGraph(supply, demands, c, u)}</section>`;

@@ -1,7 +1,7 @@
 // Rule design-basis-below-curve: a configured density and area must lie on or above the hazard's density/area
 // curve; a design below it (0.10 gpm/ft² over 1500 ft² for OH2) would pass a system that is too weak.
 
-import { CURVES, CURVE_SOURCE, curveDensity } from '../design-area/design-basis.js';
+import { CURVES, CURVE_SOURCE, curveDensity } from '../basis/design-basis.js';
 import { finding, type Rule } from './types.js';
 
 /** Densities are compared to this many gpm/ft² (a rounding of the configured value is no finding). */

@@ -8,9 +8,9 @@ import type { Network } from '../network/types.js';
 import type { Plan } from '../read/plan.js';
 import type { DrawingFacts } from '../read/types.js';
 import type { Formatter } from '../quantities/format.js';
-import type { Coverage } from './coverage.js';
-import type { Limits } from './limits.js';
-import type { Walls } from './walls.js';
+import type { Coverage } from '../coverage/coverage.js';
+import type { Limits } from '../basis/limits.js';
+import type { Walls } from '../coverage/walls.js';
 
 export type Severity = 'error' | 'warning' | 'info';
 /** The physical quantity of a finding's measured/limit values, so reports can convert them. */

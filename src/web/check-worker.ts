@@ -1,16 +1,19 @@
 // The Web Worker of the local page: runs the same pure pipeline as the CLI on a dropped drawing and returns
 // the three outputs, byte-identical to what `headcheck check` writes for the same file name and config.
 
-import { annotatedDrawing, reportJson, reportPage } from '../check/outputs.js';
+import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
 import { runCheck } from '../check/run-check.js';
 import { parseSettings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
 
+/** One output of the check as the page offers it for download. */
+export interface PageOutput { format: FormatName; description: string; extension: string; blob: Blob }
+
 export interface CheckRequest { bytes: ArrayBuffer; fileName: string; config: unknown; units: UnitSystem }
 export type CheckReply =
   | { type: 'progress'; stage: string }
-  | { type: 'done'; json: string; html: string; dxf: Blob; layers: { name: string; counts: Record<string, number> }[]; summary: unknown }
+  | { type: 'done'; outputs: PageOutput[]; layers: { name: string; counts: Record<string, number> }[]; summary: unknown }
   | { type: 'error'; message: string };
 
 const worker = self as unknown as { onmessage: ((e: MessageEvent<CheckRequest>) => void) | null; postMessage(m: CheckReply, t?: Transferable[]): void };
@@ -25,10 +28,12 @@ worker.onmessage = async (e) => {
     const input = { bytes: data, fileName, sha256: hex(await crypto.subtle.digest('SHA-256', data)), settings, reportUnits: units };
     const result = runCheck({ ...input, onStage: (stage) => worker.postMessage({ type: 'progress', stage }) });
     worker.postMessage({ type: 'progress', stage: 'outputs' });
-    worker.postMessage({
-      type: 'done', json: reportJson(result), html: reportPage(input, result), dxf: new Blob(annotatedDrawing(input, result) as Uint8Array<ArrayBuffer>[]),
-      layers: result.drawing.layers, summary: result.report.summary,
+    const outputs = FORMAT_NAMES.map((format): PageOutput => {
+      const { description, extension, mediaType, make } = FORMATS[format];
+      const data = make(result);
+      return { format, description, extension, blob: new Blob((Array.isArray(data) ? data : [data]) as BlobPart[], { type: mediaType }) };
     });
+    worker.postMessage({ type: 'done', outputs, layers: result.drawing.layers, summary: result.report.summary });
   } catch (err) {
     worker.postMessage({ type: 'error', message: err instanceof InputError ? `${fileName}: ${err.message}` : `internal error: ${err instanceof Error ? err.message : String(err)}` });
   }

@@ -62,9 +62,8 @@ function configFromForm(): Record<string, unknown> {
   return config;
 }
 
-function download(id: string, name: string, data: BlobPart, type: string): void {
-  const a = $<HTMLAnchorElement>(id);
-  const url = URL.createObjectURL(new Blob([data], { type }));
+function download(a: HTMLAnchorElement, name: string, blob: Blob): void {
+  const url = URL.createObjectURL(blob);
   urls.push(url);
   a.href = url;
   a.download = name;
@@ -107,7 +106,7 @@ function check(): void {
   const config = configFromForm();
   const units = (form.elements.namedItem('units') as HTMLSelectElement).value as UnitSystem;
   status.textContent = `Checking ${drawing.name} …`;
-  worker.onmessage = (e: MessageEvent<CheckReply>) => {
+  worker.onmessage = async (e: MessageEvent<CheckReply>) => {
     const m = e.data;
     if (m.type === 'progress') {
       status.textContent = `Checking ${drawing!.name}: ${m.stage} done (${((performance.now() - started) / 1000).toFixed(1)} s)`;
@@ -118,18 +117,24 @@ function check(): void {
       $('results').hidden = true;
       return;
     }
-    const report = JSON.parse(m.json) as { summary: { pass: boolean; errors: number; warnings: number; heads: number }; input: { layersUsed: Record<LayerRole, string[]> } };
+    const text = (format: string) => m.outputs.find((o) => o.format === format)!.blob.text();
+    const report = JSON.parse(await text('json')) as { summary: { pass: boolean; errors: number; warnings: number; heads: number }; input: { layersUsed: Record<LayerRole, string[]> } };
     status.textContent = `Checked ${drawing!.name} in ${((performance.now() - started) / 1000).toFixed(1)} s.`;
     const verdict = $('verdict');
     verdict.className = report.summary.pass ? 'pass' : 'fail';
     verdict.textContent = `${report.summary.pass ? 'PASS' : 'FAIL'}: ${report.summary.heads} heads, ${report.summary.errors} errors, ${report.summary.warnings} warnings`;
     urls.splice(0).forEach((u) => URL.revokeObjectURL(u));
     const base = drawing!.name.replace(/\.dxf$/i, '');
-    download('dl-json', `${base}.json`, m.json, 'application/json');
-    download('dl-dxf', `${base}.annotated.dxf`, m.dxf, 'application/dxf');
-    download('dl-html', `${base}.html`, m.html, 'text/html');
-    download('dl-config', `${base}.config.json`, `${JSON.stringify(config, null, 2)}\n`, 'application/json');
-    $<HTMLIFrameElement>('report').srcdoc = m.html;
+    const links = m.outputs.map((o) => {
+      const a = document.createElement('a');
+      a.id = `dl-${o.format}`;
+      a.textContent = o.description.replace(/^the /, '');
+      download(a, `${base}${o.extension}`, o.blob);
+      return a;
+    });
+    $('downloads').replaceChildren('Download: ', ...links.flatMap((a) => [a, ' · ']), $('dl-config'));
+    download($<HTMLAnchorElement>('dl-config'), `${base}.config.json`, new Blob([`${JSON.stringify(config, null, 2)}\n`], { type: 'application/json' }));
+    $<HTMLIFrameElement>('report').srcdoc = await text('html');
     $('results').hidden = false;
     showLayers(m.layers, report.input.layersUsed);
   };

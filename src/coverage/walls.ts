@@ -3,6 +3,7 @@
 
 import RBush from 'rbush';
 import { cross, distanceToSegment, sub, type Point } from '../geometry/point.js';
+import { containsPoint, signedArea } from '../geometry/polygon.js';
 import type { Outline, Stroke } from '../read/types.js';
 
 interface WallBox { minX: number; minY: number; maxX: number; maxY: number; a: Point; b: Point }
@@ -63,21 +64,4 @@ function rayHit(p: Point, d: Point, a: Point, b: Point): number | null {
   const t = cross(ap, e) / denom;
   const s = cross(ap, d) / denom;
   return t >= 0 && s >= -1e-9 && s <= 1 + 1e-9 ? t : null;
-}
-
-export function signedArea(points: Point[]): number {
-  let s = 0;
-  for (let i = 0; i < points.length; i++) s += cross(points[i]!, points[(i + 1) % points.length]!);
-  return s / 2;
-}
-
-/** Even-odd point-in-polygon test. */
-export function containsPoint(points: Point[], p: Point): boolean {
-  let inside = false;
-  for (let i = 0, j = points.length - 1; i < points.length; j = i++) {
-    const a = points[i]!;
-    const b = points[j]!;
-    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) inside = !inside;
-  }
-  return inside;
 }
