@@ -6,7 +6,6 @@ import { evaluateDesignAreas } from '../design-area/evaluate.js';
 import { buildNetwork } from '../network/build-network.js';
 import { buildReport } from '../outputs/json-report.js';
 import type { Reviewed } from '../outputs/reviewed.js';
-import { formatterFor } from '../quantities/format.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { fail } from '../input-error.js';
 import { planFromDrawing, type Plan } from '../read/plan.js';
@@ -52,7 +51,7 @@ export function runCheck(input: CheckInput): CheckResult {
   const coverage = stage('coverage', computeCoverage(plan.heads, network, walls));
   const limits = resolveLimits(settings);
   const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings, walls.roomOf));
-  const findings = stage('rules', runRules({ drawing, plan, network, settings, limits, coverage, walls, design, fmt: formatterFor(input.reportUnits) }));
+  const findings = stage('rules', runRules({ drawing, plan, network, settings, limits, coverage, walls, design }));
   const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
   return { bytes: input.bytes, fileName: input.fileName, settings, reportUnits: input.reportUnits, drawing, plan, network, coverage, limits, design, findings, report };
 }

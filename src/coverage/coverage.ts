@@ -20,6 +20,8 @@ export interface Coverage {
   wallAcross: [number | null, number | null];
   /** Neighbour distances along the line and to the adjacent lines, null where there is none. */
   headAlong: [number | null, number | null];
+  /** The neighbouring heads along the line (before, after), null where there is none. */
+  neighbours: [string | null, string | null];
   lineAcross: [number | null, number | null];
 }
 
@@ -51,6 +53,7 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
       out.set(id, {
         headId: id, branchLine: line.id, s, l, area: s !== null && l !== null ? s * l : null,
         wallAlong: [wallBack, wallFwd], wallAcross: [wallLeft, wallRight], headAlong: [before, after], lineAcross: [left, right],
+        neighbours: [i > 0 ? along[i - 1]!.id : null, i + 1 < along.length ? along[i + 1]!.id : null],
       });
     });
   }

@@ -27,6 +27,8 @@ export interface LayoutSpec {
   drawnArea?: Point[];
   /** Attributes added to every head. */
   headAttribs?: { tag: string; value: string }[];
+  /** Moves the riser symbol off the end of the feed main by this much (ft). */
+  sourceOffset?: Point;
 }
 
 export function layoutDxf(spec: LayoutSpec): string {
@@ -47,7 +49,7 @@ export function layoutDxf(spec: LayoutSpec): string {
   w.block('RISER', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.5 * unit.perFoot, b); });
   w.polyline('A-WALL', [tf(0, 0), tf(width, 0), tf(width, height), tf(0, height)], true);
   const midY = wc + Math.floor((spec.lines - 1) / 2) * spec.l + spec.l / 2;
-  w.insert('FP-SOURCE', 'RISER', tf(-8, midY));
+  w.insert('FP-SOURCE', 'RISER', tf(-8 + (spec.sourceOffset?.x ?? 0), midY + (spec.sourceOffset?.y ?? 0)));
   w.line('FP-PIPE', tf(-8, midY), tf(mainX, midY));
   w.text('FP-PIPE', tf(-6, midY + 0.3), 0.5 * unit.perFoot, '3"');
   w.line('FP-PIPE', tf(mainX, wc), tf(mainX, wc + (spec.lines - 1) * spec.l));

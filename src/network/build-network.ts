@@ -13,7 +13,7 @@ import type { BranchLine, DisconnectedPart, NetNode, NetPipe, Network, Topology 
 import { minOf, pushAll } from '../arrays.js';
 
 /** A source symbol may sit up to 2 ft from the pipe it feeds (common practice, no source). */
-const SOURCE_REACH_FT = 2;
+export const SOURCE_REACH_FT = 2;
 /** A pipe to a single head no longer than this, off a line, is a drop or arm-over (common practice, no source). */
 const DROP_MAX_FT = 3;
 /** Direction changes above this count as an elbow (common practice, no source). */
@@ -22,7 +22,7 @@ const BEND_MIN_RAD = (30 * Math.PI) / 180;
 export function buildNetwork(plan: Plan, settings: Settings): Network {
   const defaultSize = settings.defaults.pipeSize;
   const tol = settings.tolerances;
-  const strokeSizes = sizesFromLabels(plan.pipes, plan.labels, tol.sizeLabel);
+  const { sizes: strokeSizes, unread } = sizesFromLabels(plan.pipes, plan.labels, tol.sizeLabel);
   const attachPoints = [
     ...plan.heads.map((h) => ({ at: h.position, reach: tol.headAttach })),
     ...plan.sources.map((s) => ({ at: s.position, reach: Math.max(SOURCE_REACH_FT, tol.headAttach) })),
@@ -52,7 +52,8 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
     return {
       id: `P${i + 1}`, from: nodes[keep.get(c.from)!]!.id, to: nodes[keep.get(c.to)!]!.id,
       handles: [...new Set(c.edges.map((e) => plan.pipes[e.stroke]!.handle))], points: c.points, length: c.length, bends: c.bends,
-      nominalSize: size, sizeFrom: c.size ? 'label' : 'default', innerDiameter: INSIDE_DIAMETER[schedule][size],
+      nominalSize: size, sizeFrom: c.size ? 'label' : 'default', unreadLabels: [...new Set(c.edges.flatMap((e) => unread.get(e.stroke) ?? []))],
+      innerDiameter: INSIDE_DIAMETER[schedule][size],
       cFactor: settings.defaults.cFactor, role: 'unknown', run: runs[i]!,
     };
   });

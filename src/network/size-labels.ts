@@ -16,7 +16,11 @@ function distanceToStroke(p: Point, s: Stroke): number {
   return d;
 }
 
-export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: number): (NominalSize | null)[] {
+/**
+ * Each stroke's size from the nearest readable label within `reach`, and the labels that read like sizes but name
+ * none (`99"`), by the stroke they stand beside, so that the assumption made there can quote them.
+ */
+export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: number): { sizes: (NominalSize | null)[]; unread: Map<number, string[]> } {
   const index = new RBush<Box>();
   index.load(strokes.map((s, i) => {
     const xs = [s.a.x, s.b.x, ...s.via.map((v) => v.x)];
@@ -25,9 +29,9 @@ export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: nu
   }));
   const own: (NominalSize | null)[] = strokes.map(() => null);
   const ownDistance = strokes.map(() => Infinity);
+  const unread = new Map<number, string[]>();
   for (const label of labels) {
     const size = parseSizeLabel(label.text);
-    if (!size) continue;
     // Measure from the label's insertion point and from a point half a text height above it (its middle).
     const probes = [label.position, { x: label.position.x, y: label.position.y + label.height / 2 }];
     let best = -1;
@@ -37,9 +41,11 @@ export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: nu
       const d = Math.min(...probes.map((q) => distanceToStroke(q, strokes[box.i]!)));
       if (d <= reach && d < bestD) { best = box.i; bestD = d; }
     }
-    if (best >= 0 && bestD < ownDistance[best]!) { own[best] = size; ownDistance[best] = bestD; }
+    if (best < 0) continue;
+    if (!size) unread.set(best, [...(unread.get(best) ?? []), label.text.trim()]);
+    else if (bestD < ownDistance[best]!) { own[best] = size; ownDistance[best] = bestD; }
   }
   const byHandle = new Map<string, NominalSize>();
   strokes.forEach((s, i) => { const v = own[i]; if (v && !byHandle.has(s.handle)) byHandle.set(s.handle, v); });
-  return strokes.map((s, i) => own[i] ?? byHandle.get(s.handle) ?? null);
+  return { sizes: strokes.map((s, i) => own[i] ?? byHandle.get(s.handle) ?? null), unread };
 }

@@ -27,6 +27,8 @@ export interface NetPipe {
   bends: number;
   nominalSize: NominalSize;
   sizeFrom: 'label' | 'default';
+  /** Labels beside the pipe that read like sizes but name none (`99"`), as written. */
+  unreadLabels: string[];
   innerDiameter: number;
   cFactor: number;
   role: PipeRole;

@@ -45,6 +45,7 @@ export function htmlReport(result: Reviewed): string {
 
 function planSvg(result: Reviewed): string {
   const { plan, network, design, findings } = result;
+  const said = result.report.findings;
   const pts: Point[] = [...plan.heads.map((h) => h.position), ...network.nodes.map((n) => n.position), ...plan.rooms.flatMap((x) => x.points)];
   const b = boundsOf(pts.length ? pts : [{ x: 0, y: 0 }]);
   const pad = Math.max(b.maxX - b.minX, b.maxY - b.minY, 1) * 0.04;
@@ -72,7 +73,7 @@ function planSvg(result: Reviewed): string {
   for (const [cls, heads] of [['head', plan.heads.filter((h) => !flowing.has(h.id))], ['head flowing', plan.heads.filter((h) => flowing.has(h.id))]] as const) {
     if (heads.length) parts.push(`<path class="${cls}" data-count="${heads.length}" d="${heads.map((h) => ring(h.position)).join('')}"/>`);
   }
-  pushAll(parts, findings.map((f, i) => `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(f.message)}</title></circle>`));
+  pushAll(parts, findings.map((f, i) => `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(said[i]!.message)}</title></circle>`));
   return `<div class="planbox"><svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg></div>`;
 }
 

@@ -14,6 +14,8 @@ import type { Limits } from '../basis/limits.js';
 import type { Finding, Quantity, Severity } from '../rules/types.js';
 import { TOOL } from '../version.js';
 import { CAUTION } from './caution.js';
+import { formatterFor } from '../quantities/format.js';
+import { messageOf } from '../rules/messages.js';
 
 export interface ReportFinding {
   rule: string;
@@ -108,6 +110,7 @@ const roundOrNull = (v: number | null, digits = 4) => (v === null ? null : round
 
 export function buildReport(r: ReportInput): Report {
   const c = converterFor(r.reportUnits);
+  const fmt = formatterFor(r.reportUnits);
   const len = (v: number) => round(c.length(v));
   const at = (p: Point) => ({ x: len(p.x), y: len(p.y) });
   const headLine = new Map<string, string>();
@@ -125,7 +128,7 @@ export function buildReport(r: ReportInput): Report {
     }
   };
   const findings = r.findings.map((f) => ({
-    rule: f.rule, severity: f.severity, message: f.message, handles: f.handles, at: at(f.at),
+    rule: f.rule, severity: f.severity, message: messageOf(f, fmt), handles: f.handles, at: at(f.at),
     measured: quantity(f.quantity, f.measured), limit: quantity(f.quantity, f.limit), reference: f.reference,
   }));
   const layersUsed = Object.fromEntries(LAYER_ROLES.map((role) => [role, r.plan.roles[role].layers])) as Record<LayerRole, string[]>;

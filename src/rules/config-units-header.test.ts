@@ -1,21 +1,20 @@
 // config-units-header: a config "units" that contradicts $INSUNITS (1 = inches, 2 = feet; DXF reference, from
 // memory) is said; the config still wins.
 
-import { describe, expect, it } from 'vitest';
-import { checkLayout, findingsOf } from '../../test/support/check.js';
+import { expect } from 'vitest';
+import { checkLayout } from '../../test/support/check.js';
+import { ruleTester } from '../../test/support/rule-tester.js';
+import { configUnitsHeader } from './config-units-header.js';
 
 const layout = { s: 12, l: 10, heads: 3, lines: 2 };
 
-describe('config-units-header', () => {
-  it.each([{}, { units: 'in' }])('no finding when the config agrees with the header or says nothing: %j', (config) => {
-    expect(findingsOf(checkLayout(layout, config), 'config-units-header')).toEqual([]);
-  });
-  it('a config in feet on a drawing whose header says inches: a warning naming both, lengths read in feet', () => {
-    const r = checkLayout(layout, { units: 'ft' });
-    const f = findingsOf(r, 'config-units-header');
-    expect(f).toHaveLength(1);
-    expect(f[0]!.severity).toBe('warning');
-    expect(f[0]!.message).toMatch(/config says the drawing is in ft but its header \(\$INSUNITS\) says in/);
-    expect(r.report.input.drawingUnits).toBe('ft');
-  });
+ruleTester(configUnitsHeader, {
+  valid: [
+    { name: 'no units in the config', layout },
+    { name: 'the config agrees with the header (in)', layout, config: { units: 'in' } },
+  ],
+  invalid: [{
+    name: 'a config in feet on a drawing whose header says inches: lengths read in feet', layout, config: { units: 'ft' }, count: 1, severity: 'warning',
+    params: { config: 'ft', header: 'in' }, also: () => expect(checkLayout(layout, { units: 'ft' }).report.input.drawingUnits).toBe('ft'),
+  }],
 });

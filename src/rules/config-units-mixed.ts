@@ -17,7 +17,7 @@ const USUAL: { key: string; kind: QuantityKind; value: (s: Settings) => number |
   { key: 'supply.residual', kind: 'pressure', value: (s) => s.supply?.residual, low: 10, high: 250 },
 ];
 
-export const configUnitsMixed: Rule = {
+export const configUnitsMixed: Rule<'config-units-mixed'> = {
   meta: {
     id: 'config-units-mixed', title: 'Config value that looks like the other unit system', severity: 'error',
     reference: 'common practice, no source: the values designs use in either unit system',
@@ -36,8 +36,7 @@ export const configUnitsMixed: Rule = {
       if (meant < low || meant > high) return [];
       const unit = QUANTITIES[kind];
       return [finding(this.meta, {
-        message: `"${key}" ${written} ${unit[system]} is unusual for a design, ${written} ${unit[other]} is not: ` +
-          `is "unitSystem": "${other}" meant, or the value written in the wrong unit?`,
+        params: { key, written, unit: unit[system], otherUnit: unit[other], otherSystem: other },
         handles: [], at, measured: us, limit: us < low ? low : high, quantity: kind === 'number' ? 'none' : kind,
       })];
     });

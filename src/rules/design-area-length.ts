@@ -1,21 +1,20 @@
-// Rule design-area-length: the design area's length parallel to the branch lines must be at least
-// 1.2·√A (confirmed: NFPA 13 handbook; 1.2·√1500 = 46.48 ft).
+// Rule design-area-length: the design area's length parallel to the branch lines must be at least 1.2·√A
+// (1.2·√1500 = 46.48 ft).
 
 import { finding, type Rule } from './types.js';
 
-export const designAreaLength: Rule = {
+export const designAreaLength: Rule<'design-area-length'> = {
   meta: {
     id: 'design-area-length', title: 'Length of the design area along the branch lines', severity: 'error',
     reference: 'NFPA 13 (2019 edition), 28.2.4.2.1: length parallel to the branch lines ≥ 1.2·√A (confirmed in the handbook)',
   },
-  check({ design, fmt }) {
+  check({ design }) {
     const min = design.shape?.minLength;
     if (min === undefined) return [];
     return design.areas
       .filter((a) => a.source === 'drawn' && a.length < min - 1e-6)
       .map((a) => finding(this.meta, {
-        message: `the drawn design area is ${fmt.length(a.length)} along the branch lines, under 1.2·√A = ${fmt.length(min)}`,
-        handles: a.handle ? [a.handle] : [], at: a.outline[0]!, measured: a.length, limit: min, quantity: 'length',
+        params: { length: a.length, min }, handles: a.handle ? [a.handle] : [], at: a.outline[0]!, measured: a.length, limit: min, quantity: 'length',
       }));
   },
 };

@@ -1,24 +1,21 @@
-// Rule design-area-missing: says when no design area is drawn (so only the searched one is reported), or
-// when the hydraulic calculation could not be made, and why (information; a warning in `drawn` mode).
+// Rule design-area-missing: says when no design area is drawn (so only the searched one is reported), or when the
+// hydraulic calculation could not be made, and why (information; a warning in `drawn` mode).
 
 import { finding, type Rule } from './types.js';
 
-export const designAreaMissing: Rule = {
+export const designAreaMissing: Rule<'design-area-missing'> = {
   meta: { id: 'design-area-missing', title: 'Design area not drawn or not calculated', severity: 'info', reference: 'common practice, no source' },
   check({ design, settings, plan }) {
     const at = plan.heads[0]?.position ?? { x: 0, y: 0 };
-    const out = design.notes.map((n) => finding(this.meta, { severity: 'warning', message: n, handles: [], at }));
+    const out = design.notes.map((note) => finding(this.meta, { severity: 'warning', params: { kind: 'note', note }, handles: [], at }));
     if (design.drawnCount === 0 && settings.design.areaMode !== 'search') {
-      out.push(finding(this.meta, {
-        severity: settings.design.areaMode === 'drawn' ? 'warning' : 'info', handles: [], at,
-        message: 'no design area is drawn (a closed polyline on the design-area layer): only the searched area is reported',
-      }));
+      out.push(finding(this.meta, { severity: settings.design.areaMode === 'drawn' ? 'warning' : 'info', params: { kind: 'not-drawn' }, handles: [], at }));
     }
-    if (settings.design.velocityPressure) {
-      out.push(finding(this.meta, { handles: [], at, message: 'velocity pressure is not modelled: total pressures are used at the heads (conservative)' }));
-    }
+    if (settings.design.velocityPressure) out.push(finding(this.meta, { params: { kind: 'velocity-pressure' }, handles: [], at }));
     for (const a of design.areas.filter((x) => !x.hydraulics)) {
-      out.push(finding(this.meta, { severity: 'warning', message: `a ${a.source} design area was not calculated: ${a.note}`, handles: a.handle ? [a.handle] : [], at: a.outline[0] ?? at }));
+      out.push(finding(this.meta, {
+        severity: 'warning', params: { kind: 'not-calculated', source: a.source, note: a.note ?? '' }, handles: a.handle ? [a.handle] : [], at: a.outline[0] ?? at,
+      }));
     }
     return out;
   },

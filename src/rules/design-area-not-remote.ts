@@ -1,17 +1,17 @@
-// Rule design-area-not-remote: the drawn design area must be where the system is hydraulically most
-// demanding; where the search finds a more demanding area, the difference at the source is reported.
+// Rule design-area-not-remote: the drawn design area must be where the system is hydraulically most demanding;
+// where the search finds a more demanding area, the difference at the source is reported.
 
 import { finding, type Rule } from './types.js';
 
 /** Differences below this at the source are taken as equal (common practice, no source). */
 const PRESSURE_TOLERANCE_PSI = 0.5;
 
-export const designAreaNotRemote: Rule = {
+export const designAreaNotRemote: Rule<'design-area-not-remote'> = {
   meta: {
     id: 'design-area-not-remote', title: 'Drawn design area is not the most demanding', severity: 'error',
     reference: 'NFPA 13 (2019 edition), 28.2.4.1: the hydraulically most demanding design area (from memory)',
   },
-  check({ design, fmt, settings }) {
+  check({ design, settings }) {
     const best = design.areas.find((a) => a.rank === 'most-demanding');
     if (!best?.hydraulics) return [];
     const bh = best.hydraulics;
@@ -20,8 +20,7 @@ export const designAreaNotRemote: Rule = {
       const worse = settings.supply ? h.margin! - bh.margin! > PRESSURE_TOLERANCE_PSI : bh.sourcePressure - h.sourcePressure > PRESSURE_TOLERANCE_PSI;
       if (!worse) return [];
       return [finding(this.meta, {
-        message: `a more demanding area exists (heads ${best.headIds.join(', ')}): it needs ${fmt.pressure(bh.sourcePressure)} at ${fmt.flow(bh.sourceFlow)} at the source, ` +
-          `the drawn one ${fmt.pressure(h.sourcePressure)} at ${fmt.flow(h.sourceFlow)} (${fmt.pressure(bh.sourcePressure - h.sourcePressure)}, ${fmt.flow(bh.sourceFlow - h.sourceFlow)} more)`,
+        params: { heads: best.headIds, bestPressure: bh.sourcePressure, bestFlow: bh.sourceFlow, drawnPressure: h.sourcePressure, drawnFlow: h.sourceFlow },
         handles: a.handle ? [a.handle] : [], at: best.outline[0]!, measured: h.sourcePressure, limit: bh.sourcePressure, quantity: 'pressure',
       })];
     });

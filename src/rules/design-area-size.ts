@@ -1,31 +1,28 @@
-// Rule design-area-size: a drawn design area must hold the heads the design area needs — at least
+// Rule design-area-size: a drawn design area must hold the heads the design area needs: at least
 // ceil(A / protection area per head) heads whose S × L add up to at least A (common practice, NFPA 13 handbook).
 
 import { finding, type Rule } from './types.js';
 
-export const designAreaSize: Rule = {
+export const designAreaSize: Rule<'design-area-size'> = {
   meta: {
     id: 'design-area-size', title: 'Size of the drawn design area', severity: 'error',
     reference: 'NFPA 13 (2019 edition), 19.3.3: the design area (confirmed); whole heads, rounded up (common practice)',
   },
-  check({ design, fmt }) {
+  check({ design }) {
     const need = design.shape?.totalHeads ?? 0;
     return design.areas.filter((a) => a.source === 'drawn').flatMap((a) => {
-      const out = [];
       const at = a.outline[0]!;
       const handles = a.handle ? [a.handle] : [];
       if (a.actualArea < design.basis.area - 1e-6) {
-        out.push(finding(this.meta, {
-          message: `the drawn design area covers ${fmt.area(a.actualArea)} with ${a.headIds.length} heads, under the ${fmt.area(design.basis.area)} required`,
+        return [finding(this.meta, {
+          params: { kind: 'area', area: a.actualArea, heads: a.headIds.length, required: design.basis.area },
           handles, at, measured: a.actualArea, limit: design.basis.area, quantity: 'area',
-        }));
-      } else if (a.headIds.length < need) {
-        out.push(finding(this.meta, {
-          message: `the drawn design area holds ${a.headIds.length} heads, fewer than the ${need} required`,
-          handles, at, measured: a.headIds.length, limit: need, quantity: 'count',
-        }));
+        })];
       }
-      return out;
+      if (a.headIds.length < need) {
+        return [finding(this.meta, { params: { kind: 'count', heads: a.headIds.length, required: need }, handles, at, measured: a.headIds.length, limit: need, quantity: 'count' })];
+      }
+      return [];
     });
   },
 };

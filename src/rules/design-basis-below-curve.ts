@@ -7,9 +7,9 @@ import { finding, type Rule } from './types.js';
 /** Densities are compared to this many gpm/ft² (a rounding of the configured value is no finding). */
 const DENSITY_TOLERANCE = 1e-6;
 
-export const designBasisBelowCurve: Rule = {
+export const designBasisBelowCurve: Rule<'design-basis-below-curve'> = {
   meta: { id: 'design-basis-below-curve', title: "Design basis below the hazard's density/area curve", severity: 'error', reference: CURVE_SOURCE },
-  check({ design, settings, fmt, plan }) {
+  check({ design, settings, plan }) {
     const given = settings.design;
     if (given.density === undefined && given.area === undefined) return [];
     const { hazard, density, baseArea } = design.basis;
@@ -18,7 +18,7 @@ export const designBasisBelowCurve: Rule = {
     const at = plan.heads[0]?.position ?? { x: 0, y: 0 };
     if (baseArea < startArea - 1e-6) {
       return [finding(this.meta, {
-        message: `the design area ${fmt.area(baseArea)} is under the least area of the ${hazard} curve, ${fmt.area(startArea)} (its point: ${fmt.density(startDensity)} over ${fmt.area(startArea)})`,
+        params: { kind: 'area', hazard, area: baseArea, minArea: startArea, startDensity },
         handles: [], at, measured: baseArea, limit: startArea, quantity: 'area',
       })];
     }
@@ -26,7 +26,7 @@ export const designBasisBelowCurve: Rule = {
     const need = curveDensity(hazard, onCurve)!;
     if (density >= need - DENSITY_TOLERANCE) return [];
     return [finding(this.meta, {
-      message: `the design density ${fmt.density(density)} over ${fmt.area(baseArea)} is below the ${hazard} curve, which asks ${fmt.density(need)} at ${fmt.area(onCurve)}`,
+      params: { kind: 'density', hazard, density, area: baseArea, need, atArea: onCurve },
       handles: [], at, measured: density, limit: need, quantity: 'density',
     })];
   },

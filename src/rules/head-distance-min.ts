@@ -10,31 +10,24 @@ import { finding, type Rule } from './types.js';
 
 interface Box { minX: number; minY: number; maxX: number; maxY: number; i: number }
 
-export const headDistanceMin: Rule = {
+export const headDistanceMin: Rule<'head-distance-min'> = {
   meta: {
     id: 'head-distance-min', title: 'Distance between heads (minimum)', severity: 'error',
     reference: 'NFPA 13 (2019 edition), 10.2.5.3.1: 6 ft between heads unless baffles separate them (from memory)',
   },
-  check({ plan, limits, fmt }) {
+  check({ plan, limits }) {
     const heads = plan.heads.filter(isStandardSpray);
     const r = limits.minHeadDistance;
     const clusters = tooClose(heads, r);
     return clusters.map(({ members, least }) => {
-      const names = members.map((i) => heads[i]!.id);
       const first = heads[members[0]!]!;
-      const message = members.length === 2
-        ? `heads ${names[0]} and ${names[1]} are ${fmt.length(least)} apart, under the ${fmt.length(r)} required`
-        : `${members.length} heads stand closer than ${fmt.length(r)} to one another (${listed(names)}); the closest are ${fmt.length(least)} apart`;
       return finding(this.meta, {
-        message, handles: [...new Set(members.map((i) => heads[i]!.handle))], at: first.position, measured: least, limit: r, quantity: 'length',
+        params: { heads: members.map((i) => heads[i]!.id), least, limit: r }, handles: [...new Set(members.map((i) => heads[i]!.handle))], at: first.position, measured: least, limit: r, quantity: 'length',
         reference: limits.sources.minHeadDistance,
       });
     });
   },
 };
-
-/** Ids of a cluster as a message shows them: all of a small one, the first and the count of a large one. */
-const listed = (names: string[]) => (names.length <= 8 ? names.join(', ') : `${names.slice(0, 6).join(', ')} and ${names.length - 6} more`);
 
 /** Groups of heads joined by pairs closer than r (each group in drawing order), with the least distance of each. */
 function tooClose(heads: Head[], r: number): { members: number[]; least: number }[] {

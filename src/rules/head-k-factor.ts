@@ -1,6 +1,9 @@
-// Rule head-k-factor: a head whose K-factor lies outside the range of listed sprinklers is an error, since
-// every flow of the calculation follows from it (most often a K attribute read in the other unit system).
+// Rule head-k-factor: a head whose K-factor lies outside the range of listed sprinklers is an error, since every
+// flow of the calculation follows from it (most often a K attribute read in the other unit system). Heads with one
+// wrong K are one finding naming every head, not one each.
 
+import { KSI_PER_KUS } from '../quantities/convert.js';
+import type { Head } from '../read/plan.js';
 import { finding, type Rule } from './types.js';
 
 /**
@@ -9,24 +12,30 @@ import { finding, type Rule } from './types.js';
  */
 export const LISTED_K_RANGE = { min: 1.3, max: 34.8 } as const;
 
-export const headKFactor: Rule = {
+export const headKFactor: Rule<'head-k-factor'> = {
   meta: {
     id: 'head-k-factor', title: 'Head K-factor outside the range of listed sprinklers', severity: 'error',
     reference: 'NFPA 13 (2019 edition), Table 7.2.2.1: K-factors 1.3 to 34.8 gpm/psi½, nominal K 1.4 to 33.6 (from memory)',
   },
-  check({ plan, settings, fmt }) {
+  check({ plan, settings }) {
     const { min, max } = LISTED_K_RANGE;
-    const unit = settings.unitSystem === 'si' ? 'L/min/bar½, as the config is SI' : 'gpm/psi½, as the config is US';
-    return plan.heads
-      .filter((h) => !(h.kFactor >= min && h.kFactor <= max))
-      .map((h) => {
-        // Only a K attribute can be out of range: the config's default is checked with the config.
-        const limit = h.kFactor < min ? min : max;
-        const cause = `its K attribute "${h.attributes['K']}" is read in ${unit}`;
-        return finding(this.meta, {
-          message: `head ${h.id} has ${fmt.kFactor(h.kFactor)}, outside the listed ${fmt.kFactor(min)} to ${fmt.kFactor(max)} (${cause}): check the head and the unit`,
-          handles: [h.handle], at: h.position, measured: h.kFactor, limit, quantity: 'kFactor',
-        });
+    const inRange = (k: number) => k >= min && k <= max;
+    // Only a K attribute can be out of range: the config's default is checked with the config.
+    const byValue = new Map<string, Head[]>();
+    for (const h of plan.heads) {
+      if (inRange(h.kFactor)) continue;
+      const key = h.attributes['K'] ?? String(h.kFactor);
+      byValue.set(key, [...(byValue.get(key) ?? []), h]);
+    }
+    const si = settings.unitSystem === 'si';
+    return [...byValue.entries()].map(([attribute, heads]) => {
+      const k = heads[0]!.kFactor;
+      // Read in the other unit system, would the value be a listed K? Then that is the likely mix-up.
+      const other = si ? k * KSI_PER_KUS : k / KSI_PER_KUS;
+      return finding(this.meta, {
+        params: { heads: heads.map((h) => h.id), k, attribute, system: settings.unitSystem, min, max, looksLike: inRange(other) ? (si ? 'gpm/psi½' : 'L/min/bar½') : null },
+        handles: heads.map((h) => h.handle), at: heads[0]!.position, measured: k, limit: k < min ? min : max, quantity: 'kFactor',
       });
+    });
   },
 };

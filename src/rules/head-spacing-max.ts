@@ -1,18 +1,25 @@
-// Rule head-spacing-max: distance between neighbouring standard-spray heads on a branch line must not
-// exceed the hazard's maximum spacing (15 ft light and ordinary, 12 ft extra; see limits.ts).
+// Rule head-spacing-max: distance between neighbouring standard-spray heads on a branch line must not exceed the
+// hazard's maximum spacing (15 ft light and ordinary, 12 ft extra); the finding names both heads.
 
 import { isStandardSpray } from './standard-heads.js';
 import { finding, type Rule } from './types.js';
 
-export const headSpacingMax: Rule = {
-  meta: { id: 'head-spacing-max', title: 'Spacing between heads on a branch line', severity: 'error', reference: 'see limits.ts' },
-  check({ plan, coverage, limits, fmt }) {
+export const headSpacingMax: Rule<'head-spacing-max'> = {
+  meta: {
+    id: 'head-spacing-max', title: 'Spacing between heads on a branch line', severity: 'error',
+    reference: 'NFPA 13 (2019 edition), Table 10.2.4.2.1(a)-(c): 15 ft LH/OH, 12 ft EH (from memory)',
+  },
+  check({ plan, coverage, limits }) {
+    const handleOf = new Map(plan.heads.map((h) => [h.id, h.handle]));
     return plan.heads.filter(isStandardSpray).flatMap((h) => {
-      const after = coverage.get(h.id)?.headAlong[1];
-      if (after === null || after === undefined || after <= limits.maxSpacing + 1e-6) return [];
+      const c = coverage.get(h.id);
+      const after = c?.headAlong[1];
+      const next = c?.neighbours[1];
+      if (after === null || after === undefined || !next || after <= limits.maxSpacing + 1e-6) return [];
       return [finding(this.meta, {
-        message: `head ${h.id} is ${fmt.length(after)} from the next head on its branch line, over the ${fmt.length(limits.maxSpacing)} allowed`,
-        handles: [h.handle], at: h.position, measured: after, limit: limits.maxSpacing, quantity: 'length', reference: limits.sources.maxSpacing,
+        params: { head: h.id, next, distance: after, limit: limits.maxSpacing },
+        handles: [...new Set([h.handle, handleOf.get(next)!])], at: h.position, measured: after, limit: limits.maxSpacing, quantity: 'length',
+        reference: limits.sources.maxSpacing,
       })];
     });
   },

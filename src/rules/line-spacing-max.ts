@@ -1,12 +1,15 @@
-// Rule line-spacing-max: distance between adjacent branch lines (measured at each head, perpendicular to
-// its line) must not exceed the hazard's maximum spacing; reported once per pair of lines.
+// Rule line-spacing-max: distance between adjacent branch lines (measured at each head, perpendicular to its
+// line) must not exceed the hazard's maximum spacing; reported once per line, at its widest.
 
 import { isStandardSpray } from './standard-heads.js';
 import { finding, type Rule } from './types.js';
 
-export const lineSpacingMax: Rule = {
-  meta: { id: 'line-spacing-max', title: 'Spacing between branch lines', severity: 'error', reference: 'see limits.ts' },
-  check({ plan, coverage, limits, fmt }) {
+export const lineSpacingMax: Rule<'line-spacing-max'> = {
+  meta: {
+    id: 'line-spacing-max', title: 'Spacing between branch lines', severity: 'error',
+    reference: 'NFPA 13 (2019 edition), Table 10.2.4.2.1(a)-(c): 15 ft LH/OH, 12 ft EH (from memory)',
+  },
+  check({ plan, coverage, limits }) {
     const worst = new Map<string, { d: number; handle: string; at: { x: number; y: number } }>();
     for (const h of plan.heads.filter(isStandardSpray)) {
       const c = coverage.get(h.id);
@@ -16,7 +19,7 @@ export const lineSpacingMax: Rule = {
       if (!prev || left > prev.d) worst.set(c.branchLine, { d: left, handle: h.handle, at: h.position });
     }
     return [...worst.entries()].map(([line, w]) => finding(this.meta, {
-      message: `branch line ${line} is ${fmt.length(w.d)} from the next line, over the ${fmt.length(limits.maxSpacing)} allowed`,
+      params: { line, distance: w.d, limit: limits.maxSpacing },
       handles: [w.handle], at: w.at, measured: w.d, limit: limits.maxSpacing, quantity: 'length', reference: limits.sources.maxSpacing,
     }));
   },

@@ -1,0 +1,30 @@
+// design-area-not-remote: the drawn design area must be the hydraulically most demanding one (from memory: NFPA 13
+// (2019 edition), 28.2.4.1); differences under 0.5 psi at the source count as equal (common practice, no source).
+
+import { expect } from 'vitest';
+import { checkLayout } from '../../test/support/check.js';
+import { ruleTester } from '../../test/support/rule-tester.js';
+import { designAreaNotRemote } from './design-area-not-remote.js';
+
+// 8 heads a line from x = 6 to 90 ft, lines at y = 5..55, 12 × 10 ft, OH2 0.20 gpm/ft² over 1500 ft².
+const layout = { s: 12, l: 10, heads: 8, lines: 6 };
+const config = { design: { density: 0.2, area: 1500 } };
+const searched = checkLayout(layout, config).design.areas.find((a) => a.rank === 'most-demanding')!;
+
+ruleTester(designAreaNotRemote, {
+  valid: [
+    { name: 'the drawn area is the searched one', layout: { ...layout, drawnArea: searched.outline }, config },
+    { name: 'no drawn area', layout, config },
+  ],
+  invalid: [{
+    // the drawn area takes the 12 heads on the riser side (x ≤ 48, y = 25..45)
+    name: 'a drawn area near the riser: the more demanding area and the difference at the source', config,
+    layout: { ...layout, drawnArea: [{ x: 0, y: 20 }, { x: 48, y: 20 }, { x: 48, y: 50 }, { x: 0, y: 50 }] }, count: 1, severity: 'error',
+    also: (f) => {
+      expect(f[0]!.params.bestPressure).toBeGreaterThan(f[0]!.params.drawnPressure + 0.5);
+      expect(f[0]!.measured).toBeCloseTo(f[0]!.params.drawnPressure, 9);
+      expect(f[0]!.limit).toBeCloseTo(f[0]!.params.bestPressure, 9);
+      expect(f[0]!.params.heads).toHaveLength(13);
+    },
+  }],
+});
