@@ -10,6 +10,19 @@ const dir = join('bench-out', 'outputs');
 mkdirSync(dir, { recursive: true });
 const name = basename(file!, '.dxf');
 const t0 = performance.now();
-const args = ['check', file!, '--config', config!, '--json', join(dir, `${name}.json`), '--dxf', join(dir, `${name}.annotated.dxf`), '--html', join(dir, `${name}.html`)];
+const args = [
+  'check',
+  file!,
+  '--config',
+  config!,
+  '--json',
+  join(dir, `${name}.json`),
+  '--dxf',
+  join(dir, `${name}.annotated.dxf`),
+  '--html',
+  join(dir, `${name}.html`),
+];
 const code = await main(['node', 'headcheck', ...args], { out: () => true, err: (s) => process.stderr.write(`${s}\n`) });
-process.stdout.write(`${JSON.stringify({ file, exitCode: code, totalMs: performance.now() - t0, peakRssMb: process.resourceUsage().maxRSS / 1024 })}\n`);
+process.stdout.write(
+  `${JSON.stringify({ file, exitCode: code, totalMs: performance.now() - t0, peakRssMb: process.resourceUsage().maxRSS / 1024 })}\n`,
+);

@@ -25,17 +25,36 @@ if (mode === 'parse-only') {
   const stages: Record<string, number> = {};
   const t0 = performance.now();
   let last = t0;
-  const lap = (name: string) => { const now = performance.now(); stages[name] = now - last; last = now; };
+  const lap = (name: string) => {
+    const now = performance.now();
+    stages[name] = now - last;
+    last = now;
+  };
   const dir = join('bench-out', 'outputs');
   mkdirSync(dir, { recursive: true });
   const name = basename(file!, '.dxf');
   // The command's collections between stages too (their time falls into the stage after).
   const collect = collectBetweenStages(bytes.length);
-  const input = { bytes, fileName: file!, sha256: sha256Hex(bytes), settings, reportUnits: 'us' as const, onStage: (s: string, ms: number) => { stages[s] = ms; collect?.(s); } };
+  const input = {
+    bytes,
+    fileName: file!,
+    sha256: sha256Hex(bytes),
+    settings,
+    reportUnits: 'us' as const,
+    onStage: (s: string, ms: number) => {
+      stages[s] = ms;
+      collect?.(s);
+    },
+  };
   lap('hash');
   const r = runCheck(input);
   // Each output is made when its turn to be written comes, as the CLI does; 'write' is the writing alone.
-  const made = (name: string, make: () => OutputData) => () => { const t = performance.now(); const d = make(); stages[name] = performance.now() - t; return d; };
+  const made = (name: string, make: () => OutputData) => () => {
+    const t = performance.now();
+    const d = make();
+    stages[name] = performance.now() - t;
+    return d;
+  };
   last = performance.now();
   await writeAllAtomically([
     ...FORMAT_NAMES.map((f) => ({ path: join(dir, `${name}${FORMATS[f].extension}`), data: made(f, () => FORMATS[f].make(r)) })),

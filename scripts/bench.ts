@@ -24,19 +24,23 @@ for (const heads of sizes) {
     const perLine = Math.ceil(heads / lines);
     const file = join(OUT, `${kind}-${heads}.dxf`);
     writeFileSync(file, layoutDxf({ s: 12, l: 10, heads: perLine, lines, gridded: kind === 'grid' }));
-    const run = spawnSync(process.execPath, ['--max-old-space-size=8192', ONE, file, join(OUT, 'config.json')], { encoding: 'utf8', timeout: 3_600_000 });
+    const run = spawnSync(process.execPath, ['--max-old-space-size=8192', ONE, file, join(OUT, 'config.json')], {
+      encoding: 'utf8',
+      timeout: 3_600_000,
+    });
     if (run.status !== 0) {
       rows.push({ kind, heads, error: (run.stderr || 'failed').split('\n')[0] });
       console.log(`${kind} ${heads}: failed: ${run.stderr.split('\n')[0]}`);
       continue;
     }
+    // biome-ignore lint/suspicious/noExplicitAny: the child's JSON line, read field by field below
     const r = { kind, ...JSON.parse(run.stdout) } as Record<string, any>;
     rows.push(r);
     const st = r['stages'];
     console.log(
       `${kind.padEnd(4)} ${String(r['heads']).padStart(6)} heads: total ${(r['totalMs'] / 1000).toFixed(2)} s ` +
-      `(read ${st.read.toFixed(0)}, network ${st.network.toFixed(0)}, design-area ${st['design-area'].toFixed(0)} ms: ` +
-      `${r["search"]?.evaluated}/${r["search"]?.candidates} candidates solved, ${r["search"]?.screened} screened, ${r['search']?.solves} solves), peak ${r['peakRssMb'].toFixed(0)} MB`,
+        `(read ${st.read.toFixed(0)}, network ${st.network.toFixed(0)}, design-area ${st['design-area'].toFixed(0)} ms: ` +
+        `${r['search']?.evaluated}/${r['search']?.candidates} candidates solved, ${r['search']?.screened} screened, ${r['search']?.solves} solves), peak ${r['peakRssMb'].toFixed(0)} MB`,
     );
   }
 }
@@ -46,7 +50,16 @@ for (const kind of kinds) {
   const pts = rows.filter((r) => r['kind'] === kind && typeof r['totalMs'] === 'number') as Record<string, number>[];
   if (pts.length < 2) continue;
   const heads = pts.map((r) => r['heads']!);
-  growth[kind] = { time: growthExponent(heads, pts.map((r) => r['totalMs']!)), memory: growthExponent(heads, pts.map((r) => r['peakRssMb']!)) };
+  growth[kind] = {
+    time: growthExponent(
+      heads,
+      pts.map((r) => r['totalMs']!),
+    ),
+    memory: growthExponent(
+      heads,
+      pts.map((r) => r['peakRssMb']!),
+    ),
+  };
   console.log(`${kind}: time grows as heads^${growth[kind]!.time.toFixed(2)}, peak memory as heads^${growth[kind]!.memory.toFixed(2)}`);
 }
 
@@ -58,20 +71,29 @@ let background: Record<string, unknown> | null = null;
 const backgroundRows: Record<string, number>[] = [];
 let backgroundGrowth: { time: number; memory: number } | null = null;
 if ((process.env['BENCH_BACKGROUND'] ?? '1') !== '0') {
-  const one = (file: string, mode?: string) => JSON.parse(spawnSync(process.execPath, ['--max-old-space-size=8192', ONE, file, join(OUT, 'config.json'), ...(mode ? [mode] : [])], { encoding: 'utf8', timeout: 3_600_000 }).stdout);
+  const one = (file: string, mode?: string) =>
+    JSON.parse(
+      spawnSync(process.execPath, ['--max-old-space-size=8192', ONE, file, join(OUT, 'config.json'), ...(mode ? [mode] : [])], {
+        encoding: 'utf8',
+        timeout: 3_600_000,
+      }).stdout,
+    );
   for (const entities of [50_000, 100_000, 200_000]) {
     const file = join(OUT, `background-${entities / 1000}k.dxf`);
     writeFileSync(file, backgroundDrawing(entities));
     const check = one(file);
     backgroundRows.push({ entities, bytes: check.bytes, totalMs: check.totalMs, peakRssMb: check.peakRssMb });
     const st = check.stages;
-    let line = `background ${(check.bytes / 1e6).toFixed(1)} MB (${entities} entities), ${check.heads} heads: check ${(check.totalMs / 1000).toFixed(2)} s ` +
+    let line =
+      `background ${(check.bytes / 1e6).toFixed(1)} MB (${entities} entities), ${check.heads} heads: check ${(check.totalMs / 1000).toFixed(2)} s ` +
       `(read ${st.read.toFixed(0)}, network ${st.network.toFixed(0)}, design-area search and hydraulics ${st['design-area'].toFixed(0)}, ` +
       `outputs ${(st.json + st.dxf + st.html + st.write).toFixed(0)} ms), peak ${check.peakRssMb.toFixed(0)} MiB`;
     if (entities === 200_000) {
       // The targets (issue 8), on the real command: the whole check within 2 × dxf-parser's parse, peak memory
       // within 3 × file + 200 MiB. Both vary from run to run (the garbage collector's timing): three runs each.
-      const runs = [0, 1, 2].map(() => JSON.parse(spawnSync(process.execPath, [CLI, file, join(OUT, 'config.json')], { encoding: 'utf8', timeout: 3_600_000 }).stdout));
+      const runs = [0, 1, 2].map(() =>
+        JSON.parse(spawnSync(process.execPath, [CLI, file, join(OUT, 'config.json')], { encoding: 'utf8', timeout: 3_600_000 }).stdout),
+      );
       const parses = [0, 1, 2].map(() => one(file, 'parse-only'));
       const range = (xs: number[], digits: number) => `${Math.min(...xs).toFixed(digits)}–${Math.max(...xs).toFixed(digits)}`;
       const cliMs = runs.map((r) => r.totalMs as number);
@@ -79,15 +101,44 @@ if ((process.env['BENCH_BACKGROUND'] ?? '1') !== '0') {
       const parseMs = parses.map((r) => r.parseMs as number);
       const budget = (3 * check.bytes) / 2 ** 20 + 200;
       const ratio = median(cliMs) / median(parseMs);
-      background = { ...check, cliMs, cliPeakRssMb: cliPeak, parseOnlyMs: parseMs, parseOnlyPeakRssMb: parses.map((r) => r.peakRssMb), ratio, memoryBudgetMb: budget };
-      line += `\n  headcheck check: ${range(cliMs.map((t) => t / 1000), 2)} s, peak ${range(cliPeak, 0)} MiB (budget ${budget.toFixed(0)} MiB); ` +
-        `dxf-parser alone ${range(parseMs.map((t) => t / 1000), 2)} s, peak ${range(parses.map((r) => r.peakRssMb), 0)} MiB; ratio of medians ${ratio.toFixed(2)}`;
+      background = {
+        ...check,
+        cliMs,
+        cliPeakRssMb: cliPeak,
+        parseOnlyMs: parseMs,
+        parseOnlyPeakRssMb: parses.map((r) => r.peakRssMb),
+        ratio,
+        memoryBudgetMb: budget,
+      };
+      line +=
+        `\n  headcheck check: ${range(
+          cliMs.map((t) => t / 1000),
+          2,
+        )} s, peak ${range(cliPeak, 0)} MiB (budget ${budget.toFixed(0)} MiB); ` +
+        `dxf-parser alone ${range(
+          parseMs.map((t) => t / 1000),
+          2,
+        )} s, peak ${range(
+          parses.map((r) => r.peakRssMb),
+          0,
+        )} MiB; ratio of medians ${ratio.toFixed(2)}`;
     }
     console.log(line);
   }
   const bytes = backgroundRows.map((r) => r['bytes']!);
-  backgroundGrowth = { time: growthExponent(bytes, backgroundRows.map((r) => r['totalMs']!)), memory: growthExponent(bytes, backgroundRows.map((r) => r['peakRssMb']!)) };
-  console.log(`background: time grows as size^${backgroundGrowth.time.toFixed(2)}, peak memory as size^${backgroundGrowth.memory.toFixed(2)}`);
+  backgroundGrowth = {
+    time: growthExponent(
+      bytes,
+      backgroundRows.map((r) => r['totalMs']!),
+    ),
+    memory: growthExponent(
+      bytes,
+      backgroundRows.map((r) => r['peakRssMb']!),
+    ),
+  };
+  console.log(
+    `background: time grows as size^${backgroundGrowth.time.toFixed(2)}, peak memory as size^${backgroundGrowth.memory.toFixed(2)}`,
+  );
 }
 
 // Hostile drawings (src/demo/hostile.ts): each bomb must end in exit 2 within a second, the large legal ones in a
@@ -116,7 +167,11 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
   writeFileSync(join(set, 'headcheck.json'), JSON.stringify(config));
   for (const workers of [1, 2]) {
     const t0 = performance.now();
-    const r = spawnSync(process.execPath, ['bin/headcheck.js', 'batch', set, '--out', join(OUT, `batch-out-${workers}`), '--workers', String(workers), '--force'], { encoding: 'utf8', timeout: 3_600_000 });
+    const r = spawnSync(
+      process.execPath,
+      ['bin/headcheck.js', 'batch', set, '--out', join(OUT, `batch-out-${workers}`), '--workers', String(workers), '--force'],
+      { encoding: 'utf8', timeout: 3_600_000 },
+    );
     const s = (performance.now() - t0) / 1000;
     batch[`workers${workers}`] = 200 / s;
     console.log(`batch of 200 drawings, ${workers} worker(s): ${s.toFixed(1)} s, ${(200 / s).toFixed(2)} drawings/s (exit ${r.status})`);
@@ -124,7 +179,10 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
   batch['speedup'] = batch['workers2']! / batch['workers1']!;
   console.log(`2 workers / 1 worker: ${batch['speedup']!.toFixed(2)}×`);
 }
-writeFileSync(join(OUT, 'bench.json'), `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, hostile, batch }, null, 2)}\n`);
+writeFileSync(
+  join(OUT, 'bench.json'),
+  `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, hostile, batch }, null, 2)}\n`,
+);
 console.log(`figures written to ${join(OUT, 'bench.json')}`);
 
 /** The least-squares slope of log y against log x: the exponent k of y ~ x^k (1 = linear). */
@@ -143,7 +201,11 @@ function growthExponent(xs: number[], ys: number[]): number {
 function backgroundDrawing(entities: number): string {
   const base = layoutDxf({ s: 12, l: 10, heads: 223, lines: 90 });
   const extra: string[] = [];
-  const g = (...pairs: (string | number)[]) => { let t = ''; for (let i = 0; i < pairs.length; i += 2) t += `${String(pairs[i]).padStart(3)}\n${pairs[i + 1]}\n`; return t; };
+  const g = (...pairs: (string | number)[]) => {
+    let t = '';
+    for (let i = 0; i < pairs.length; i += 2) t += `${String(pairs[i]).padStart(3)}\n${pairs[i + 1]}\n`;
+    return t;
+  };
   const firstHandle = 0x10000;
   const c = (v: number) => v.toFixed(6);
   for (let i = 0; i < entities; i++) {
@@ -151,10 +213,17 @@ function backgroundDrawing(entities: number): string {
     const x = (i % 500) * 64.3 + 0.0254 * (i % 7);
     const y = Math.floor(i / 500) * 27.1 + 0.0127 * (i % 11);
     switch (i % 4) {
-      case 0: extra.push(g(0, 'LINE', 5, h, 8, 'A-RACK', 10, c(x), 20, c(y), 30, c(0), 11, c(x + 40), 21, c(y), 31, c(0))); break;
-      case 1: extra.push(g(0, 'TEXT', 5, h, 8, 'A-TEXT', 10, c(x), 20, c(y), 30, c(0), 40, c(6), 1, `RACK ${i}`, 7, 'STANDARD')); break;
-      case 2: extra.push(g(0, 'ARC', 5, h, 8, 'A-DOOR', 10, c(x), 20, c(y), 30, c(0), 40, c(36), 50, c(0), 51, c(90))); break;
-      default: extra.push(g(0, 'LINE', 5, h, 8, 'A-GRID', 10, c(x), 20, c(0), 30, c(0), 11, c(x), 21, c(y), 31, c(0)));
+      case 0:
+        extra.push(g(0, 'LINE', 5, h, 8, 'A-RACK', 10, c(x), 20, c(y), 30, c(0), 11, c(x + 40), 21, c(y), 31, c(0)));
+        break;
+      case 1:
+        extra.push(g(0, 'TEXT', 5, h, 8, 'A-TEXT', 10, c(x), 20, c(y), 30, c(0), 40, c(6), 1, `RACK ${i}`, 7, 'STANDARD'));
+        break;
+      case 2:
+        extra.push(g(0, 'ARC', 5, h, 8, 'A-DOOR', 10, c(x), 20, c(y), 30, c(0), 40, c(36), 50, c(0), 51, c(90)));
+        break;
+      default:
+        extra.push(g(0, 'LINE', 5, h, 8, 'A-GRID', 10, c(x), 20, c(0), 30, c(0), 11, c(x), 21, c(y), 31, c(0)));
     }
   }
   const seed = (firstHandle + entities).toString(16).toUpperCase();

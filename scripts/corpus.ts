@@ -18,7 +18,12 @@ export interface CorpusRun {
   peakMiB: number;
 }
 
-export interface CorpusRow { file: string; bytes: number; layers: CorpusRun; check: CorpusRun }
+export interface CorpusRow {
+  file: string;
+  bytes: number;
+  layers: CorpusRun;
+  check: CorpusRun;
+}
 
 const DIST_MAIN = resolve('dist/cli/main.js');
 
@@ -27,35 +32,57 @@ const DIST_MAIN = resolve('dist/cli/main.js');
  * exit code and its own peak memory on descriptor 3 when it ends; killed at `timeoutS`.
  */
 export function runOnce(args: string[], timeoutS: number): Promise<CorpusRun> {
-  const program = `import(${JSON.stringify(new URL(`file://${DIST_MAIN}`).href)}).then((m) => m.main(['node', 'headcheck', ...JSON.parse(process.argv[1])]))` +
+  const program =
+    `import(${JSON.stringify(new URL(`file://${DIST_MAIN}`).href)}).then((m) => m.main(['node', 'headcheck', ...JSON.parse(process.argv[1])]))` +
     `.then((code) => { require('fs').writeSync(3, JSON.stringify({ code, rss: process.resourceUsage().maxRSS })); process.exitCode = code; })`;
   return new Promise((done) => {
     const started = performance.now();
     const child = spawn(process.execPath, ['-e', program, JSON.stringify(args)], { stdio: ['ignore', 'pipe', 'pipe', 'pipe'] });
     const streams = [child.stdout!, child.stderr!, child.stdio[3] as NodeJS.ReadableStream];
     const text = ['', '', ''];
-    streams.forEach((s, i) => s.on('data', (d: Buffer) => { text[i] += d.toString('utf8'); }));
+    streams.forEach((s, i) => {
+      s.on('data', (d: Buffer) => {
+        text[i] += d.toString('utf8');
+      });
+    });
     const timer = setTimeout(() => child.kill('SIGKILL'), timeoutS * 1000);
     child.on('close', (exit) => {
       clearTimeout(timer);
       const seconds = (performance.now() - started) / 1000;
       let report: { code: number; rss: number } | null = null;
-      try { report = JSON.parse(text[2]!); } catch { report = null; }
-      const lines = (s: string) => s.split('\n').map((l) => l.trim()).filter(Boolean);
+      try {
+        report = JSON.parse(text[2]!);
+      } catch {
+        report = null;
+      }
+      const lines = (s: string) =>
+        s
+          .split('\n')
+          .map((l) => l.trim())
+          .filter(Boolean);
       const err = lines(text[1]!);
       const out = lines(text[0]!);
       done({
-        code: report ? report.code : exit === null ? null : exit, message: err.at(-1) ?? out.at(-1) ?? '', stderrLines: err.length,
-        seconds, peakMiB: report ? report.rss / 1024 : Number.NaN,
+        code: report ? report.code : exit === null ? null : exit,
+        message: err.at(-1) ?? out.at(-1) ?? '',
+        stderrLines: err.length,
+        seconds,
+        peakMiB: report ? report.rss / 1024 : Number.NaN,
       });
     });
   });
 }
 
 /** Every drawing of `folder` through both commands, `workers` at a time, in file-name order. */
-export async function runCorpus(folder: string, options: { workers?: number; timeoutS?: number; configs?: string; onlyWithConfig?: boolean } = {}): Promise<CorpusRow[]> {
-  const configOf = (f: string) => (options.configs && existsSync(join(options.configs, `${f}.json`)) ? join(options.configs, `${f}.json`) : null);
-  const files = readdirSync(folder).filter((f) => statSync(join(folder, f)).isFile() && (!options.onlyWithConfig || configOf(f))).sort();
+export async function runCorpus(
+  folder: string,
+  options: { workers?: number; timeoutS?: number; configs?: string; onlyWithConfig?: boolean } = {},
+): Promise<CorpusRow[]> {
+  const configOf = (f: string) =>
+    options.configs && existsSync(join(options.configs, `${f}.json`)) ? join(options.configs, `${f}.json`) : null;
+  const files = readdirSync(folder)
+    .filter((f) => statSync(join(folder, f)).isFile() && (!options.onlyWithConfig || configOf(f)))
+    .sort();
   const rows: CorpusRow[] = new Array(files.length);
   let next = 0;
   const worker = async () => {
@@ -79,13 +106,19 @@ export function corpusTable(rows: CorpusRow[], folder: string): string {
   return [
     '| file | KB | layers exit | check exit | check message (last line) | check s | check MiB |',
     '|---|---|---|---|---|---|---|',
-    ...rows.map((r) => `| ${r.file} | ${Math.round(r.bytes / 1024)} | ${r.layers.code} | ${r.check.code} | ${cell(r.check.message)} | ${r.check.seconds.toFixed(2)} | ${r.check.peakMiB.toFixed(0)} |`),
+    ...rows.map(
+      (r) =>
+        `| ${r.file} | ${Math.round(r.bytes / 1024)} | ${r.layers.code} | ${r.check.code} | ${cell(r.check.message)} | ${r.check.seconds.toFixed(2)} | ${r.check.peakMiB.toFixed(0)} |`,
+    ),
   ].join('\n');
 }
 
 if (process.argv[1]?.endsWith('corpus.js')) {
   const args = process.argv.slice(2);
-  const flag = (name: string) => { const i = args.indexOf(name); return i >= 0 ? args.splice(i, 2)[1] : undefined; };
+  const flag = (name: string) => {
+    const i = args.indexOf(name);
+    return i >= 0 ? args.splice(i, 2)[1] : undefined;
+  };
   const out = flag('--out');
   const json = flag('--json');
   const workers = Number(flag('--workers') ?? 2);

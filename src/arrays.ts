@@ -5,7 +5,10 @@
 export function maxOf(values: Iterable<number>, empty = -Infinity): number {
   let m = -Infinity;
   let any = false;
-  for (const v of values) { if (v > m) m = v; any = true; }
+  for (const v of values) {
+    if (v > m) m = v;
+    any = true;
+  }
   return any ? m : empty;
 }
 
@@ -13,7 +16,10 @@ export function maxOf(values: Iterable<number>, empty = -Infinity): number {
 export function minOf(values: Iterable<number>, empty = Infinity): number {
   let m = Infinity;
   let any = false;
-  for (const v of values) { if (v < m) m = v; any = true; }
+  for (const v of values) {
+    if (v < m) m = v;
+    any = true;
+  }
   return any ? m : empty;
 }
 

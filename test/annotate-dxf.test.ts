@@ -67,12 +67,17 @@ describe.each(cases)('annotated $name', (c) => {
     const a = readDrawing(c.bytes, units ? { units } : {});
     const b = readDrawing(out, units ? { units } : {});
     const original = (d: typeof a) => [...d.refs, ...d.strokes, ...d.texts].filter((x) => !x.layer.startsWith('HC-') && x.handle !== '');
-    const sig = (d: typeof a) => original(d).map((x) => `${x.handle}|${x.layer}`).sort();
+    const sig = (d: typeof a) =>
+      original(d)
+        .map((x) => `${x.handle}|${x.layer}`)
+        .sort();
     // The legend block's contents sit on layer 0 inside a reference on HC-LEGEND; they take that layer.
     expect(sig(b)).toEqual(sig(a));
     const added = [...b.strokes, ...b.texts, ...b.outlines, ...b.refs].filter((x) => x.layer.startsWith('HC-'));
     expect(added.length).toBeGreaterThan(result.findings.length);
-    expect(new Set(b.layers.map((l) => l.name))).toEqual(new Set([...a.layers.map((l) => l.name), 'HC-FINDINGS', 'HC-DESIGN-AREA', 'HC-HEAD-TAGS', 'HC-PIPE-TAGS', 'HC-LEGEND']));
+    expect(new Set(b.layers.map((l) => l.name))).toEqual(
+      new Set([...a.layers.map((l) => l.name), 'HC-FINDINGS', 'HC-DESIGN-AREA', 'HC-HEAD-TAGS', 'HC-PIPE-TAGS', 'HC-LEGEND']),
+    );
   });
 
   it('gives new entities fresh handles above the old seed and moves $HANDSEED past them', () => {
@@ -98,7 +103,10 @@ describeWith('python3-ezdxf', hasEzdxf(), 'annotated drawings in ezdxf', () => {
     });
     const r = spawnSync(SYSTEM_PYTHON, ['scripts/ezdxf-audit.py', ...files], { encoding: 'utf8', timeout: 120_000 });
     expect(r.status, r.stderr).toBe(0);
-    const reports = r.stdout.trim().split('\n').map((l) => JSON.parse(l));
+    const reports = r.stdout
+      .trim()
+      .split('\n')
+      .map((l) => JSON.parse(l));
     for (const rep of reports) {
       expect(rep.readError).toBeUndefined();
       expect(rep.errors).toEqual([]);
@@ -141,11 +149,18 @@ describeWith('librecad and poppler-utils', canRender, 'annotated drawing in Libr
     for (const name of ['plain', 'annotated']) {
       // dxf2pdf writes NAME.pdf beside the drawing; it can hang on broken files, hence the timeout.
       const r = spawnSync('librecad', ['dxf2pdf', '-a', join(dir, `${name}.dxf`)], {
-        cwd: dir, timeout: 90_000, env: { ...process.env, QT_QPA_PLATFORM: 'offscreen' }, encoding: 'utf8',
+        cwd: dir,
+        timeout: 90_000,
+        env: { ...process.env, QT_QPA_PLATFORM: 'offscreen' },
+        encoding: 'utf8',
       });
       expect(r.error).toBeUndefined();
     }
-    expect(readdirSync(dir).filter((f) => f.endsWith('.pdf')).sort()).toEqual(['annotated.pdf', 'plain.pdf']);
+    expect(
+      readdirSync(dir)
+        .filter((f) => f.endsWith('.pdf'))
+        .sort(),
+    ).toEqual(['annotated.pdf', 'plain.pdf']);
     const plain = inkShare(join(dir, 'plain.pdf'));
     const annotated = inkShare(join(dir, 'annotated.pdf'));
     expect(plain).toBeGreaterThan(0.001);

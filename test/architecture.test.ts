@@ -11,7 +11,11 @@ import { describe, expect, it } from 'vitest';
  * `check` runs them, then what composes and presents them, then the edges with I/O.
  */
 const LEVEL: Record<string, number> = {
-  'input-error.ts': 0, 'arrays.ts': 0, 'version.ts': 0, geometry: 0, quantities: 0,
+  'input-error.ts': 0,
+  'arrays.ts': 0,
+  'version.ts': 0,
+  geometry: 0,
+  quantities: 0,
   config: 1,
   basis: 2,
   read: 3,
@@ -45,7 +49,11 @@ const unitOf = (file: string) => relative('src', file).split('/')[0]!;
 
 const imports = sources('src').map((file) => {
   const text = readFileSync(file, 'utf8');
-  const specs = [...text.matchAll(/^\s*(?:import|export)[^'"]*?from\s+'([^']+)'/gm), ...text.matchAll(/^\s*import\s+'([^']+)'/gm), ...text.matchAll(/import\('([^']+)'\)/g)].map((m) => m[1]!);
+  const specs = [
+    ...text.matchAll(/^\s*(?:import|export)[^'"]*?from\s+'([^']+)'/gm),
+    ...text.matchAll(/^\s*import\s+'([^']+)'/gm),
+    ...text.matchAll(/import\('([^']+)'\)/g),
+  ].map((m) => m[1]!);
   return { file, unit: unitOf(file), specs };
 });
 
@@ -67,7 +75,10 @@ describe('the shape of src/', () => {
       }
     }
     expect(wrong).toEqual([]);
-    const cycles = [...edges].filter((e) => { const [a, b] = e.split('->'); return edges.has(`${b}->${a}`); });
+    const cycles = [...edges].filter((e) => {
+      const [a, b] = e.split('->');
+      return edges.has(`${b}->${a}`);
+    });
     expect(cycles).toEqual([]);
   });
 

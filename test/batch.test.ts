@@ -10,8 +10,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
 import { layoutDxf } from '../src/demo/generated-layout.js';
 
-const run = (...args: string[]) => spawnSync(process.execPath, ['bin/headcheck.js', 'batch', ...args], { encoding: 'utf8', timeout: 300_000 });
-const summary = (out: string) => JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')).drawings as Record<string, any>[];
+const run = (...args: string[]) =>
+  spawnSync(process.execPath, ['bin/headcheck.js', 'batch', ...args], { encoding: 'utf8', timeout: 300_000 });
+type Row = { file: string; status: string; message: string | null; config: string | null; heads: number | null; margin: number | null };
+const summary = (out: string) => JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')).drawings as Row[];
 
 let set: string;
 beforeAll(() => {
@@ -37,7 +39,11 @@ describe('headcheck batch', () => {
     const rows = summary(out);
     const verdict = Object.fromEntries(rows.map((x) => [x.file.slice(set.length + 1), x.status]));
     expect(verdict).toEqual({
-      'clean.dxf': 'pass', 'east/level1/plan.dxf': 'fail', 'west/broken.dxf': 'error', 'west/notes.dxf': 'error', 'west/plan.DXF': 'fail',
+      'clean.dxf': 'pass',
+      'east/level1/plan.dxf': 'fail',
+      'west/broken.dxf': 'error',
+      'west/notes.dxf': 'error',
+      'west/plan.DXF': 'fail',
     });
     const byFile = (f: string) => rows.find((x) => x.file.endsWith(f))!;
     expect(byFile('broken.dxf').message).toMatch(/truncated/);
@@ -88,7 +94,7 @@ describe('headcheck batch', () => {
     expect(hungry.status).toBe(2);
   });
 
-  it('counts a time limit from each drawing\'s start: one worker, 40 drawings, none timed out while queued', () => {
+  it("counts a time limit from each drawing's start: one worker, 40 drawings, none timed out while queued", () => {
     // each takes a tenth of a second or so; all of them together several times the limit
     const many = mkdtempSync(join(tmpdir(), 'hc-batch-many-'));
     for (let i = 0; i < 40; i++) writeFileSync(join(many, `p${i}.dxf`), layoutDxf({ s: 12, l: 10, heads: 20, lines: 12 }));
@@ -111,7 +117,10 @@ describe('headcheck batch', () => {
     const r = run(linked, '--out', join(linked, 'o'), '--no-dxf', '--no-html');
     expect(r.status, r.stderr).toBe(0);
     const rows = summary(join(linked, 'o'));
-    expect(rows.map((x) => [x.file.slice(linked.length + 1), x.status])).toEqual([['a.dxf', 'pass'], ['far.dxf', 'skipped']]);
+    expect(rows.map((x) => [x.file.slice(linked.length + 1), x.status])).toEqual([
+      ['a.dxf', 'pass'],
+      ['far.dxf', 'skipped'],
+    ]);
     expect(rows[1]!.message).toMatch(/a symbolic link out of the batch folder/);
   });
 

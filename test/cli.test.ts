@@ -17,7 +17,9 @@ async function run(...args: string[]) {
 }
 
 let dir: string;
-beforeAll(() => { dir = mkdtempSync(join(tmpdir(), 'hc-cli-')); });
+beforeAll(() => {
+  dir = mkdtempSync(join(tmpdir(), 'hc-cli-'));
+});
 
 describe('headcheck check', () => {
   it('checks an ezdxf-written drawing: exit 1 for its planted errors, a contract report', async () => {
@@ -26,7 +28,8 @@ describe('headcheck check', () => {
     expect(r.code).toBe(1);
     expect(r.out).toMatch(/FAIL: 13 heads/);
     const report = JSON.parse(readFileSync(json, 'utf8'));
-    for (const key of ['tool', 'input', 'units', 'heads', 'pipes', 'findings', 'designAreas', 'summary']) expect(report).toHaveProperty(key);
+    for (const key of ['tool', 'input', 'units', 'heads', 'pipes', 'findings', 'designAreas', 'summary'])
+      expect(report).toHaveProperty(key);
     expect(report.input.sha256).toMatch(/^[0-9a-f]{64}$/);
     expect(report.input.drawingUnits).toBe('in');
     expect(report.input.layersUsed.heads).toEqual(['FP-HEAD']);
@@ -114,7 +117,15 @@ describe('headcheck check', () => {
   it('an output path that is a folder, or two outputs on one path: exit 2, one line, no output and no temporary file', async () => {
     const out = mkdtempSync(join(tmpdir(), 'hc-out-'));
     mkdirSync(join(out, 'report.html'));
-    const asFolder = await run('check', 'fixtures/bay2-r2000.dxf', '--no-config', '--json', join(out, 'r.json'), '--html', join(out, 'report.html'));
+    const asFolder = await run(
+      'check',
+      'fixtures/bay2-r2000.dxf',
+      '--no-config',
+      '--json',
+      join(out, 'r.json'),
+      '--html',
+      join(out, 'report.html'),
+    );
     expect(asFolder.code).toBe(2);
     expect(asFolder.err).toBe(`headcheck: ${join(out, 'report.html')}: is a folder, not a file to write`);
     expect(readdirSync(out)).toEqual(['report.html']);
@@ -139,7 +150,18 @@ describe('headcheck check', () => {
     const out = mkdtempSync(join(tmpdir(), 'hc-killed-'));
     const drawing = join(out, 'large.dxf');
     writeFileSync(drawing, layoutDxf({ s: 12, l: 10, heads: 150, lines: 100 }));
-    const child = spawn(process.execPath, ['bin/headcheck.js', 'check', drawing, '--no-config', '--json', join(out, 'r.json'), '--dxf', join(out, 'r.dxf'), '--html', join(out, 'r.html')]);
+    const child = spawn(process.execPath, [
+      'bin/headcheck.js',
+      'check',
+      drawing,
+      '--no-config',
+      '--json',
+      join(out, 'r.json'),
+      '--dxf',
+      join(out, 'r.dxf'),
+      '--html',
+      join(out, 'r.html'),
+    ]);
     const exited = new Promise<number | null>((done) => child.on('exit', (code, signal) => done(signal ? -1 : code)));
     let sawTemp = false;
     for (let i = 0; i < 4000 && child.exitCode === null && !sawTemp; i++) {
@@ -207,7 +229,13 @@ describe('headcheck layers and demo', () => {
     const out = join(dir, 'demo');
     const r = await run('demo', '--out', out);
     expect(r.code).toBe(0);
-    expect(readdirSync(out).sort()).toEqual(['demo-plan.annotated.dxf', 'demo-plan.config.json', 'demo-plan.dxf', 'demo-plan.html', 'demo-plan.json']);
+    expect(readdirSync(out).sort()).toEqual([
+      'demo-plan.annotated.dxf',
+      'demo-plan.config.json',
+      'demo-plan.dxf',
+      'demo-plan.html',
+      'demo-plan.json',
+    ]);
     const report = JSON.parse(readFileSync(join(out, 'demo-plan.json'), 'utf8'));
     expect(report.summary.heads).toBe(49);
   });

@@ -26,7 +26,14 @@ describe('published config schema', () => {
     const all = [...fixtures, ['demo', DEMO_CONFIG] as const];
     expect(all.length).toBeGreaterThanOrEqual(4);
     for (const [name, config] of all) {
-      const toolAccepts = (() => { try { parseSettings(config, name); return true; } catch { return false; } })();
+      const toolAccepts = (() => {
+        try {
+          parseSettings(config, name);
+          return true;
+        } catch {
+          return false;
+        }
+      })();
       expect({ name, ajv: validate(config) }).toEqual({ name, ajv: toolAccepts });
     }
     expect(validate(fixtures.find(([n]) => n === 'misspelt.json')![1])).toBe(false);
@@ -34,7 +41,12 @@ describe('published config schema', () => {
   });
 
   it('ajv refuses what the tool refuses: a negative spacing, an SI density read as US, a wrong type', () => {
-    for (const bad of [{ limits: { maxSpacing: -1 } }, { design: { density: 8.1 } }, { design: { fittings: 'yes' } }, { supply: { static: 80 } }]) {
+    for (const bad of [
+      { limits: { maxSpacing: -1 } },
+      { design: { density: 8.1 } },
+      { design: { fittings: 'yes' } },
+      { supply: { static: 80 } },
+    ]) {
       expect(validate(bad)).toBe(false);
       expect(() => parseSettings(bad)).toThrow();
     }

@@ -22,7 +22,8 @@ describe('demo design areas against EPANET', () => {
       const area = r.design.areas.find((a) => (a.rank ?? a.source) === label)!;
       const h = area.hydraulics!;
       const flowing = area.headIds.map((id) => ({
-        head: byId.get(id)!, required: Math.max(7, (r.design.basis.density * r.coverage.get(id)!.area! / byId.get(id)!.kFactor) ** 2),
+        head: byId.get(id)!,
+        required: Math.max(7, ((r.design.basis.density * r.coverage.get(id)!.area!) / byId.get(id)!.kFactor) ** 2),
       }));
       const model = buildModel(r.network, flowing, settings);
       const e = await solveWithEpanet(model, h.sourcePressure);
@@ -39,8 +40,10 @@ describe('demo design areas against EPANET', () => {
 
   it('reports the contract fields for each area', () => {
     for (const a of r.report.designAreas) {
-      for (const k of ['source', 'density', 'area', 'minLength', 'length', 'width', 'actualArea', 'heads', 'hydraulics']) expect(a).toHaveProperty(k);
-      for (const k of ['sourcePressure', 'sourceFlow', 'hoseAllowance', 'totalDemand', 'supplyAvailable', 'margin', 'nodes', 'pipes']) expect(a.hydraulics).toHaveProperty(k);
+      for (const k of ['source', 'density', 'area', 'minLength', 'length', 'width', 'actualArea', 'heads', 'hydraulics'])
+        expect(a).toHaveProperty(k);
+      for (const k of ['sourcePressure', 'sourceFlow', 'hoseAllowance', 'totalDemand', 'supplyAvailable', 'margin', 'nodes', 'pipes'])
+        expect(a.hydraulics).toHaveProperty(k);
       expect(a.hydraulics!.riser).toEqual({ modelled: 'virtual', length: 12, nominalSize: '4' });
     }
   });

@@ -12,13 +12,14 @@ import { checkText } from './support/check.js';
 
 const truth = JSON.parse(readFileSync('fixtures/first-contact.truth.json', 'utf8'));
 const bytes = (file: string) => new Uint8Array(readFileSync(`fixtures/${file}`));
-const byPlace = <T extends { position: { x: number; y: number } }>(xs: T[]) => [...xs].sort((a, b) => a.position.y - b.position.y || a.position.x - b.position.x);
+const byPlace = <T extends { position: { x: number; y: number } }>(xs: T[]) =>
+  [...xs].sort((a, b) => a.position.y - b.position.y || a.position.x - b.position.x);
 
 describe('heads drawn as plain circles (an exploded drawing)', () => {
   const drawing = readDrawing(bytes(truth.exploded.file));
   const plan = planFromDrawing(drawing, parseSettings({}));
 
-  it('the circles on the head layer are the heads: the layer is guessed, each head has its circle\'s handle and centre', () => {
+  it("the circles on the head layer are the heads: the layer is guessed, each head has its circle's handle and centre", () => {
     expect(drawing.roles.heads.layers).toEqual(['FP-HEAD']);
     expect(drawing.roles.heads.reason).toMatch(/circles ×12/);
     const heads = byPlace(plan.heads);
@@ -56,23 +57,29 @@ describe('heads among furniture, light fixtures and dimension ticks', () => {
     expect(why['A-ANNO-DIMS']!.why).toMatch(/too small for a head symbol/);
   });
 
-  it('block sizes are ezdxf\'s bounding boxes, counts per layer are ezdxf\'s', () => {
+  it("block sizes are ezdxf's bounding boxes, counts per layer are ezdxf's", () => {
     for (const layer of report.layers) {
       for (const b of layer.blocks) if (b.name in truth.busy.blockSizes) expect(b.size).toBeCloseTo(truth.busy.blockSizes[b.name], 6);
       expect(layer.entities).toEqual(truth.busy.layers[layer.name] ?? {});
     }
   });
 
-  it('the heads are ezdxf\'s SPRK-UPRIGHT references, with their handles and positions', () => {
+  it("the heads are ezdxf's SPRK-UPRIGHT references, with their handles and positions", () => {
     const plan = planFromDrawing(drawing, parseSettings({}));
     const heads = byPlace(plan.heads);
     expect(heads.map((h) => h.handle)).toEqual(truth.busy.heads.map((h: { handle: string }) => h.handle));
-    truth.busy.heads.forEach((h: { x: number; y: number }, i: number) => expect(heads[i]!.position).toEqual({ x: h.x, y: h.y }));
+    truth.busy.heads.forEach((h: { x: number; y: number }, i: number) => {
+      expect(heads[i]!.position).toEqual({ x: h.x, y: h.y });
+    });
   });
 
   it('the starter config it writes runs the check unchanged, with the same roles', () => {
     const config = starterConfig(report, truth.busy.file);
-    expect(config).toMatchObject({ units: 'in', layers: { heads: ['FP-DEVICES'], pipes: ['FP-PIPE'], walls: ['A-WALL'], source: ['FP-SOURCE'] }, headBlocks: ['SPRK-UPRIGHT'] });
+    expect(config).toMatchObject({
+      units: 'in',
+      layers: { heads: ['FP-DEVICES'], pipes: ['FP-PIPE'], walls: ['A-WALL'], source: ['FP-SOURCE'] },
+      headBlocks: ['SPRK-UPRIGHT'],
+    });
     const r = checkText(readFileSync(`fixtures/${truth.busy.file}`, 'utf8'), JSON.parse(JSON.stringify(config)));
     expect(r.report.summary.heads).toBe(12);
     expect(r.report.input.layersUsed.heads).toEqual(['FP-DEVICES']);
@@ -80,7 +87,7 @@ describe('heads among furniture, light fixtures and dimension ticks', () => {
 });
 
 describe('a drawing that states no unit (R12)', () => {
-  it('layers works in drawing units: ezdxf reads no $INSUNITS, counts per layer are ezdxf\'s', () => {
+  it("layers works in drawing units: ezdxf reads no $INSUNITS, counts per layer are ezdxf's", () => {
     expect(truth.noUnit.insunits).toBeNull();
     const report = layersReport(bytes(truth.noUnit.file), parseSettings({}));
     expect(report.units).toBeNull();

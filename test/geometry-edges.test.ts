@@ -53,7 +53,32 @@ describe('geometry edge cases', () => {
 
   it('a room outline that crosses itself is read, and the check completes', () => {
     // a bow-tie over the layout, on the wall layer beside the real room
-    const bowTie = groups(0, 'LWPOLYLINE', 8, 'A-WALL', 90, 4, 70, 1, 10, 0, 20, 0, 10, 48 * IN, 20, 30 * IN, 10, 48 * IN, 20, 0, 10, 0, 20, 30 * IN);
+    const bowTie = groups(
+      0,
+      'LWPOLYLINE',
+      8,
+      'A-WALL',
+      90,
+      4,
+      70,
+      1,
+      10,
+      0,
+      20,
+      0,
+      10,
+      48 * IN,
+      20,
+      30 * IN,
+      10,
+      48 * IN,
+      20,
+      0,
+      10,
+      0,
+      20,
+      30 * IN,
+    );
     const r = checkText(withExtra(layoutDxf(spec), bowTie));
     expect(r.plan.rooms.length).toBe(2);
     expect(r.plan.heads).toHaveLength(12);

@@ -15,14 +15,23 @@ async function check(name: string, ...extra: string[]) {
   writeFileSync(file, HOSTILE[name]!.dxf());
   const err: string[] = [];
   const out: string[] = [];
-  const code = await main(['node', 'headcheck', 'check', file, '--no-config', ...extra], { out: (s) => out.push(s), err: (s) => err.push(s) });
+  const code = await main(['node', 'headcheck', 'check', file, '--no-config', ...extra], {
+    out: (s) => out.push(s),
+    err: (s) => err.push(s),
+  });
   return { code, err: err.join('\n'), out: out.join('\n') };
 }
 
 describe('blocks that multiply', () => {
   it.each([
-    ['polyline-block-array', /expand to 10000005 entities, over the limit of 1000000 \(inputLimits\.expandedEntities\): block "TILE" placed 1000000 times by one array on layer "A-WALL"/],
-    ['nested-fan-out', /expand to 211111115 entities, over the limit of 1000000 \(inputLimits\.expandedEntities\): block "L0" on layer "FP-PIPE" expands to 211111111 entities/],
+    [
+      'polyline-block-array',
+      /expand to 10000005 entities, over the limit of 1000000 \(inputLimits\.expandedEntities\): block "TILE" placed 1000000 times by one array on layer "A-WALL"/,
+    ],
+    [
+      'nested-fan-out',
+      /expand to 211111115 entities, over the limit of 1000000 \(inputLimits\.expandedEntities\): block "L0" on layer "FP-PIPE" expands to 211111111 entities/,
+    ],
     ['head-array-1000', /layer "FP-HEAD" places block "HEAD" 1000000 times, over the limit of 100000 heads \(inputLimits\.heads\)/],
   ])('%s: exit 2, one line naming the block and the count', async (name, message) => {
     const r = await check(name);

@@ -13,10 +13,15 @@ import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
 import { describeWith, hasCommand, launchChromium } from './support/external.js';
 import { headsDrawn } from './support/plan.js';
 
-
 describeWith('chromium', hasCommand('chromium'), 'HTML report in Chromium', () => {
   it('shows the plan, highlights a finding from its row, and loads nothing from outside', async () => {
-    const input = { bytes: new TextEncoder().encode(demoDrawing()), fileName: 'demo-plan.dxf', sha256: '', settings: parseSettings(DEMO_CONFIG), reportUnits: 'us' as const };
+    const input = {
+      bytes: new TextEncoder().encode(demoDrawing()),
+      fileName: 'demo-plan.dxf',
+      sha256: '',
+      settings: parseSettings(DEMO_CONFIG),
+      reportUnits: 'us' as const,
+    };
     const result = runCheck(input);
     const dir = mkdtempSync(join(tmpdir(), 'hc-html-'));
     const file = join(dir, 'report.html');
@@ -29,7 +34,9 @@ describeWith('chromium', hasCommand('chromium'), 'HTML report in Chromium', () =
       await page.goto(`file://${file}`);
       expect(await headsDrawn(page.locator('#plan'))).toBe(result.plan.heads.length);
       expect(await page.locator('#plan circle.marker').count()).toBe(result.findings.length);
-      expect(await headsDrawn(page.locator('#plan'), '.flowing')).toBe(result.design.areas.find((a) => a.rank === 'most-demanding')!.headIds.length);
+      expect(await headsDrawn(page.locator('#plan'), '.flowing')).toBe(
+        result.design.areas.find((a) => a.rank === 'most-demanding')!.headIds.length,
+      );
       const row = page.locator('tr[data-finding="0"]');
       await row.click();
       await expect.poll(() => page.locator('#plan circle.marker[data-finding="0"]').getAttribute('class')).toContain('hl');

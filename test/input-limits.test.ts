@@ -20,7 +20,9 @@ const layout = layoutDxf({ s: 12, l: 10, heads: 4, lines: 3 });
 
 describe('input limits', () => {
   it('entities: the file may hold at most inputLimits.entities entities, blocks included', () => {
-    expect(() => readDrawing(bytes(layout), { limits: limits({ entities: 10 }) })).toThrow(/more than 10 entities \(inputLimits\.entities\)/);
+    expect(() => readDrawing(bytes(layout), { limits: limits({ entities: 10 }) })).toThrow(
+      /more than 10 entities \(inputLimits\.entities\)/,
+    );
     expect(readDrawing(bytes(layout), { limits: limits({ entities: 1000 }) }).refs.length).toBeGreaterThan(10);
   });
 
@@ -29,17 +31,23 @@ describe('input limits', () => {
     w.text('NOTES', { x: 0, y: 0 }, 1, 'x'.repeat(300));
     const text = w.toString();
     const line = text.split('\n').findIndex((l) => l.startsWith('xxx')) + 1;
-    expect(() => readDrawing(bytes(text), { limits: limits({ textLength: 100 }) })).toThrow(new RegExp(`line ${line}: a value of 300 bytes.*inputLimits\\.textLength`));
+    expect(() => readDrawing(bytes(text), { limits: limits({ textLength: 100 }) })).toThrow(
+      new RegExp(`line ${line}: a value of 300 bytes.*inputLimits\\.textLength`),
+    );
     expect(() => readDrawing(bytes(text), { limits: limits({ textLength: 1000 }) })).not.toThrow();
   });
 
   it('fileMB: a larger drawing is refused before it is parsed', () => {
-    expect(() => readDrawing(bytes(layout), { limits: limits({ fileMB: 1 / 1024 }) })).toThrow(/larger than .* MiB \(inputLimits\.fileMB\)/);
+    expect(() => readDrawing(bytes(layout), { limits: limits({ fileMB: 1 / 1024 }) })).toThrow(
+      /larger than .* MiB \(inputLimits\.fileMB\)/,
+    );
   });
 
   it('networkNodes: the rebuilt piping may have at most inputLimits.networkNodes nodes', () => {
     expect(() => checkLayout({ s: 12, l: 10, heads: 4, lines: 3 }, { inputLimits: { networkNodes: 5 } })).toThrow(InputError);
-    expect(() => checkLayout({ s: 12, l: 10, heads: 4, lines: 3 }, { inputLimits: { networkNodes: 5 } })).toThrow(/over the limit of 5 \(inputLimits\.networkNodes\)/);
+    expect(() => checkLayout({ s: 12, l: 10, heads: 4, lines: 3 }, { inputLimits: { networkNodes: 5 } })).toThrow(
+      /over the limit of 5 \(inputLimits\.networkNodes\)/,
+    );
     expect(checkLayout({ s: 12, l: 10, heads: 4, lines: 3 }, { inputLimits: { networkNodes: 100 } }).plan.heads).toHaveLength(12);
   });
 
@@ -52,7 +60,9 @@ describe('input limits', () => {
 
 describe('input limits at the command line', () => {
   let dir: string;
-  beforeAll(() => { dir = mkdtempSync(join(tmpdir(), 'hc-limits-')); });
+  beforeAll(() => {
+    dir = mkdtempSync(join(tmpdir(), 'hc-limits-'));
+  });
 
   it('a file over inputLimits.fileMB is refused with exit 2 before it is read; raising the limit checks it', async () => {
     const drawing = join(dir, 'plan.dxf');
@@ -62,7 +72,9 @@ describe('input limits at the command line', () => {
     const err: string[] = [];
     const io = { out: () => undefined, err: (s: string) => err.push(s) };
     expect(await main(['node', 'headcheck', 'check', drawing, '--config', join(dir, 'small.json')], io)).toBe(2);
-    expect(err.join('\n')).toMatch(new RegExp(`^headcheck: ${drawing.replace(/[/\\.]/g, '\\$&')}: larger than 0.001 MiB \\(inputLimits\\.fileMB\\)$`));
+    expect(err.join('\n')).toMatch(
+      new RegExp(`^headcheck: ${drawing.replace(/[/\\.]/g, '\\$&')}: larger than 0.001 MiB \\(inputLimits\\.fileMB\\)$`),
+    );
     expect(await main(['node', 'headcheck', 'check', drawing, '--config', join(dir, 'large.json')], io)).not.toBe(2);
   });
 });

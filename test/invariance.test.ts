@@ -25,7 +25,9 @@ function signature(dxf: string) {
 
 function expectSame(a: ReturnType<typeof signature>, b: ReturnType<typeof signature>) {
   expect(a.map((x) => x.key)).toEqual(b.map((x) => x.key));
-  a.forEach((x, i) => expect(x.measured).toBeCloseTo(b[i]!.measured, 6));
+  a.forEach((x, i) => {
+    expect(x.measured).toBeCloseTo(b[i]!.measured, 6);
+  });
 }
 
 describe('invariance of the findings', () => {

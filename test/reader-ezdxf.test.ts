@@ -18,7 +18,7 @@ describe.each(['R12', 'R2000', 'R2018'])('ezdxf-written %s drawing', (version) =
   const plan = planFromDrawing(drawing, settings);
   const network = buildNetwork(plan, settings);
 
-  it('is a clean file by ezdxf\'s own audit (recorded when written)', () => {
+  it("is a clean file by ezdxf's own audit (recorded when written)", () => {
     expect(t.auditErrors).toBe(0);
     expect(drawing.version).toBe(t.acadver);
   });
@@ -47,7 +47,10 @@ describe.each(['R12', 'R2000', 'R2018'])('ezdxf-written %s drawing', (version) =
     expect(drawing.texts.map((x) => x.text)).toContain('2\u00bd"');
     // a note is no size label and is not read, unless its layer plays a role
     expect(drawing.texts.map((x) => x.text)).not.toContain('\u00d8 25 \u2013 Hinweis');
-    const notes = readDrawing(bytes, { layers: { ...settings.layers, designArea: ['A-ANNO-*'] }, ...(version === 'R12' ? { units: 'in' as const } : {}) });
+    const notes = readDrawing(bytes, {
+      layers: { ...settings.layers, designArea: ['A-ANNO-*'] },
+      ...(version === 'R12' ? { units: 'in' as const } : {}),
+    });
     expect(notes.texts.map((x) => x.text)).toContain('\u00d8 25 \u2013 Hinweis');
   });
 

@@ -134,10 +134,10 @@ describeWith('../shared/real-dxf (the real-drawing corpus)', existsSync(`${ROOT}
   it('every file, no config: one line, exit 0-2, within the limits, the recorded outcome', async () => {
     expectSound(await runCorpus(`${ROOT}/files`, { timeoutS: 90 }), PLAIN);
   }, 600_000);
-  it('with the corpus\'s unit configs', async () => {
+  it("with the corpus's unit configs", async () => {
     expectSound(await runCorpus(`${ROOT}/files`, { timeoutS: 90, configs: `${ROOT}/configs/units`, onlyWithConfig: true }), WITH_UNITS);
   }, 600_000);
-  it('with the corpus\'s role configs', async () => {
+  it("with the corpus's role configs", async () => {
     expectSound(await runCorpus(`${ROOT}/files`, { timeoutS: 90, configs: `${ROOT}/configs/roles`, onlyWithConfig: true }), WITH_ROLES);
   }, 600_000);
 });

@@ -7,16 +7,22 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isLoopback, serve, type Serving } from '../src/serve/server.js';
 
 let s: Serving;
-beforeAll(async () => { s = await serve(resolve('dist/web'), 0); });
+beforeAll(async () => {
+  s = await serve(resolve('dist/web'), 0);
+});
 afterAll(() => s.close());
 
-const statusWithHost = (host: string) => new Promise<number>((done, fail) => {
-  const u = new URL(s.url);
-  // no Host header at all for '' (HTTP/1.0 style)
-  const r = request({ host: u.hostname, port: u.port, path: '/', ...(host ? { headers: { host } } : { setHost: false }) }, (resp) => { resp.resume(); done(resp.statusCode ?? 0); });
-  r.on('error', fail);
-  r.end();
-});
+const statusWithHost = (host: string) =>
+  new Promise<number>((done, fail) => {
+    const u = new URL(s.url);
+    // no Host header at all for '' (HTTP/1.0 style)
+    const r = request({ host: u.hostname, port: u.port, path: '/', ...(host ? { headers: { host } } : { setHost: false }) }, (resp) => {
+      resp.resume();
+      done(resp.statusCode ?? 0);
+    });
+    r.on('error', fail);
+    r.end();
+  });
 
 describe('serve and the Host header', () => {
   it('answers to its own address and to localhost, refuses any other name', async () => {

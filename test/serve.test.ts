@@ -13,12 +13,14 @@ import { serve } from '../src/serve/server.js';
 import { describeWith, hasCommand, launchChromium } from './support/external.js';
 import { headsDrawn } from './support/plan.js';
 
-
 /** A raw request path, not normalised by a client. */
 function statusOf(url: string, rawPath: string): Promise<number> {
   const u = new URL(url);
   return new Promise((res, rej) => {
-    const r = request({ host: u.hostname, port: u.port, path: rawPath, method: 'GET' }, (resp) => { resp.resume(); res(resp.statusCode ?? 0); });
+    const r = request({ host: u.hostname, port: u.port, path: rawPath, method: 'GET' }, (resp) => {
+      resp.resume();
+      res(resp.statusCode ?? 0);
+    });
     r.on('error', rej);
     r.end();
   });
@@ -36,7 +38,9 @@ describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
       expect(await statusOf(s.url, '/assets/../../src/cli/main.ts')).toBe(404);
       const page = await browser.newPage();
       const outside: string[] = [];
-      page.on('request', (r) => { if (!r.url().startsWith(s.url) && !r.url().startsWith('blob:') && !r.url().startsWith('about:')) outside.push(r.url()); });
+      page.on('request', (r) => {
+        if (!r.url().startsWith(s.url) && !r.url().startsWith('blob:') && !r.url().startsWith('about:')) outside.push(r.url());
+      });
       await page.goto(s.url);
       await expect.poll(() => page.locator('#caution').textContent()).toMatch(/authority having jurisdiction/);
       const d = DEMO_CONFIG.design;
@@ -60,8 +64,23 @@ describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
       const html = await save('dl-html', 'page.html');
       // The CLI on the same file name and config writes the same bytes.
       writeFileSync(join(dir, 'demo-plan.config.json'), config);
-      const cli = spawnSync(process.execPath, [resolve('bin/headcheck.js'), 'check', 'demo-plan.dxf', '--config', 'demo-plan.config.json',
-        '--json', 'cli.json', '--dxf', 'cli.dxf', '--html', 'cli.html'], { cwd: dir, encoding: 'utf8' });
+      const cli = spawnSync(
+        process.execPath,
+        [
+          resolve('bin/headcheck.js'),
+          'check',
+          'demo-plan.dxf',
+          '--config',
+          'demo-plan.config.json',
+          '--json',
+          'cli.json',
+          '--dxf',
+          'cli.dxf',
+          '--html',
+          'cli.html',
+        ],
+        { cwd: dir, encoding: 'utf8' },
+      );
       expect(cli.status).toBe(1);
       expect(json.equals(readFileSync(join(dir, 'cli.json')))).toBe(true);
       expect(dxf.equals(readFileSync(join(dir, 'cli.dxf')))).toBe(true);

@@ -3,7 +3,10 @@
 
 import type { Hazard, Settings } from '../config/settings.js';
 
-interface Curve { start: [number, number]; end: [number, number] }
+interface Curve {
+  start: [number, number];
+  end: [number, number];
+}
 
 /**
  * Density/area curves, [area ft², density gpm/ft²], NFPA 13 (2019 edition), Figure 19.3.3.1.1. Start points
@@ -23,8 +26,11 @@ export const CURVES: Record<Hazard, Curve> = {
 
 /** Hose-stream allowance, gpm: LH 100, OH 250, EH 500 (confirmed); duration, min: LH 30, OH 60 (confirmed), EH 90 (from memory). */
 const HOSE: Record<Hazard, { gpm: number; minutes: number }> = {
-  LH: { gpm: 100, minutes: 30 }, OH1: { gpm: 250, minutes: 60 }, OH2: { gpm: 250, minutes: 60 },
-  EH1: { gpm: 500, minutes: 90 }, EH2: { gpm: 500, minutes: 90 },
+  LH: { gpm: 100, minutes: 30 },
+  OH1: { gpm: 250, minutes: 60 },
+  OH2: { gpm: 250, minutes: 60 },
+  EH1: { gpm: 500, minutes: 90 },
+  EH2: { gpm: 500, minutes: 90 },
 };
 
 /** Density on the curve at `area` (linear between its end points), or null outside them. */
@@ -60,8 +66,14 @@ export function designBasis(settings: Settings): DesignBasis {
   const curve = CURVES[d.hazard];
   let baseArea = d.area ?? curve.start[0];
   let density = d.density ?? curveDensity(d.hazard, baseArea) ?? curve.start[1];
-  const source = d.density !== undefined || d.area !== undefined ? 'config' : `the ${d.hazard} curve at its minimum area (NFPA 13 (2019 edition), Figure 19.3.3.1.1)`;
-  if (d.density === undefined && d.area === undefined) { baseArea = curve.start[0]; density = curve.start[1]; }
+  const source =
+    d.density !== undefined || d.area !== undefined
+      ? 'config'
+      : `the ${d.hazard} curve at its minimum area (NFPA 13 (2019 edition), Figure 19.3.3.1.1)`;
+  if (d.density === undefined && d.area === undefined) {
+    baseArea = curve.start[0];
+    density = curve.start[1];
+  }
   const adjustments: string[] = [];
   let area = baseArea;
   if (d.systemType !== 'wet') {
@@ -77,14 +89,25 @@ export function designBasis(settings: Settings): DesignBasis {
     if (d.systemType === 'wet' && hazardOk && d.ceilingHeight !== undefined && d.ceilingHeight <= 20) {
       const pct = quickResponseReduction(d.ceilingHeight);
       area = Math.max(area * (1 - pct / 100), Math.min(area, 768));
-      adjustments.push(`quick-response heads under a ${d.ceilingHeight} ft ceiling: area −${pct.toFixed(1)}% (from memory: NFPA 13 (2019 edition), 19.3.3.2.3; not below 768 ft²)`);
+      adjustments.push(
+        `quick-response heads under a ${d.ceilingHeight} ft ceiling: area −${pct.toFixed(1)}% (from memory: NFPA 13 (2019 edition), 19.3.3.2.3; not below 768 ft²)`,
+      );
     } else {
-      adjustments.push('quick-response reduction not applied (needs a wet system, light or ordinary hazard and design.ceilingHeight ≤ 20 ft)');
+      adjustments.push(
+        'quick-response reduction not applied (needs a wet system, light or ordinary hazard and design.ceilingHeight ≤ 20 ft)',
+      );
     }
   }
   const hose = HOSE[d.hazard];
   return {
-    hazard: d.hazard, density, area, baseArea, hoseAllowance: d.hoseAllowance ?? hose.gpm, durationMinutes: hose.minutes,
-    curveDensity: curveDensity(d.hazard, baseArea), adjustments, source,
+    hazard: d.hazard,
+    density,
+    area,
+    baseArea,
+    hoseAllowance: d.hoseAllowance ?? hose.gpm,
+    durationMinutes: hose.minutes,
+    curveDensity: curveDensity(d.hazard, baseArea),
+    adjustments,
+    source,
   };
 }

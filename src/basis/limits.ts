@@ -27,22 +27,30 @@ export interface Limits {
 export type LimitKey = 'maxArea' | 'maxSpacing' | 'maxWallDistance' | 'minWallDistance' | 'minHeadDistance';
 const LIMIT_KEYS: readonly LimitKey[] = ['maxArea', 'maxSpacing', 'maxWallDistance', 'minWallDistance', 'minHeadDistance'];
 
-interface Row { maxArea: number; maxSpacing: number; areaSource: string; spacingSource: string }
+interface Row {
+  maxArea: number;
+  maxSpacing: number;
+  areaSource: string;
+  spacingSource: string;
+}
 
 /** Standard-spray table rows per hazard group. */
 const TABLE: Record<HazardGroup, Row> = {
   LH: {
-    maxArea: 225, maxSpacing: 15,
+    maxArea: 225,
+    maxSpacing: 15,
     areaSource: `${EDITION}, Table 10.2.4.2.1(a): 225 ft² hydraulically calculated, noncombustible unobstructed (confirmed; 130 ft² for some combustible obstructed construction)`,
     spacingSource: `${EDITION}, Table 10.2.4.2.1(a): 15 ft (from memory)`,
   },
   OH: {
-    maxArea: 130, maxSpacing: 15,
+    maxArea: 130,
+    maxSpacing: 15,
     areaSource: `${EDITION}, Table 10.2.4.2.1(b): 130 ft² (confirmed)`,
     spacingSource: `${EDITION}, Table 10.2.4.2.1(b): 15 ft (from memory)`,
   },
   EH: {
-    maxArea: 100, maxSpacing: 12,
+    maxArea: 100,
+    maxSpacing: 12,
     areaSource: `${EDITION}, Table 10.2.4.2.1(c): 100 ft² hydraulically calculated (confirmed; 130 ft² where density < 0.25 gpm/ft²)`,
     spacingSource: `${EDITION}, Table 10.2.4.2.1(c): 12 ft (from memory)`,
   },

@@ -18,7 +18,10 @@ export interface BatchItem {
 }
 
 /** A file or link the batch saw and did not check, with the reason. */
-export interface Skipped { file: string; reason: string }
+export interface Skipped {
+  file: string;
+  reason: string;
+}
 
 /** The drawings of a batch, in a stable order, and what was passed over and why. */
 export function discoverDrawings(inputs: string[], outDir: string): { items: BatchItem[]; skipped: Skipped[] } {
@@ -70,9 +73,13 @@ function walk(dir: string, o: { skip: string; root: string; visited: Set<string>
     let isFile = e.isFile();
     if (e.isSymbolicLink()) {
       const target = realOrSelf(p);
-      if (target === p || !existsSync(target)) { o.skipped.push({ file: p, reason: 'a symbolic link to nothing' }); continue; }
+      if (target === p || !existsSync(target)) {
+        o.skipped.push({ file: p, reason: 'a symbolic link to nothing' });
+        continue;
+      }
       if (target !== o.root && !target.startsWith(`${o.root}${sep}`)) {
-        if (isDrawingName(e.name) || statSync(target).isDirectory()) o.skipped.push({ file: p, reason: `a symbolic link out of the batch folder (to ${target}): not followed` });
+        if (isDrawingName(e.name) || statSync(target).isDirectory())
+          o.skipped.push({ file: p, reason: `a symbolic link out of the batch folder (to ${target}): not followed` });
         continue;
       }
       isDir = statSync(target).isDirectory();
@@ -96,6 +103,11 @@ const isBatchOutput = (dir: string) => existsSync(join(dir, '.results')) && exis
 
 /** `a/b/plan.dxf` → `a_b_plan-1f3e2a9c`: the relative path made safe for a file name, plus a hash of the full path. */
 export function outputName(rel: string, abs: string): string {
-  const readable = rel.replace(/\.dxf$/i, '').replace(/[^A-Za-z0-9._-]+/g, '_').replace(/^[._]+/, '').slice(0, 80) || 'drawing';
+  const readable =
+    rel
+      .replace(/\.dxf$/i, '')
+      .replace(/[^A-Za-z0-9._-]+/g, '_')
+      .replace(/^[._]+/, '')
+      .slice(0, 80) || 'drawing';
   return `${readable}-${createHash('sha256').update(abs).digest('hex').slice(0, 8)}`;
 }

@@ -37,11 +37,18 @@ export interface BatchOptions {
   progress: (line: string, final: boolean) => void;
 }
 
-export interface BatchOutcome { rows: BatchRow[]; reused: number; exitCode: number }
+export interface BatchOutcome {
+  rows: BatchRow[];
+  reused: number;
+  exitCode: number;
+}
 
 const sha = (data: string | Uint8Array) => createHash('sha256').update(data).digest('hex');
 
-interface Cached { key: string; row: BatchRow }
+interface Cached {
+  key: string;
+  row: BatchRow;
+}
 
 /**
  * How much bytecode a function runs before V8 optimizes it, raised from V8's default (132 KiB) when several
@@ -65,11 +72,20 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
     const config = findConfig(item.file, { root: item.root, ...(o.config ? { fallback: o.config } : {}) })?.path;
     // The config and the file's size are checked here, before the file is read whole to be hashed.
     const refused = refusal(item, config);
-    if (refused) { rows[i] = errorRow(item, config, refused); return; }
-    const key = sha(JSON.stringify({
-      tool: TOOL.version, file: sha(readFileSync(item.file)), config: config ? sha(readFileSync(config)) : null, units: o.units,
-      drawingUnits: o.drawingUnits ?? null, outputs: o.outputs,
-    }));
+    if (refused) {
+      rows[i] = errorRow(item, config, refused);
+      return;
+    }
+    const key = sha(
+      JSON.stringify({
+        tool: TOOL.version,
+        file: sha(readFileSync(item.file)),
+        config: config ? sha(readFileSync(config)) : null,
+        units: o.units,
+        drawingUnits: o.drawingUnits ?? null,
+        outputs: o.outputs,
+      }),
+    );
     const cacheFile = join(resultsDir, `${item.name}.json`);
     if (!o.force && existsSync(cacheFile)) {
       try {
@@ -88,13 +104,21 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
 
   if (o.workers > 1) setFlagsFromString(`--interrupt-budget=${TIER_UP_BUDGET}`);
   const slots = Math.max(1, Math.min(o.workers, todo.length));
-  const pool = new Piscina({ filename: o.workerFile, maxThreads: slots, minThreads: slots, resourceLimits: { maxOldGenerationSizeMb: o.memoryLimit } });
+  const pool = new Piscina({
+    filename: o.workerFile,
+    maxThreads: slots,
+    minThreads: slots,
+    resourceLimits: { maxOldGenerationSizeMb: o.memoryLimit },
+  });
   const started = performance.now();
   let done = 0;
   let failed = rows.filter((r) => r?.status === 'error').length;
   const report = (final: boolean) => {
     const s = (performance.now() - started) / 1000;
-    o.progress(`${done + reused}/${items.length} drawings, ${failed} could not be checked, ${s.toFixed(1)} s, ${(done / Math.max(s, 1e-3)).toFixed(1)}/s${reused ? `, ${reused} reused` : ''}`, final);
+    o.progress(
+      `${done + reused}/${items.length} drawings, ${failed} could not be checked, ${s.toFixed(1)} s, ${(done / Math.max(s, 1e-3)).toFixed(1)}/s${reused ? `, ${reused} reused` : ''}`,
+      final,
+    );
   };
   // Largest drawings first (longest-processing-time order), so no long job starts last and leaves a core idle;
   // rows keep the stable order of discovery. No more drawings are handed to the pool than it has threads, so a
@@ -109,7 +133,8 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
       if (row.status === 'error') failed++;
       // Each checked drawing is kept at once, so an interrupted run resumes where it stopped; a drawing that could
       // not be checked is tried again next time (a time limit or a full disk may not recur).
-      if (row.status !== 'error') await writeAllAtomically([{ path: join(resultsDir, `${item.name}.json`), data: JSON.stringify({ key, row } satisfies Cached) }]);
+      if (row.status !== 'error')
+        await writeAllAtomically([{ path: join(resultsDir, `${item.name}.json`), data: JSON.stringify({ key, row } satisfies Cached) }]);
       report(false);
     }
   };
@@ -144,15 +169,25 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
 
 /** One drawing in a worker of the pool, under the time limit from its start; a worker's failure becomes its row. */
 async function checkInWorker(pool: Piscina, o: BatchOptions, item: BatchItem, config: string | undefined): Promise<BatchRow> {
-  const task: BatchTask = { file: item.file, name: item.name, config: config ?? null, drawingUnits: o.drawingUnits ?? null, outDir: o.out, outputs: o.outputs, units: o.units };
+  const task: BatchTask = {
+    file: item.file,
+    name: item.name,
+    config: config ?? null,
+    drawingUnits: o.drawingUnits ?? null,
+    outDir: o.out,
+    outputs: o.outputs,
+    units: o.units,
+  };
   const abort = new AbortController();
   const timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);
   try {
     return (await pool.run(task, { signal: abort.signal })) as BatchRow;
   } catch (err) {
     const code = (err as { code?: string }).code;
-    const why = abort.signal.aborted ? `timed out after ${o.timeLimit} s`
-      : code === 'ERR_WORKER_OUT_OF_MEMORY' ? `ran out of memory (limit ${o.memoryLimit} MB)`
+    const why = abort.signal.aborted
+      ? `timed out after ${o.timeLimit} s`
+      : code === 'ERR_WORKER_OUT_OF_MEMORY'
+        ? `ran out of memory (limit ${o.memoryLimit} MB)`
         : `worker failed: ${err instanceof Error ? err.message : String(err)}`;
     return errorRow(item, config, why);
   } finally {
@@ -160,7 +195,10 @@ async function checkInWorker(pool: Piscina, o: BatchOptions, item: BatchItem, co
   }
 }
 
-const errorRow = (item: BatchItem, config: string | undefined, message: string): BatchRow => ({ ...emptyRow(item.file, item.name, config ?? null), message });
+const errorRow = (item: BatchItem, config: string | undefined, message: string): BatchRow => ({
+  ...emptyRow(item.file, item.name, config ?? null),
+  message,
+});
 
 /** Creates a folder (and its parents), or says in one line why it cannot be. */
 function makeFolder(dir: string): void {

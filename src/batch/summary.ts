@@ -19,8 +19,24 @@ const csvCell = (v: unknown) => {
 };
 
 export function summaryCsv(rows: BatchRow[]): string {
-  const head = ['file', 'status', 'heads', 'errors', 'warnings', 'demand_pressure', 'demand_flow_with_hose', 'supply_margin', 'config', 'message', 'ms'];
-  const lines = rows.map((r) => [r.file, r.status, r.heads, r.errors, r.warnings, r.demandPressure, r.demandFlow, r.margin, r.config, r.message, r.ms].map(csvCell).join(','));
+  const head = [
+    'file',
+    'status',
+    'heads',
+    'errors',
+    'warnings',
+    'demand_pressure',
+    'demand_flow_with_hose',
+    'supply_margin',
+    'config',
+    'message',
+    'ms',
+  ];
+  const lines = rows.map((r) =>
+    [r.file, r.status, r.heads, r.errors, r.warnings, r.demandPressure, r.demandFlow, r.margin, r.config, r.message, r.ms]
+      .map(csvCell)
+      .join(','),
+  );
   // The caution closes the table as a row of its own: file "caution", the text where a row's message goes.
   const caution = ['caution', '', '', '', '', '', '', '', '', CAUTION, ''].map(csvCell).join(',');
   return `${head.join(',')}\n${[...lines, caution].join('\n')}\n`;
@@ -30,8 +46,10 @@ export function summaryHtml(rows: BatchRow[], units: ReportUnits): string {
   const body = worstFirst(rows).map((r) => {
     const link = r.outputs.find((o) => o.endsWith('.html'));
     const name = link ? `<a href="${esc(encodeURI(link))}">${esc(r.file)}</a>` : esc(r.file);
-    return `<tr class="${r.status}"><td>${r.status.toUpperCase()}</td><td>${name}</td><td>${r.heads ?? ''}</td><td>${r.errors ?? ''}</td><td>${r.warnings ?? ''}</td>` +
-      `<td>${r.demandPressure ?? ''}</td><td>${r.demandFlow ?? ''}</td><td>${r.margin ?? ''}</td><td>${esc(r.message ?? '')}</td></tr>`;
+    return (
+      `<tr class="${r.status}"><td>${r.status.toUpperCase()}</td><td>${name}</td><td>${r.heads ?? ''}</td><td>${r.errors ?? ''}</td><td>${r.warnings ?? ''}</td>` +
+      `<td>${r.demandPressure ?? ''}</td><td>${r.demandFlow ?? ''}</td><td>${r.margin ?? ''}</td><td>${esc(r.message ?? '')}</td></tr>`
+    );
   });
   const count = (s: BatchRow['status']) => rows.filter((r) => r.status === s).length;
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">

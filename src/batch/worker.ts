@@ -41,8 +41,19 @@ export interface BatchRow {
 
 /** A row that says nothing yet: status error until the drawing is checked. */
 export const emptyRow = (file: string, name: string, config: string | null): BatchRow => ({
-  file, name, config, status: 'error', heads: null, errors: null, warnings: null, demandPressure: null, demandFlow: null, margin: null,
-  message: null, ms: 0, outputs: [],
+  file,
+  name,
+  config,
+  status: 'error',
+  heads: null,
+  errors: null,
+  warnings: null,
+  demandPressure: null,
+  demandFlow: null,
+  margin: null,
+  message: null,
+  ms: 0,
+  outputs: [],
 });
 
 export default async function checkOne(task: BatchTask): Promise<BatchRow> {
@@ -53,19 +64,37 @@ export default async function checkOne(task: BatchTask): Promise<BatchRow> {
     if (task.drawingUnits) settings.units = task.drawingUnits;
     const bytes = readInputFile(task.file, settings.inputLimits.fileMB);
     const onStage = collectBetweenStages(bytes.length);
-    const input = { bytes, fileName: task.file, sha256: sha256Hex(bytes), settings, reportUnits: task.units, ...(onStage ? { onStage } : {}) };
+    const input = {
+      bytes,
+      fileName: task.file,
+      sha256: sha256Hex(bytes),
+      settings,
+      reportUnits: task.units,
+      ...(onStage ? { onStage } : {}),
+    };
     const result = runCheck(input);
-    const files = FORMAT_NAMES.filter((f) => task.outputs[f]).map((f) => ({ path: join(task.outDir, `${task.name}${FORMATS[f].extension}`), data: () => FORMATS[f].make(result) }));
+    const files = FORMAT_NAMES.filter((f) => task.outputs[f]).map((f) => ({
+      path: join(task.outDir, `${task.name}${FORMATS[f].extension}`),
+      data: () => FORMATS[f].make(result),
+    }));
     await writeAllAtomically(files);
     const s = result.report.summary;
     const best = result.report.designAreas.find((a) => a.rank === 'most-demanding')?.hydraulics;
     Object.assign(row, {
-      status: s.pass ? 'pass' : 'fail', heads: s.heads, errors: s.errors, warnings: s.warnings,
-      demandPressure: best?.sourcePressure ?? null, demandFlow: best?.totalDemand ?? null, margin: best?.margin ?? null,
+      status: s.pass ? 'pass' : 'fail',
+      heads: s.heads,
+      errors: s.errors,
+      warnings: s.warnings,
+      demandPressure: best?.sourcePressure ?? null,
+      demandFlow: best?.totalDemand ?? null,
+      margin: best?.margin ?? null,
       outputs: files.map((f) => f.path.slice(task.outDir.length + 1)),
     });
   } catch (err) {
-    row.message = err instanceof InputError ? err.message.replace(`${task.file}: `, '') : `internal error: ${err instanceof Error ? err.message : String(err)}`;
+    row.message =
+      err instanceof InputError
+        ? err.message.replace(`${task.file}: `, '')
+        : `internal error: ${err instanceof Error ? err.message : String(err)}`;
   }
   row.ms = Math.round(performance.now() - t0);
   return row;

@@ -22,15 +22,31 @@ export interface OutputFormat {
 
 export const FORMATS = {
   json: {
-    description: 'the JSON report', extension: '.json', mediaType: 'application/json',
+    description: 'the JSON report',
+    extension: '.json',
+    mediaType: 'application/json',
     make: (r) => `${JSON.stringify(r.report, null, 2)}\n`,
   },
   dxf: {
-    description: 'the annotated drawing (DXF)', extension: '.annotated.dxf', mediaType: 'application/dxf',
+    description: 'the annotated drawing (DXF)',
+    extension: '.annotated.dxf',
+    mediaType: 'application/dxf',
     // In pieces, most of them views of the input's bytes.
-    make: (r) => annotateDxf(r.bytes, r.drawing.version, r.drawing.units, buildAnnotations({
-      fileName: r.fileName, plan: r.plan, network: r.network, design: r.design, findings: r.findings, edition: r.limits.edition, fmt: formatterFor(r.reportUnits),
-    })),
+    make: (r) =>
+      annotateDxf(
+        r.bytes,
+        r.drawing.version,
+        r.drawing.units,
+        buildAnnotations({
+          fileName: r.fileName,
+          plan: r.plan,
+          network: r.network,
+          design: r.design,
+          findings: r.findings,
+          edition: r.limits.edition,
+          fmt: formatterFor(r.reportUnits),
+        }),
+      ),
   },
   html: { description: 'the HTML report', extension: '.html', mediaType: 'text/html', make: (r) => htmlReport(r) },
 } satisfies Record<string, OutputFormat>;

@@ -44,7 +44,9 @@ export function runCheck(input: CheckInput): CheckResult {
   if (plan.heads.length === 0) fail(noHeads(drawing, settings));
   if (plan.sources.length === 0) {
     const layers = plan.roles.source.layers.length ? plan.roles.source.layers.join(', ') : 'none chosen';
-    fail(`no water source found (source layers: ${layers}; heads taken from ${plan.roles.heads.layers.join(', ')}); draw the riser as a block or point and set "layers.source"`);
+    fail(
+      `no water source found (source layers: ${layers}; heads taken from ${plan.roles.heads.layers.join(', ')}); draw the riser as a block or point and set "layers.source"`,
+    );
   }
   const network = stage('network', buildNetwork(plan, settings));
   const walls = indexWalls(plan.rooms, plan.walls);
@@ -53,7 +55,20 @@ export function runCheck(input: CheckInput): CheckResult {
   const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings, walls.roomOf));
   const findings = stage('rules', runRules({ drawing, plan, network, settings, limits, coverage, walls, design }));
   const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
-  return { bytes: input.bytes, fileName: input.fileName, settings, reportUnits: input.reportUnits, drawing, plan, network, coverage, limits, design, findings, report };
+  return {
+    bytes: input.bytes,
+    fileName: input.fileName,
+    settings,
+    reportUnits: input.reportUnits,
+    drawing,
+    plan,
+    network,
+    coverage,
+    limits,
+    design,
+    findings,
+    report,
+  };
 }
 
 /** Why no head was found, naming what was seen and the config keys to set: one line. */
@@ -61,11 +76,17 @@ function noHeads(drawing: DrawingFacts, settings: Settings): string {
   const { heads } = drawing.roles;
   const keys = 'set "layers.heads" and "headBlocks" in the config (headcheck layers lists every layer)';
   if (heads.layers.length) {
-    const placed = drawing.layers.filter((l) => heads.layers.includes(l.name)).flatMap((l) => Object.entries(l.blockRefs).map(([b, n]) => `${b} ×${n}`));
-    return `no sprinkler heads found: the head layers (${heads.layers.join(', ')}) hold no block matching headBlocks ${JSON.stringify(settings.headBlocks)}` +
-      ` nor circles${placed.length ? `; blocks there: ${placed.slice(0, 5).join(', ')}` : ''}; ${keys}`;
+    const placed = drawing.layers
+      .filter((l) => heads.layers.includes(l.name))
+      .flatMap((l) => Object.entries(l.blockRefs).map(([b, n]) => `${b} ×${n}`));
+    return (
+      `no sprinkler heads found: the head layers (${heads.layers.join(', ')}) hold no block matching headBlocks ${JSON.stringify(settings.headBlocks)}` +
+      ` nor circles${placed.length ? `; blocks there: ${placed.slice(0, 5).join(', ')}` : ''}; ${keys}`
+    );
   }
-  const seen = drawing.headCandidates.slice(0, 3).map((c) => `${c.layer}: ${c.block === null ? 'circles' : c.block} ×${c.count} (${c.why})`);
+  const seen = drawing.headCandidates
+    .slice(0, 3)
+    .map((c) => `${c.layer}: ${c.block === null ? 'circles' : c.block} ×${c.count} (${c.why})`);
   return `no sprinkler heads found: no layer holds symbols that look like heads${seen.length ? `; seen: ${seen.join('; ')}` : ' (no layer holds three or more alike symbols)'}; ${keys}`;
 }
 
@@ -75,7 +96,14 @@ function noHeads(drawing: DrawingFacts, settings: Settings): string {
  */
 function planOf(input: CheckInput, stage: <T>(name: string, value: T) => T): { drawing: DrawingFacts; plan: Plan } {
   const { settings } = input;
-  const read: Drawing = stage('read', readDrawing(input.bytes, { layers: settings.layers, limits: settings.inputLimits, ...(settings.units ? { units: settings.units } : {}) }));
+  const read: Drawing = stage(
+    'read',
+    readDrawing(input.bytes, {
+      layers: settings.layers,
+      limits: settings.inputLimits,
+      ...(settings.units ? { units: settings.units } : {}),
+    }),
+  );
   const plan = stage('plan', planFromDrawing(read, settings));
   const { version, units, unitsFrom, headerUnits, encoding, handseed, layers, roles, headCandidates } = read;
   return { drawing: { version, units, unitsFrom, headerUnits, encoding, handseed, layers, roles, headCandidates }, plan };

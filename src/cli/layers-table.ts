@@ -31,7 +31,11 @@ export interface LayersReport {
 const BLOCKS_SHOWN = 8;
 
 export function layersReport(bytes: Uint8Array, settings: Settings): LayersReport {
-  const inspection = inspectDrawing(bytes, { layers: settings.layers, limits: settings.inputLimits, ...(settings.units ? { units: settings.units } : {}) });
+  const inspection = inspectDrawing(bytes, {
+    layers: settings.layers,
+    limits: settings.inputLimits,
+    ...(settings.units ? { units: settings.units } : {}),
+  });
   return reportOf(inspection);
 }
 
@@ -40,18 +44,24 @@ function reportOf(x: Inspection): LayersReport {
   for (const role of LAYER_ROLES) for (const l of x.roles[role].layers) roleOf.set(l, role);
   const inchesPerUnit = x.units ? FEET_PER_UNIT[x.units] * 12 : null;
   const layers = x.layers.map((l): LayerRow => {
-    const blocks = Object.entries(l.blockRefs).sort((a, b) => b[1] - a[1]).slice(0, BLOCKS_SHOWN).map(([name, count]) => {
-      const size = x.evidence.block(name).size;
-      return { name, count, size, sizeInches: size !== null && inchesPerUnit !== null ? round(size * inchesPerUnit) : null };
-    });
+    const blocks = Object.entries(l.blockRefs)
+      .sort((a, b) => b[1] - a[1])
+      .slice(0, BLOCKS_SHOWN)
+      .map(([name, count]) => {
+        const size = x.evidence.block(name).size;
+        return { name, count, size, sizeInches: size !== null && inchesPerUnit !== null ? round(size * inchesPerUnit) : null };
+      });
     const tags = [...new Set(blocks.flatMap((b) => x.evidence.block(b.name).tags))].sort();
     const role = roleOf.get(l.name) ?? null;
     return { name: l.name, entities: l.counts, blocks, tags, role, reason: role ? x.roles[role].reason : null };
   });
   return {
     drawing: { format: x.source.format.toUpperCase(), version: x.source.header.version, encoding: x.source.encoding },
-    units: x.units, layers,
-    roles: Object.fromEntries(LAYER_ROLES.map((r) => [r, { layers: x.roles[r].layers, from: x.roles[r].from, reason: x.roles[r].reason }])) as LayersReport['roles'],
+    units: x.units,
+    layers,
+    roles: Object.fromEntries(
+      LAYER_ROLES.map((r) => [r, { layers: x.roles[r].layers, from: x.roles[r].from, reason: x.roles[r].reason }]),
+    ) as LayersReport['roles'],
     headBlocks: x.roles.heads.from === 'guess' ? (x.roles.heads.blocks ?? []) : [],
     headCandidates: x.headCandidates,
   };
@@ -61,23 +71,41 @@ const round = (v: number) => Math.round(v * 100) / 100;
 
 /** The report as text for a terminal: a table of layers, the roles and why, the head symbols turned down. */
 export function layersText(r: LayersReport): string {
-  const sized = (size: number | null, inches: number | null) => (inches !== null ? `${fmt(inches)} in` : size !== null ? `${fmt(size)} units` : 'empty');
+  const sized = (size: number | null, inches: number | null) =>
+    inches !== null ? `${fmt(inches)} in` : size !== null ? `${fmt(size)} units` : 'empty';
   const rows = r.layers.map((l) => [
-    l.name, l.role ?? '-',
-    Object.entries(l.entities).sort(([a], [b]) => a.localeCompare(b)).map(([t, n]) => `${t} ${n}`).join(', ') || '(empty)',
+    l.name,
+    l.role ?? '-',
+    Object.entries(l.entities)
+      .sort(([a], [b]) => a.localeCompare(b))
+      .map(([t, n]) => `${t} ${n}`)
+      .join(', ') || '(empty)',
     l.blocks.map((b) => `${b.name} ×${b.count} (${sized(b.size, b.sizeInches)})`).join(', '),
     l.tags.join(', '),
   ]);
   const header = ['layer', 'role', 'entities', 'blocks (placed × size across)', 'tags'];
   const width = header.map((h, i) => Math.max(h.length, ...rows.map((row) => row[i]!.length)));
-  const line = (row: string[]) => row.map((c, i) => (i === row.length - 1 ? c : c.padEnd(width[i]!))).join('  ').trimEnd();
+  const line = (row: string[]) =>
+    row
+      .map((c, i) => (i === row.length - 1 ? c : c.padEnd(width[i]!)))
+      .join('  ')
+      .trimEnd();
   const unit = r.units ? `units ${r.units}` : 'no unit stated (sizes in drawing units; give one with --drawing-units or "units")';
   const turnedDown = r.headCandidates.filter((c) => !c.taken);
   return [
     `drawing: ${r.drawing.format} ${r.drawing.version}, ${unit}, encoding ${r.drawing.encoding}`,
-    line(header), ...rows.map(line),
-    'roles:', ...LAYER_ROLES.map((role) => `  ${role}: ${r.roles[role].layers.join(', ') || '(none)'} (${r.roles[role].from}: ${r.roles[role].reason})`),
-    ...(turnedDown.length ? ['not taken as heads:', ...turnedDown.map((c) => `  ${c.layer}: ${c.block === null ? 'circles' : `block ${c.block}`} ×${c.count}: ${c.why}`)] : []),
+    line(header),
+    ...rows.map(line),
+    'roles:',
+    ...LAYER_ROLES.map(
+      (role) => `  ${role}: ${r.roles[role].layers.join(', ') || '(none)'} (${r.roles[role].from}: ${r.roles[role].reason})`,
+    ),
+    ...(turnedDown.length
+      ? [
+          'not taken as heads:',
+          ...turnedDown.map((c) => `  ${c.layer}: ${c.block === null ? 'circles' : `block ${c.block}`} ×${c.count}: ${c.why}`),
+        ]
+      : []),
   ].join('\n');
 }
 
@@ -88,7 +116,8 @@ export function starterConfig(r: LayersReport, drawing: string): Record<string, 
   const layers = Object.fromEntries(LAYER_ROLES.filter((role) => r.roles[role].layers.length).map((role) => [role, r.roles[role].layers]));
   const { headBlocks } = r;
   return {
-    comment: `written by headcheck layers from ${drawing.split(/[\\/]/).pop()}: check each role before relying on it` +
+    comment:
+      `written by headcheck layers from ${drawing.split(/[\\/]/).pop()}: check each role before relying on it` +
       (r.units ? '' : '; the drawing states no unit: add "units" (in, ft, mm, cm or m)'),
     ...(r.units ? { units: r.units } : {}),
     layers,

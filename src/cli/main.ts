@@ -80,7 +80,10 @@ function withFile<T>(file: string, fn: () => T): T {
   }
 }
 
-export async function main(argv: string[], io = { out: (s: string) => process.stdout.write(`${s}\n`), err: (s: string) => process.stderr.write(`${s}\n`) }): Promise<number> {
+export async function main(
+  argv: string[],
+  io = { out: (s: string) => process.stdout.write(`${s}\n`), err: (s: string) => process.stderr.write(`${s}\n`) },
+): Promise<number> {
   let code = 0;
   const program = new Command()
     .name('headcheck')
@@ -90,18 +93,22 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .configureOutput({ writeOut: (s) => io.out(s.trimEnd()), writeErr: (s) => io.err(s.trimEnd()) });
   const unitsOption = () => new Option('--units <system>', 'units of the report').choices(['us', 'si']).default('us');
 
-  const drawingUnitsOption = () => new Option('--drawing-units <unit>', "the drawing's length unit (over the config's and the drawing header's)").choices(LENGTH_UNITS);
-  const configOptions = (cmd: Command) => cmd
-    .option('--config <file>', 'config JSON (default: DRAWING.config.json beside it, else headcheck.json in its folder or a parent)')
-    .option('--no-config', 'use no config file, only the defaults')
-    .addOption(drawingUnitsOption());
+  const drawingUnitsOption = () =>
+    new Option('--drawing-units <unit>', "the drawing's length unit (over the config's and the drawing header's)").choices(LENGTH_UNITS);
+  const configOptions = (cmd: Command) =>
+    cmd
+      .option('--config <file>', 'config JSON (default: DRAWING.config.json beside it, else headcheck.json in its folder or a parent)')
+      .option('--no-config', 'use no config file, only the defaults')
+      .addOption(drawingUnitsOption());
 
   const check = configOptions(program.command('check <drawing>').description('audit one drawing'));
   for (const f of FORMAT_NAMES) check.option(`--${f} <file>`, `write ${FORMATS[f].description}`);
-  check.addOption(unitsOption())
-    .action(async (drawing: string, opts: CheckOptions) => { code = await checkCommand(drawing, opts, io); });
+  check.addOption(unitsOption()).action(async (drawing: string, opts: CheckOptions) => {
+    code = await checkCommand(drawing, opts, io);
+  });
 
-  const batch = program.command('batch <inputs...>')
+  const batch = program
+    .command('batch <inputs...>')
     .description('audit many drawings (folders are searched for .dxf files); one bad file never stops the rest')
     .requiredOption('--out <dir>', 'folder for the reports and summaries')
     .option('--config <file>', 'config JSON for drawings without their own')
@@ -113,32 +120,39 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
     .option('--force', 'check every drawing again, even unchanged ones');
   for (const f of FORMAT_NAMES) batch.option(`--no-${f}`, `skip ${FORMATS[f].description} of each drawing`);
   batch.action(async (inputs: string[], opts: BatchCliOptions) => {
-      const positive = (v: string, name: string) => {
-        const n = Number(v);
-        if (!Number.isFinite(n) || n <= 0) throw new InputError(`${name}: must be a positive number, not "${v}"`);
-        return n;
-      };
-      const tty = process.stderr.isTTY === true;
-      // The batch, server and demo modules load only for their command: a check's memory peak grows with the
-      // code loaded (V8 sizes the heap by what is live), and the worker pool alone is several MB.
-      const { runBatch } = await import('../batch/run-batch.js');
-      // The main thread waits on the workers: an interrupt takes their temporary files with it.
-      cleanUpOnSignals();
-      const outcome = await runBatch({
-        inputs, out: opts.out, ...(opts.config ? { config: opts.config } : {}), ...(opts.drawingUnits ? { drawingUnits: opts.drawingUnits } : {}), units: opts.units,
-        outputs: Object.fromEntries(FORMAT_NAMES.map((f) => [f, opts[f] !== false])) as Record<FormatName, boolean>,
-        workers: Math.floor(positive(opts.workers, '--workers')), timeLimit: positive(opts.timeLimit, '--time-limit'),
-        memoryLimit: positive(opts.memoryLimit, '--memory-limit'), force: opts.force === true,
-        workerFile: fileURLToPath(new URL('../batch/worker.js', import.meta.url)),
-        progress: (line, final) => (tty ? process.stderr.write(`\r${line.padEnd(79)}${final ? '\n' : ''}`) : io.err(line)),
-      });
-      const count = (st: string) => outcome.rows.filter((r) => r.status === st).length;
-      io.out(`batch: ${outcome.rows.length} drawings: ${count('pass')} pass, ${count('fail')} fail, ${count('error')} could not be checked; summary in ${join(opts.out, 'index.html')}`);
-      code = outcome.exitCode;
+    const positive = (v: string, name: string) => {
+      const n = Number(v);
+      if (!Number.isFinite(n) || n <= 0) throw new InputError(`${name}: must be a positive number, not "${v}"`);
+      return n;
+    };
+    const tty = process.stderr.isTTY === true;
+    // The batch, server and demo modules load only for their command: a check's memory peak grows with the
+    // code loaded (V8 sizes the heap by what is live), and the worker pool alone is several MB.
+    const { runBatch } = await import('../batch/run-batch.js');
+    // The main thread waits on the workers: an interrupt takes their temporary files with it.
+    cleanUpOnSignals();
+    const outcome = await runBatch({
+      inputs,
+      out: opts.out,
+      ...(opts.config ? { config: opts.config } : {}),
+      ...(opts.drawingUnits ? { drawingUnits: opts.drawingUnits } : {}),
+      units: opts.units,
+      outputs: Object.fromEntries(FORMAT_NAMES.map((f) => [f, opts[f] !== false])) as Record<FormatName, boolean>,
+      workers: Math.floor(positive(opts.workers, '--workers')),
+      timeLimit: positive(opts.timeLimit, '--time-limit'),
+      memoryLimit: positive(opts.memoryLimit, '--memory-limit'),
+      force: opts.force === true,
+      workerFile: fileURLToPath(new URL('../batch/worker.js', import.meta.url)),
+      progress: (line, final) => (tty ? process.stderr.write(`\r${line.padEnd(79)}${final ? '\n' : ''}`) : io.err(line)),
     });
+    const count = (st: string) => outcome.rows.filter((r) => r.status === st).length;
+    io.out(
+      `batch: ${outcome.rows.length} drawings: ${count('pass')} pass, ${count('fail')} fail, ${count('error')} could not be checked; summary in ${join(opts.out, 'index.html')}`,
+    );
+    code = outcome.exitCode;
+  });
 
-  configOptions(program.command('layers <drawing>')
-    .description('list layers: what each holds, the role the tool would give it and why'))
+  configOptions(program.command('layers <drawing>').description('list layers: what each holds, the role the tool would give it and why'))
     .option('--json <file>', 'write the same as JSON')
     .option('--config-out <file>', 'write a starter config with the roles chosen (check --config accepts it)')
     .action(async (drawing: string, opts: DrawingOptions & { json?: string; configOut?: string }) => {
@@ -153,7 +167,8 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       io.out(layersText(report));
     });
 
-  program.command('serve')
+  program
+    .command('serve')
     .description('local page: drop a drawing in, see the plan and the findings, download the outputs')
     .option('--port <n>', 'port (0: any free one)', '8377')
     .option('--host <address>', 'address to listen on', '127.0.0.1')
@@ -161,13 +176,19 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
       const port = Number(opts.port);
       if (!Number.isInteger(port) || port < 0 || port > 65535) throw new InputError(`--port: must be a port number, not "${opts.port}"`);
       const { isLoopback, serve } = await import('../serve/server.js');
-      if (!isLoopback(opts.host)) io.err(`headcheck: warning: --host ${opts.host} serves the page to other machines; drawings dropped there are checked on this one`);
+      if (!isLoopback(opts.host))
+        io.err(`headcheck: warning: --host ${opts.host} serves the page to other machines; drawings dropped there are checked on this one`);
       const s = await serve(fileURLToPath(new URL('../web/', import.meta.url)), port, opts.host);
       io.out(`headcheck: the local page is at ${s.url} (the drawing stays on this machine; Ctrl-C stops)`);
-      await new Promise<void>((done) => process.once('SIGINT', () => { void s.close().then(done); }));
+      await new Promise<void>((done) =>
+        process.once('SIGINT', () => {
+          void s.close().then(done);
+        }),
+      );
     });
 
-  program.command('demo')
+  program
+    .command('demo')
     .description('build the bundled demo drawing and check it')
     .option('--out <dir>', 'folder for the demo drawing and its reports', 'headcheck-demo')
     .addOption(unitsOption())
@@ -185,12 +206,21 @@ export async function main(argv: string[], io = { out: (s: string) => process.st
         { path: configPath, data: `${JSON.stringify(DEMO_CONFIG, null, 2)}\n` },
       ]);
       parseSettings(DEMO_CONFIG, configPath);
-      const verdict = await checkCommand(dxfPath, {
-        config: configPath, json: join(opts.out, 'demo-plan.json'), dxf: join(opts.out, 'demo-plan.annotated.dxf'),
-        html: join(opts.out, 'demo-plan.html'), units: opts.units,
-      }, io);
-      io.out(`demo: drawing, config, JSON and HTML reports and the annotated drawing in ${opts.out}/ ` +
-        `(the demo plan has planted findings: the check's own verdict would be exit ${verdict})`);
+      const verdict = await checkCommand(
+        dxfPath,
+        {
+          config: configPath,
+          json: join(opts.out, 'demo-plan.json'),
+          dxf: join(opts.out, 'demo-plan.annotated.dxf'),
+          html: join(opts.out, 'demo-plan.html'),
+          units: opts.units,
+        },
+        io,
+      );
+      io.out(
+        `demo: drawing, config, JSON and HTML reports and the annotated drawing in ${opts.out}/ ` +
+          `(the demo plan has planted findings: the check's own verdict would be exit ${verdict})`,
+      );
       code = 0;
     });
 

@@ -6,7 +6,12 @@ export type NameMatcher = (name: string) => boolean;
 export function compilePatterns(patterns: readonly string[]): NameMatcher {
   if (patterns.length === 0) return () => false;
   const source = patterns
-    .map((p) => p.split('*').map((part) => part.replace(/[.+?^${}()|[\]\\]/g, '\\$&')).join('.*'))
+    .map((p) =>
+      p
+        .split('*')
+        .map((part) => part.replace(/[.+?^${}()|[\]\\]/g, '\\$&'))
+        .join('.*'),
+    )
     .join('|');
   const re = new RegExp(`^(?:${source})$`, 'i');
   return (name) => re.test(name);

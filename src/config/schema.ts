@@ -54,14 +54,18 @@ function mixUp(meta: QuantityMeta, system: UnitSystem, value: unknown): string {
 function quantity(system: UnitSystem, meta: QuantityMeta, description: string) {
   const f = from(meta.kind, system);
   const u = unitOf(meta.kind, system);
-  const said = (what: string) => (issue: v.BaseIssue<unknown>) => `must be ${what}, not ${String(issue.input)}${mixUp(meta, system, issue.input)}`;
+  const said = (what: string) => (issue: v.BaseIssue<unknown>) =>
+    `must be ${what}, not ${String(issue.input)}${mixUp(meta, system, issue.input)}`;
   const low = meta.above ?? meta.min!;
   const lower: v.PipeItem<number, number, v.BaseIssue<unknown>> = meta.above !== undefined
     ? v.gtValue<number, number, v.ErrorMessage<v.GtValueIssue<number, number>>>(f(low), said(`greater than ${shown(f(low))}${u}`))
     : v.minValue<number, number, v.ErrorMessage<v.MinValueIssue<number, number>>>(f(low), said(`at least ${shown(f(low))}${u}`));
   return v.pipe(
-    v.number('must be a number'), lower, v.maxValue(f(meta.max), said(`at most ${shown(f(meta.max))}${u}`)),
-    v.description<number, string>(`${description}${u ? ` (${u.trim()})` : ''}`), v.metadata<number, { quantity: QuantityMeta }>({ quantity: meta }),
+    v.number('must be a number'),
+    lower,
+    v.maxValue(f(meta.max), said(`at most ${shown(f(meta.max))}${u}`)),
+    v.description<number, string>(`${description}${u ? ` (${u.trim()})` : ''}`),
+    v.metadata<number, { quantity: QuantityMeta }>({ quantity: meta }),
     v.examples<number, number[]>(meta.example === undefined ? [] : [+f(meta.example).toPrecision(4)]),
     v.transform<number, number>(toUs(meta.kind, system)),
   );
@@ -74,19 +78,29 @@ const optionalQuantity = (system: UnitSystem, meta: QuantityMeta, description: s
 
 /** A whole number greater than zero (the input limits). */
 const count = (fallback: number, description: string) =>
-  v.optional(v.pipe(
-    v.number('must be a number'), v.integer('must be a whole number'), v.gtValue(0, 'must be greater than 0'), v.description<number, string>(description),
-  ), fallback);
+  v.optional(
+    v.pipe(
+      v.number('must be a number'),
+      v.integer('must be a whole number'),
+      v.gtValue(0, 'must be greater than 0'),
+      v.description<number, string>(description),
+    ),
+    fallback,
+  );
 
-const text = (description: string, example: string) => v.pipe(v.string('must be a text'), v.description(description), v.examples([example]));
+const text = (description: string, example: string) =>
+  v.pipe(v.string('must be a text'), v.description(description), v.examples([example]));
 const choice = <T extends readonly string[]>(options: T, description: string, example: T[number] = options[0]!) =>
   v.pipe(v.picklist(options, `must be one of ${options.join(', ')}`), v.description(description), v.examples([example]));
-const flag = (description: string, fallback: boolean) => v.optional(v.pipe(v.boolean('must be true or false'), v.description(description)), fallback);
+const flag = (description: string, fallback: boolean) =>
+  v.optional(v.pipe(v.boolean('must be true or false'), v.description(description)), fallback);
 /** A list of name patterns; a single text is a list of one. */
 const patterns = (description: string, example: string[]) =>
   v.pipe(
     v.union([v.string(), v.array(v.string())], 'must be a name pattern or a list of them'),
-    v.description(description), v.examples([example]), v.transform((x): string[] => (typeof x === 'string' ? [x] : x)),
+    v.description(description),
+    v.examples([example]),
+    v.transform((x): string[] => (typeof x === 'string' ? [x] : x)),
   );
 const section = <E extends v.ObjectEntries>(entries: E, description: string) =>
   v.pipe(v.strictObject(entries, 'must be an object'), v.description(description));
@@ -97,86 +111,221 @@ const NOT_SOURCED = 'common practice, no source: far outside any real value, so 
 export function configSchema(system: UnitSystem) {
   const q = (meta: QuantityMeta & { default: number }, description: string) => defaulted(system, meta, description);
   const maybe = (meta: QuantityMeta, description: string) => optionalQuantity(system, meta, description);
-  const limit = (kind: QuantityKind, max: number, example: number, description: string) => maybe({ kind, above: 0, max, example, rangeSource: NOT_SOURCED }, description);
+  const limit = (kind: QuantityKind, max: number, example: number, description: string) =>
+    maybe({ kind, above: 0, max, example, rangeSource: NOT_SOURCED }, description);
 
   const supply = v.pipe(
-    v.strictObject({
-      static: quantity(system, { kind: 'pressure', above: 0, max: 400, example: 80, rangeSource: NOT_SOURCED }, 'Static pressure of the flow test'),
-      residual: quantity(system, { kind: 'pressure', min: 0, max: 400, example: 60, rangeSource: NOT_SOURCED }, 'Residual pressure while flowing `flow`'),
-      flow: quantity(system, { kind: 'flow', above: 0, max: 20_000, example: 1000, rangeSource: NOT_SOURCED }, 'Flow of the flow test'),
-    }, 'must be an object with static, residual and flow'),
+    v.strictObject(
+      {
+        static: quantity(
+          system,
+          { kind: 'pressure', above: 0, max: 400, example: 80, rangeSource: NOT_SOURCED },
+          'Static pressure of the flow test',
+        ),
+        residual: quantity(
+          system,
+          { kind: 'pressure', min: 0, max: 400, example: 60, rangeSource: NOT_SOURCED },
+          'Residual pressure while flowing `flow`',
+        ),
+        flow: quantity(system, { kind: 'flow', above: 0, max: 20_000, example: 1000, rangeSource: NOT_SOURCED }, 'Flow of the flow test'),
+      },
+      'must be an object with static, residual and flow',
+    ),
     v.description('A flow test at the source: static pressure, residual pressure while flowing a flow'),
-    v.forward(v.check((s) => s.residual < s.static, 'must be lower than "supply.static"'), ['residual']),
+    v.forward(
+      v.check((s) => s.residual < s.static, 'must be lower than "supply.static"'),
+      ['residual'],
+    ),
   );
 
-  return v.strictObject({
-    $schema: v.optional(text('The JSON Schema this config follows (for editors); not read by the tool', './node_modules/headcheck/headcheck.schema.json')),
-    comment: v.optional(text('Free text for people; not read by the tool', 'ground floor, second submittal')),
-    units: v.optional(choice(LENGTH_UNITS, "The drawing's length unit; overrides the drawing header's $INSUNITS", 'in')),
-    unitSystem: v.optional(choice(['us', 'si'] as const, "Unit system of the config's own values: us (ft, gpm, psi) or si (m, L/min, bar)"), 'us'),
-    layers: v.optional(section({
-      heads: v.optional(patterns('Layers holding sprinkler heads', ['FP-HEAD*'])),
-      pipes: v.optional(patterns('Layers holding pipe linework', ['FP-PIPE*'])),
-      walls: v.optional(patterns('Layers holding walls and room outlines', ['A-WALL*'])),
-      designArea: v.optional(patterns('Layers holding drawn design areas', ['FP-AREA'])),
-      source: v.optional(patterns('Layers holding the water source (riser)', ['FP-RISER'])),
-    }, 'Layer name patterns per role (case-insensitive, * matches any run); a role without patterns is guessed'), {}),
-    headBlocks: v.optional(patterns('Block names of head symbols (patterns)', ['SPK*', 'HEAD*']), ['*']),
-    defaults: v.optional(section({
-      kFactor: q({ kind: 'kFactor', min: 1.3, max: 34.8, default: 5.6, rangeSource: 'NFPA 13 (2019 edition), Table 7.2.2.1: listed K-factors 1.3 to 34.8 (from memory)' }, 'K-factor of a head without a K attribute'),
-      pipeSize: v.optional(v.pipe(
-        v.union([v.string(), v.number()], 'must be a pipe size such as "1-1/4"'),
-        v.transform((x) => normaliseSize(String(x))),
-        v.check((x): x is NominalSize => x !== null, `must be a nominal pipe size (${NOMINAL_SIZES.join(', ')} in, or DN)`),
-        v.transform((x) => x as NominalSize),
-        v.description('Nominal size of a pipe without a size label (inches, e.g. "1-1/4", or DN32)'),
-      ), '1'),
-      cFactor: q({ kind: 'number', min: 50, max: 200, default: 120, rangeSource: 'common practice: Hazen-Williams C of sprinkler pipe lies between 100 and 150' }, 'Hazen-Williams C of every pipe'),
-      schedule: v.optional(v.pipe(
-        v.union([v.picklist(['10', '40']), v.picklist([10, 40])], 'must be 10 or 40'),
-        v.transform((x) => String(x) as Schedule), v.description('Steel pipe schedule for inside diameters: 10 or 40'),
-      ), '40'),
-      headElevation: q({ kind: 'length', min: -1000, max: 3000, default: 12, rangeSource: NOT_SOURCED }, 'Elevation of a head without an ELEV attribute, and of the piping'),
-      sourceElevation: q({ kind: 'length', min: -1000, max: 3000, default: 0, rangeSource: NOT_SOURCED }, 'Elevation of the source (where the supply is known)'),
-    }, 'Values used where the drawing says nothing'), {}),
-    design: v.optional(section({
-      hazard: v.optional(choice(HAZARDS, 'Occupancy hazard: LH, OH1, OH2, EH1 or EH2', 'OH2'), 'OH2'),
-      density: maybe({ kind: 'density', above: 0, max: 1, example: 0.2, rangeSource: 'common practice: densities of the density/area method lie between 0.05 and 0.6 gpm/ft²' }, "Design density (default: the hazard's curve)"),
-      area: maybe({ kind: 'area', above: 0, max: 20_000, example: 1500, rangeSource: NOT_SOURCED }, "Design area before adjustments (default: the hazard's curve)"),
-      hoseAllowance: maybe({ kind: 'flow', min: 0, max: 2000, example: 250, rangeSource: NOT_SOURCED }, 'Hose-stream allowance added at the source (default: by hazard)'),
-      minHeadPressure: q({ kind: 'pressure', above: 0, max: 175, default: 7, rangeSource: 'from memory: 175 psi is the usual rating of sprinkler components' }, 'Least pressure at a flowing head'),
-      fittings: flag('Add equivalent lengths of elbows and tees inferred from the topology', true),
-      velocityPressure: flag('Ask for velocity pressure (not modelled: total pressures are used)', false),
-      systemType: v.optional(choice(['wet', 'dry', 'preaction'] as const, 'wet, dry or preaction (dry and preaction add 30% to the area)'), 'wet'),
-      areaMode: v.optional(choice(['drawn', 'search', 'both'] as const, 'drawn: check the drawn area; search: find the most demanding; both'), 'both'),
-      quickResponse: flag('Quick-response heads: the area reduction applies where allowed', false),
-      ceilingHeight: maybe({ kind: 'length', above: 0, max: 200, example: 12, rangeSource: NOT_SOURCED }, 'Ceiling height, for the quick-response reduction'),
-      ceilingSlope: maybe({ kind: 'number', min: 0, max: 10, example: 0.25, rangeSource: NOT_SOURCED }, 'Ceiling slope as rise over run (over 2/12 adds 30% to the area)'),
-    }, 'The design basis'), {}),
-    supply: v.optional(supply),
-    limits: v.optional(section({
-      maxArea: limit('area', 1000, 130, 'Largest protection area per head'),
-      maxSpacing: limit('length', 50, 15, 'Largest distance between heads and between branch lines'),
-      maxWallDistance: limit('length', 25, 7.5, 'Largest distance from a head to a wall'),
-      minWallDistance: limit('length', 5, 0.333, 'Least distance from a head to a wall'),
-      minHeadDistance: limit('length', 20, 6, 'Least distance between heads'),
-    }, "Overrides of the rules' limit table, for the locally adopted edition"), {}),
-    tolerances: v.optional(section({
-      snap: q({ kind: 'length', above: 0, max: 5, default: 1 / 12, rangeSource: NOT_SOURCED }, 'Pipe ends closer than this are joined'),
-      headAttach: q({ kind: 'length', above: 0, max: 10, default: 0.5, rangeSource: NOT_SOURCED }, 'A head this close to a pipe is on it'),
-      sizeLabel: q({ kind: 'length', above: 0, max: 20, default: 3, rangeSource: NOT_SOURCED }, 'A size label this close to a pipe sizes it'),
-    }, 'Geometry tolerances'), {}),
-    inputLimits: v.optional(section({
-      fileMB: q({ kind: 'number', above: 0, max: 1_048_576, default: 512, rangeSource: NOT_SOURCED }, 'Largest drawing file, MiB'),
-      entities: count(5_000_000, 'Most entities in the file, blocks included'),
-      blockDepth: count(32, 'Deepest block nesting'),
-      blockReferences: count(2_000_000, 'Most block references once nesting and arrays are multiplied out'),
-      expandedEntities: count(1_000_000, 'Most entities the read layers hold once blocks are multiplied out (arrays and nesting)'),
-      heads: count(100_000, 'Most head symbols on the head layers'),
-      textLength: count(65_536, 'Longest value (a text, a name), characters'),
-      networkNodes: count(1_000_000, 'Most nodes of the rebuilt piping'),
-    }, 'How much a drawing may cost before it is refused (each far above real plans)'), {}),
-  }, 'must be a JSON object');
+  return v.strictObject(
+    {
+      $schema: v.optional(
+        text('The JSON Schema this config follows (for editors); not read by the tool', './node_modules/headcheck/headcheck.schema.json'),
+      ),
+      comment: v.optional(text('Free text for people; not read by the tool', 'ground floor, second submittal')),
+      units: v.optional(choice(LENGTH_UNITS, "The drawing's length unit; overrides the drawing header's $INSUNITS", 'in')),
+      unitSystem: v.optional(
+        choice(['us', 'si'] as const, "Unit system of the config's own values: us (ft, gpm, psi) or si (m, L/min, bar)"),
+        'us',
+      ),
+      layers: v.optional(
+        section(
+          {
+            heads: v.optional(patterns('Layers holding sprinkler heads', ['FP-HEAD*'])),
+            pipes: v.optional(patterns('Layers holding pipe linework', ['FP-PIPE*'])),
+            walls: v.optional(patterns('Layers holding walls and room outlines', ['A-WALL*'])),
+            designArea: v.optional(patterns('Layers holding drawn design areas', ['FP-AREA'])),
+            source: v.optional(patterns('Layers holding the water source (riser)', ['FP-RISER'])),
+          },
+          'Layer name patterns per role (case-insensitive, * matches any run); a role without patterns is guessed',
+        ),
+        {},
+      ),
+      headBlocks: v.optional(patterns('Block names of head symbols (patterns)', ['SPK*', 'HEAD*']), ['*']),
+      defaults: v.optional(
+        section(
+          {
+            kFactor: q(
+              {
+                kind: 'kFactor',
+                min: 1.3,
+                max: 34.8,
+                default: 5.6,
+                rangeSource: 'NFPA 13 (2019 edition), Table 7.2.2.1: listed K-factors 1.3 to 34.8 (from memory)',
+              },
+              'K-factor of a head without a K attribute',
+            ),
+            pipeSize: v.optional(
+              v.pipe(
+                v.union([v.string(), v.number()], 'must be a pipe size such as "1-1/4"'),
+                v.transform((x) => normaliseSize(String(x))),
+                v.check((x): x is NominalSize => x !== null, `must be a nominal pipe size (${NOMINAL_SIZES.join(', ')} in, or DN)`),
+                v.transform((x) => x as NominalSize),
+                v.description('Nominal size of a pipe without a size label (inches, e.g. "1-1/4", or DN32)'),
+              ),
+              '1',
+            ),
+            cFactor: q(
+              {
+                kind: 'number',
+                min: 50,
+                max: 200,
+                default: 120,
+                rangeSource: 'common practice: Hazen-Williams C of sprinkler pipe lies between 100 and 150',
+              },
+              'Hazen-Williams C of every pipe',
+            ),
+            schedule: v.optional(
+              v.pipe(
+                v.union([v.picklist(['10', '40']), v.picklist([10, 40])], 'must be 10 or 40'),
+                v.transform((x) => String(x) as Schedule),
+                v.description('Steel pipe schedule for inside diameters: 10 or 40'),
+              ),
+              '40',
+            ),
+            headElevation: q(
+              { kind: 'length', min: -1000, max: 3000, default: 12, rangeSource: NOT_SOURCED },
+              'Elevation of a head without an ELEV attribute, and of the piping',
+            ),
+            sourceElevation: q(
+              { kind: 'length', min: -1000, max: 3000, default: 0, rangeSource: NOT_SOURCED },
+              'Elevation of the source (where the supply is known)',
+            ),
+          },
+          'Values used where the drawing says nothing',
+        ),
+        {},
+      ),
+      design: v.optional(
+        section(
+          {
+            hazard: v.optional(choice(HAZARDS, 'Occupancy hazard: LH, OH1, OH2, EH1 or EH2', 'OH2'), 'OH2'),
+            density: maybe(
+              {
+                kind: 'density',
+                above: 0,
+                max: 1,
+                example: 0.2,
+                rangeSource: 'common practice: densities of the density/area method lie between 0.05 and 0.6 gpm/ft²',
+              },
+              "Design density (default: the hazard's curve)",
+            ),
+            area: maybe(
+              { kind: 'area', above: 0, max: 20_000, example: 1500, rangeSource: NOT_SOURCED },
+              "Design area before adjustments (default: the hazard's curve)",
+            ),
+            hoseAllowance: maybe(
+              { kind: 'flow', min: 0, max: 2000, example: 250, rangeSource: NOT_SOURCED },
+              'Hose-stream allowance added at the source (default: by hazard)',
+            ),
+            minHeadPressure: q(
+              {
+                kind: 'pressure',
+                above: 0,
+                max: 175,
+                default: 7,
+                rangeSource: 'from memory: 175 psi is the usual rating of sprinkler components',
+              },
+              'Least pressure at a flowing head',
+            ),
+            fittings: flag('Add equivalent lengths of elbows and tees inferred from the topology', true),
+            velocityPressure: flag('Ask for velocity pressure (not modelled: total pressures are used)', false),
+            systemType: v.optional(
+              choice(['wet', 'dry', 'preaction'] as const, 'wet, dry or preaction (dry and preaction add 30% to the area)'),
+              'wet',
+            ),
+            areaMode: v.optional(
+              choice(['drawn', 'search', 'both'] as const, 'drawn: check the drawn area; search: find the most demanding; both'),
+              'both',
+            ),
+            quickResponse: flag('Quick-response heads: the area reduction applies where allowed', false),
+            ceilingHeight: maybe(
+              { kind: 'length', above: 0, max: 200, example: 12, rangeSource: NOT_SOURCED },
+              'Ceiling height, for the quick-response reduction',
+            ),
+            ceilingSlope: maybe(
+              { kind: 'number', min: 0, max: 10, example: 0.25, rangeSource: NOT_SOURCED },
+              'Ceiling slope as rise over run (over 2/12 adds 30% to the area)',
+            ),
+          },
+          'The design basis',
+        ),
+        {},
+      ),
+      supply: v.optional(supply),
+      limits: v.optional(
+        section(
+          {
+            maxArea: limit('area', 1000, 130, 'Largest protection area per head'),
+            maxSpacing: limit('length', 50, 15, 'Largest distance between heads and between branch lines'),
+            maxWallDistance: limit('length', 25, 7.5, 'Largest distance from a head to a wall'),
+            minWallDistance: limit('length', 5, 0.333, 'Least distance from a head to a wall'),
+            minHeadDistance: limit('length', 20, 6, 'Least distance between heads'),
+          },
+          "Overrides of the rules' limit table, for the locally adopted edition",
+        ),
+        {},
+      ),
+      tolerances: v.optional(
+        section(
+          {
+            snap: q(
+              { kind: 'length', above: 0, max: 5, default: 1 / 12, rangeSource: NOT_SOURCED },
+              'Pipe ends closer than this are joined',
+            ),
+            headAttach: q(
+              { kind: 'length', above: 0, max: 10, default: 0.5, rangeSource: NOT_SOURCED },
+              'A head this close to a pipe is on it',
+            ),
+            sizeLabel: q(
+              { kind: 'length', above: 0, max: 20, default: 3, rangeSource: NOT_SOURCED },
+              'A size label this close to a pipe sizes it',
+            ),
+          },
+          'Geometry tolerances',
+        ),
+        {},
+      ),
+      inputLimits: v.optional(
+        section(
+          {
+            fileMB: q({ kind: 'number', above: 0, max: 1_048_576, default: 512, rangeSource: NOT_SOURCED }, 'Largest drawing file, MiB'),
+            entities: count(5_000_000, 'Most entities in the file, blocks included'),
+            blockDepth: count(32, 'Deepest block nesting'),
+            blockReferences: count(2_000_000, 'Most block references once nesting and arrays are multiplied out'),
+            expandedEntities: count(1_000_000, 'Most entities the read layers hold once blocks are multiplied out (arrays and nesting)'),
+            heads: count(100_000, 'Most head symbols on the head layers'),
+            textLength: count(65_536, 'Longest value (a text, a name), characters'),
+            networkNodes: count(1_000_000, 'Most nodes of the rebuilt piping'),
+          },
+          'How much a drawing may cost before it is refused (each far above real plans)',
+        ),
+        {},
+      ),
+    },
+    'must be a JSON object',
+  );
 }
 
 export type ConfigSchema = ReturnType<typeof configSchema>;

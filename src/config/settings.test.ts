@@ -45,7 +45,10 @@ describe('config: wrong types and values out of range name the key', () => {
     [{ inputLimits: { entities: 2.5 } }, /"inputLimits\.entities" must be a whole number/],
     [[1, 2], /the config must be a JSON object/],
     // 1 gpm/ft² is far above any density/area design (common practice): 8.1 is a density in mm/min (8.1 / 40.746 = 0.199 gpm/ft²).
-    [{ design: { density: 8.1 } }, /"design\.density" must be at most 1 gpm\/ft², not 8\.1; it looks like a value in mm\/min: is "unitSystem": "si" meant\?/],
+    [
+      { design: { density: 8.1 } },
+      /"design\.density" must be at most 1 gpm\/ft², not 8\.1; it looks like a value in mm\/min: is "unitSystem": "si" meant\?/,
+    ],
     // Listed K-factors end at 34.8 (NFPA 13 (2019 edition), Table 7.2.2.1, from memory): 80 is K 5.6 in L/min/bar½ (80 / 14.416).
     [{ defaults: { kFactor: 80 } }, /"defaults\.kFactor" must be at most 34\.8 gpm\/psi½, not 80; it looks like a value in L\/min\/bar½/],
     // In SI the same bounds read in SI units: 1 gpm/ft² = 40.75 mm/min.
@@ -83,8 +86,10 @@ describe('config: defaults and units', () => {
 
   it('SI values come out in US units: 8.15 mm/min, 139.35 m², 5.5 bar, 3785.4 L/min, 80.7 K, 3.66 m', () => {
     const s = parseSettings({
-      unitSystem: 'si', defaults: { kFactor: 80.7, headElevation: 3.6576 },
-      design: { density: 8.1492, area: 139.3546 }, supply: { static: 5.5, residual: 4, flow: 3785.411784 },
+      unitSystem: 'si',
+      defaults: { kFactor: 80.7, headElevation: 3.6576 },
+      design: { density: 8.1492, area: 139.3546 },
+      supply: { static: 5.5, residual: 4, flow: 3785.411784 },
       limits: { maxSpacing: 4.572 },
     });
     expect(s.design.density).toBeCloseTo(0.2, 4);

@@ -59,13 +59,19 @@ const preview = (x: unknown) => {
 };
 
 /** A schema node as the walks below see it: an object's entries, a record's values, the wrapped schema. */
-interface SchemaNode { type?: string; wrapped?: unknown; options?: unknown[]; entries?: Record<string, unknown>; value?: unknown }
+interface SchemaNode {
+  type?: string;
+  wrapped?: unknown;
+  options?: unknown[];
+  entries?: Record<string, unknown>;
+  value?: unknown;
+}
 
 /** The node itself, through optional and union wrappers (a union's object option). */
 function unwrap(s: unknown): SchemaNode {
   const x = s as SchemaNode;
   if (x.type === 'optional') return unwrap(x.wrapped);
-  if (x.type === 'union') return (x.options?.map(unwrap).find((o) => o.entries) ?? x);
+  if (x.type === 'union') return x.options?.map(unwrap).find((o) => o.entries) ?? x;
   return x;
 }
 
@@ -101,7 +107,10 @@ export function nearest(word: string, known: readonly string[]): string | null {
   let bestD = Infinity;
   for (const k of known) {
     const d = editDistance(word.toLowerCase(), k.toLowerCase());
-    if (d < bestD) { bestD = d; best = k; }
+    if (d < bestD) {
+      bestD = d;
+      best = k;
+    }
   }
   return best !== null && bestD <= Math.max(2, Math.floor(word.length / 3)) ? best : null;
 }

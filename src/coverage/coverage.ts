@@ -51,8 +51,15 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
       const s = largest(before, after, twice(wallBack), twice(wallFwd));
       const l = largest(left, right, twice(wallLeft), twice(wallRight));
       out.set(id, {
-        headId: id, branchLine: line.id, s, l, area: s !== null && l !== null ? s * l : null,
-        wallAlong: [wallBack, wallFwd], wallAcross: [wallLeft, wallRight], headAlong: [before, after], lineAcross: [left, right],
+        headId: id,
+        branchLine: line.id,
+        s,
+        l,
+        area: s !== null && l !== null ? s * l : null,
+        wallAlong: [wallBack, wallFwd],
+        wallAcross: [wallLeft, wallRight],
+        headAlong: [before, after],
+        lineAcross: [left, right],
         neighbours: [i > 0 ? along[i - 1]!.id : null, i + 1 < along.length ? along[i + 1]!.id : null],
       });
     });
@@ -61,7 +68,12 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
 }
 
 /** What the neighbour search needs of a line, computed once: its centroid, its end heads, its head spacing. */
-interface LineSummary { line: BranchLine; centroid: Point; ends: [Point, Point]; spacing: number }
+interface LineSummary {
+  line: BranchLine;
+  centroid: Point;
+  ends: [Point, Point];
+  spacing: number;
+}
 
 function summarise(line: BranchLine, pos: Map<string, Point>): LineSummary {
   const pts = line.headIds.map((id) => pos.get(id)!);
@@ -106,4 +118,3 @@ function largest(...xs: (number | null)[]): number | null {
   const v = xs.filter((x): x is number => x !== null);
   return v.length ? maxOf(v) : null;
 }
-

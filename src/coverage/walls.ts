@@ -6,7 +6,14 @@ import { cross, distanceToSegment, sub, type Point } from '../geometry/point.js'
 import { containsPoint, signedArea } from '../geometry/polygon.js';
 import type { Outline, Stroke } from '../read/types.js';
 
-interface WallBox { minX: number; minY: number; maxX: number; maxY: number; a: Point; b: Point }
+interface WallBox {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+  a: Point;
+  b: Point;
+}
 
 export interface Walls {
   /** Distance from `p` to the first wall along unit direction `d`, or null within `maxRange`. */
@@ -22,7 +29,10 @@ export function indexWalls(rooms: Outline[], strokes: Stroke[]): Walls {
   const boxes: WallBox[] = [];
   const add = (a: Point, b: Point) =>
     boxes.push({ minX: Math.min(a.x, b.x), minY: Math.min(a.y, b.y), maxX: Math.max(a.x, b.x), maxY: Math.max(a.y, b.y), a, b });
-  for (const r of rooms) r.points.forEach((p, i) => add(p, r.points[(i + 1) % r.points.length]!));
+  for (const r of rooms)
+    r.points.forEach((p, i) => {
+      add(p, r.points[(i + 1) % r.points.length]!);
+    });
   for (const s of strokes) {
     const pts = [s.a, ...s.via, s.b];
     for (let k = 1; k < pts.length; k++) add(pts[k - 1]!, pts[k]!);
@@ -35,7 +45,12 @@ export function indexWalls(rooms: Outline[], strokes: Stroke[]): Walls {
     along(p, d, maxRange) {
       const q = { x: p.x + d.x * maxRange, y: p.y + d.y * maxRange };
       let best: number | null = null;
-      for (const w of tree.search({ minX: Math.min(p.x, q.x), minY: Math.min(p.y, q.y), maxX: Math.max(p.x, q.x), maxY: Math.max(p.y, q.y) })) {
+      for (const w of tree.search({
+        minX: Math.min(p.x, q.x),
+        minY: Math.min(p.y, q.y),
+        maxX: Math.max(p.x, q.x),
+        maxY: Math.max(p.y, q.y),
+      })) {
         const t = rayHit(p, d, w.a, w.b);
         if (t !== null && t <= maxRange && (best === null || t < best)) best = t;
       }

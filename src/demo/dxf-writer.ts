@@ -5,7 +5,10 @@ import type { Point } from '../geometry/point.js';
 import { formatGroups } from '../outputs/dxf-format.js';
 import * as rec from '../outputs/dxf-records.js';
 
-export interface AttribValue { tag: string; value: string }
+export interface AttribValue {
+  tag: string;
+  value: string;
+}
 
 export class DxfWriter {
   private readonly ctx: rec.RecordContext = { modern: false, handles: new rec.HandleSource(0x100n), owner: null };
@@ -59,10 +62,37 @@ export class DxfWriter {
   }
 
   toString(): string {
-    const header = formatGroups([0, 'SECTION', 2, 'HEADER', 9, '$ACADVER', 1, 'AC1009', 9, '$INSUNITS', 70, this.insunits, 9, '$HANDLING', 70, 1,
-      9, '$HANDSEED', 5, this.ctx.handles!.seed, 0, 'ENDSEC']);
-    const layerRows = [...this.layers].map(([name, color]) => formatGroups(rec.layerRecord({ ...this.ctx, handles: null }, name, color, null))).join('');
-    const tables = formatGroups([0, 'SECTION', 2, 'TABLES', 0, 'TABLE', 2, 'LAYER', 70, this.layers.size]) + layerRows + formatGroups([0, 'ENDTAB', 0, 'ENDSEC']);
+    const header = formatGroups([
+      0,
+      'SECTION',
+      2,
+      'HEADER',
+      9,
+      '$ACADVER',
+      1,
+      'AC1009',
+      9,
+      '$INSUNITS',
+      70,
+      this.insunits,
+      9,
+      '$HANDLING',
+      70,
+      1,
+      9,
+      '$HANDSEED',
+      5,
+      this.ctx.handles!.seed,
+      0,
+      'ENDSEC',
+    ]);
+    const layerRows = [...this.layers]
+      .map(([name, color]) => formatGroups(rec.layerRecord({ ...this.ctx, handles: null }, name, color, null)))
+      .join('');
+    const tables =
+      formatGroups([0, 'SECTION', 2, 'TABLES', 0, 'TABLE', 2, 'LAYER', 70, this.layers.size]) +
+      layerRows +
+      formatGroups([0, 'ENDTAB', 0, 'ENDSEC']);
     const blocks = formatGroups([0, 'SECTION', 2, 'BLOCKS']) + this.blocks.join('') + formatGroups([0, 'ENDSEC']);
     const entities = formatGroups([0, 'SECTION', 2, 'ENTITIES']) + this.entities.join('') + formatGroups([0, 'ENDSEC']);
     return header + tables + blocks + entities + formatGroups([0, 'EOF']);

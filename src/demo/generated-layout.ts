@@ -45,8 +45,12 @@ export function layoutDxf(spec: LayoutSpec): string {
   const height = 2 * wc + (spec.lines - 1) * spec.l;
   const mainX = Math.min(1, wa / 2);
   const w = new DxfWriter(unit.insunits);
-  w.block('HEAD', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.25 * unit.perFoot, b); });
-  w.block('RISER', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.5 * unit.perFoot, b); });
+  w.block('HEAD', { x: 0, y: 0 }, (b) => {
+    w.circle('0', { x: 0, y: 0 }, 0.25 * unit.perFoot, b);
+  });
+  w.block('RISER', { x: 0, y: 0 }, (b) => {
+    w.circle('0', { x: 0, y: 0 }, 0.5 * unit.perFoot, b);
+  });
   w.polyline('A-WALL', [tf(0, 0), tf(width, 0), tf(width, height), tf(0, height)], true);
   const midY = wc + Math.floor((spec.lines - 1) / 2) * spec.l + spec.l / 2;
   w.insert('FP-SOURCE', 'RISER', tf(-8 + (spec.sourceOffset?.x ?? 0), midY + (spec.sourceOffset?.y ?? 0)));
@@ -59,14 +63,20 @@ export function layoutDxf(spec: LayoutSpec): string {
     const lastX = wa + (spec.heads - 1) * spec.s + (spec.gridded ? 1 : 0);
     w.line('FP-PIPE', tf(mainX, y), tf(lastX, y));
     w.text('FP-PIPE', tf((mainX + wa) / 2, y + 0.3), 0.5 * unit.perFoot, '1-1/4"');
-    for (let i = 0; i < spec.heads; i++) w.insert('FP-HEAD', 'HEAD', tf(wa + i * spec.s, y), { rotation: spec.rotationDeg ?? 0, attribs: spec.headAttribs ?? [] });
+    for (let i = 0; i < spec.heads; i++)
+      w.insert('FP-HEAD', 'HEAD', tf(wa + i * spec.s, y), { rotation: spec.rotationDeg ?? 0, attribs: spec.headAttribs ?? [] });
   }
   if (spec.gridded) {
     const farX = wa + (spec.heads - 1) * spec.s + 1;
     w.line('FP-PIPE', tf(farX, wc), tf(farX, wc + (spec.lines - 1) * spec.l));
     w.text('FP-PIPE', tf(farX + 0.4, wc + spec.l / 3), 0.5 * unit.perFoot, '2"');
   }
-  if (spec.drawnArea) w.polyline('FP-AREA', spec.drawnArea.map((q) => tf(q.x, q.y)), true);
+  if (spec.drawnArea)
+    w.polyline(
+      'FP-AREA',
+      spec.drawnArea.map((q) => tf(q.x, q.y)),
+      true,
+    );
   for (const e of spec.extraHeads ?? []) {
     w.insert('FP-HEAD', 'HEAD', tf(e.x, e.y), { attribs: spec.headAttribs ?? [] });
   }

@@ -16,16 +16,36 @@ export const DEMO_PLANTED = {
 /** The demo drawing as DXF text (R12, inches). */
 export function demoDrawing(): string {
   const w = new DxfWriter(1)
-    .layer('A-WALL', 8).layer('A-GRID', 9).layer('A-FURN', 252).layer('FP-SPRK-HEAD', 1).layer('FP-PIPE', 5)
-    .layer('FP-PIPE-SIZE', 5).layer('FP-RISER', 3).layer('FP-REMOTE-AREA', 6);
-  w.block('SPK-PENDENT', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 4, b).line('0', { x: -4, y: 0 }, { x: 4, y: 0 }, b); });
-  w.block('RISER-POC', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 8, b).line('0', { x: -8, y: -8 }, { x: 8, y: 8 }, b); });
-  w.block('BENCH', { x: 0, y: 0 }, (b) => { w.polyline('0', [p(0, 0), p(8, 0), p(8, 3), p(0, 3)], true, b); });
+    .layer('A-WALL', 8)
+    .layer('A-GRID', 9)
+    .layer('A-FURN', 252)
+    .layer('FP-SPRK-HEAD', 1)
+    .layer('FP-PIPE', 5)
+    .layer('FP-PIPE-SIZE', 5)
+    .layer('FP-RISER', 3)
+    .layer('FP-REMOTE-AREA', 6);
+  w.block('SPK-PENDENT', { x: 0, y: 0 }, (b) => {
+    w.circle('0', { x: 0, y: 0 }, 4, b).line('0', { x: -4, y: 0 }, { x: 4, y: 0 }, b);
+  });
+  w.block('RISER-POC', { x: 0, y: 0 }, (b) => {
+    w.circle('0', { x: 0, y: 0 }, 8, b).line('0', { x: -8, y: -8 }, { x: 8, y: 8 }, b);
+  });
+  w.block('BENCH', { x: 0, y: 0 }, (b) => {
+    w.polyline('0', [p(0, 0), p(8, 0), p(8, 3), p(0, 3)], true, b);
+  });
 
   // Architecture: room outline, column grid, benches.
   w.polyline('A-WALL', [p(0, 0), p(96, 0), p(96, 58), p(0, 58)], true);
   for (const x of [0, 24, 48, 72, 96]) w.line('A-GRID', p(x, -6), p(x, 64));
-  for (const [x, y] of [[10, 8], [30, 8], [50, 18], [70, 28], [20, 38], [60, 48]] as const) w.insert('A-FURN', 'BENCH', p(x, y));
+  for (const [x, y] of [
+    [10, 8],
+    [30, 8],
+    [50, 18],
+    [70, 28],
+    [20, 38],
+    [60, 48],
+  ] as const)
+    w.insert('A-FURN', 'BENCH', p(x, y));
 
   // Riser west of the room, 4" feed main to the middle of the 3" cross main, and a capped stub at its top end
   // (left unlabelled on purpose).

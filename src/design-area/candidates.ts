@@ -24,7 +24,10 @@ export interface Candidate {
 }
 
 const PARALLEL_SIN = Math.sin((10 * Math.PI) / 180);
-const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); return s.length ? s[Math.floor(s.length / 2)]! : NaN; };
+const median = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.length ? s[Math.floor(s.length / 2)]! : NaN;
+};
 
 export function lineFamilies(network: Network, heads: Head[], coverage: Map<string, Coverage>, area: number): LineFamily[] {
   const pos = new Map(heads.map((h) => [h.id, h.position]));
@@ -42,7 +45,9 @@ export function lineFamilies(network: Network, heads: Head[], coverage: Map<stri
     const hs = line.headIds.map((id) => ({ id, t: dot(pos.get(id)!, f.u) })).sort((a, b) => a.t - b.t);
     const feed = line.feedNodeIds[0];
     f.lines.push({
-      id: line.id, heads: hs, feedT: feed ? dot(nodePos.get(feed)!, f.u) : null,
+      id: line.id,
+      heads: hs,
+      feedT: feed ? dot(nodePos.get(feed)!, f.u) : null,
       offset: hs.reduce((s, h) => s + dot(pos.get(h.id)!, f.v), 0) / hs.length,
     });
   }
@@ -64,7 +69,13 @@ export function lineFamilies(network: Network, heads: Head[], coverage: Map<stri
  * heads nearest the cross main (its feed end). Keeps adding until `count` heads and `area` ft² are reached.
  */
 export function selectHeads(
-  fam: LineFamily, start: number, dir: 1 | -1, t0: number, count: number, area: number, areaOf: (id: string) => number,
+  fam: LineFamily,
+  start: number,
+  dir: 1 | -1,
+  t0: number,
+  count: number,
+  area: number,
+  areaOf: (id: string) => number,
 ): Candidate {
   const lo = t0 - fam.spacing / 2;
   const hi = t0 + (fam.shape.headsAlong - 0.5) * fam.spacing;
@@ -102,7 +113,8 @@ function firstAtOrAfter(heads: { t: number }[], t: number): number {
   let hi = heads.length;
   while (lo < hi) {
     const mid = (lo + hi) >> 1;
-    if (heads[mid]!.t < t) lo = mid + 1; else hi = mid;
+    if (heads[mid]!.t < t) lo = mid + 1;
+    else hi = mid;
   }
   return lo;
 }
@@ -146,7 +158,10 @@ function distinctAreas(fam: LineFamily): (c: Candidate) => boolean {
     }
     const hash = (sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff);
     const same = byHash.get(hash);
-    if (!same) { byHash.set(hash, [c]); return true; }
+    if (!same) {
+      byHash.set(hash, [c]);
+      return true;
+    }
     if (same.some((o) => sameHeads(o.headIds, c.headIds))) return false;
     same.push(c);
     return true;

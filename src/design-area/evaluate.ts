@@ -49,20 +49,32 @@ export interface DesignAreas {
 }
 
 export function evaluateDesignAreas(
-  plan: Plan, network: Network, coverage: Map<string, Coverage>, limits: Limits, settings: Settings, roomOf: (p: Point) => Outline | null,
+  plan: Plan,
+  network: Network,
+  coverage: Map<string, Coverage>,
+  limits: Limits,
+  settings: Settings,
+  roomOf: (p: Point) => Outline | null,
 ): DesignAreas {
   const basis = designBasis(settings);
   const headById = new Map(plan.heads.map((h) => [h.id, h]));
   const areaOf = (id: string) => coverage.get(id)?.area ?? limits.maxArea;
-  const flowingOf = (ids: string[]): FlowingHead[] => ids.map((id) => {
-    const head = headById.get(id)!;
-    return { head, required: Math.max(settings.design.minHeadPressure, (basis.density * areaOf(id) / head.kFactor) ** 2) };
-  });
+  const flowingOf = (ids: string[]): FlowingHead[] =>
+    ids.map((id) => {
+      const head = headById.get(id)!;
+      return { head, required: Math.max(settings.design.minHeadPressure, ((basis.density * areaOf(id)) / head.kFactor) ** 2) };
+    });
   const families = lineFamilies(network, plan.heads, coverage, basis.area);
   const main = families.sort((a, b) => b.lines.length - a.lines.length)[0] ?? null;
   const notes: string[] = [];
   const out: DesignAreas = {
-    basis, shape: main?.shape ?? null, spacing: main?.spacing ?? null, areas: [], search: null, drawnCount: plan.designAreas.length, notes,
+    basis,
+    shape: main?.shape ?? null,
+    spacing: main?.spacing ?? null,
+    areas: [],
+    search: null,
+    drawnCount: plan.designAreas.length,
+    notes,
   };
   const mode = settings.design.areaMode;
   const hydraulic = network.sourceNodeId !== null;
@@ -71,7 +83,10 @@ export function evaluateDesignAreas(
     const connected = ids.filter((id) => network.headNode[id]);
     if (!hydraulic || connected.length === 0) return { h: null, note: 'no flowing head is connected to the source' };
     try {
-      return { h: calculateArea(network, flowingOf(connected), settings, basis.hoseAllowance), note: connected.length < ids.length ? 'heads not on the piping were left out' : null };
+      return {
+        h: calculateArea(network, flowingOf(connected), settings, basis.hoseAllowance),
+        note: connected.length < ids.length ? 'heads not on the piping were left out' : null,
+      };
     } catch (err) {
       return { h: null, note: err instanceof Error ? err.message : String(err) };
     }
@@ -89,13 +104,28 @@ export function evaluateDesignAreas(
     try {
       const piped = candidates.map((c) => (c.headIds.every((id) => network.headNode[id]) ? c : { ...c, headIds: connected(c.headIds) }));
       const found = searchMostDemanding(network, piped, flowingOf, settings, basis.hoseAllowance);
-      out.search = { candidates: found.candidates, evaluated: found.evaluated, screened: found.screened, solves: found.solves, pruned: found.pruned };
-      for (const [rank, s] of [['most-demanding', found.best], ['runner-up', found.runnerUp]] as const) {
+      out.search = {
+        candidates: found.candidates,
+        evaluated: found.evaluated,
+        screened: found.screened,
+        solves: found.solves,
+        pruned: found.pruned,
+      };
+      for (const [rank, s] of [
+        ['most-demanding', found.best],
+        ['runner-up', found.runnerUp],
+      ] as const) {
         if (!s) continue;
         const measured = measureSearched(s.candidate.headIds, s.candidate.lineIds, main, headById, areaOf);
         // Draw the area inside the room that holds its heads (the S × L bands may reach past a wall).
         const room = roomOf(headById.get(s.candidate.headIds[0]!)!.position);
-        out.areas.push({ ...measured, outline: room ? clipPolygon(measured.outline, room.points) : measured.outline, rank, hydraulics: s.hydraulics, note: null });
+        out.areas.push({
+          ...measured,
+          outline: room ? clipPolygon(measured.outline, room.points) : measured.outline,
+          rank,
+          hydraulics: s.hydraulics,
+          note: null,
+        });
       }
     } catch (err) {
       notes.push(`design-area search failed: ${err instanceof Error ? err.message : String(err)}`);
@@ -108,13 +138,21 @@ export function evaluateDesignAreas(
 
 type Measured = Omit<DesignAreaResult, 'hydraulics' | 'note' | 'rank'>;
 
-function measureSearched(ids: string[], lineIds: string[], fam: LineFamily, headById: Map<string, Head>, areaOf: (id: string) => number): Measured {
+function measureSearched(
+  ids: string[],
+  lineIds: string[],
+  fam: LineFamily,
+  headById: Map<string, Head>,
+  areaOf: (id: string) => number,
+): Measured {
   const lines = fam.lines.filter((l) => lineIds.includes(l.id));
   const spacingAcross = lines.length > 1 ? Math.abs(lines[1]!.offset - lines[0]!.offset) : fam.perHead / fam.spacing;
-  const bands = lines.map((l) => {
-    const ts = l.heads.filter((h) => ids.includes(h.id)).map((h) => h.t);
-    return { lo: minOf(ts) - fam.spacing / 2, hi: maxOf(ts) + fam.spacing / 2, o: l.offset };
-  }).sort((a, b) => a.o - b.o);
+  const bands = lines
+    .map((l) => {
+      const ts = l.heads.filter((h) => ids.includes(h.id)).map((h) => h.t);
+      return { lo: minOf(ts) - fam.spacing / 2, hi: maxOf(ts) + fam.spacing / 2, o: l.offset };
+    })
+    .sort((a, b) => a.o - b.o);
   const half = spacingAcross / 2;
   const toWorld = (t: number, o: number): Point => ({ x: fam.u.x * t + fam.v.x * o, y: fam.u.y * t + fam.v.y * o });
   const outline = [
@@ -123,7 +161,12 @@ function measureSearched(ids: string[], lineIds: string[], fam: LineFamily, head
   ];
   const ts = ids.map((id) => dot(headById.get(id)!.position, fam.u));
   return {
-    source: 'search', headIds: ids, lineIds, handle: null, outline, outlineArea: null,
+    source: 'search',
+    headIds: ids,
+    lineIds,
+    handle: null,
+    outline,
+    outlineArea: null,
     length: maxOf(ts) - minOf(ts) + fam.spacing,
     width: bands.length ? bands[bands.length - 1]!.o - bands[0]!.o + spacingAcross : 0,
     actualArea: ids.reduce((s, id) => s + areaOf(id), 0),
@@ -137,9 +180,14 @@ function measureDrawn(outline: Outline, ids: string[], fam: LineFamily | null, a
   const os = outline.points.map((p) => dot(p, v));
   const lineIds = network.branchLines.filter((b) => b.headIds.some((h) => ids.includes(h))).map((b) => b.id);
   return {
-    source: 'drawn', headIds: ids, lineIds, handle: outline.handle, outline: outline.points,
+    source: 'drawn',
+    headIds: ids,
+    lineIds,
+    handle: outline.handle,
+    outline: outline.points,
     outlineArea: Math.abs(signedArea(outline.points)),
-    length: maxOf(ts) - minOf(ts), width: maxOf(os) - minOf(os),
+    length: maxOf(ts) - minOf(ts),
+    width: maxOf(os) - minOf(os),
     actualArea: ids.reduce((s, id) => s + areaOf(id), 0),
   };
 }

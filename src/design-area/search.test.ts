@@ -21,7 +21,8 @@ function searchBoth(spec: Parameters<typeof checkLayout>[0], config: Record<stri
   const fam = lineFamilies(r.network, r.plan.heads, r.coverage, basis.area)[0]!;
   const cands = candidatesOf(fam, areaOf, basis.area);
   const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
-  const flowingOf = (ids: string[]) => ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, (basis.density * areaOf(id) / byId.get(id)!.kFactor) ** 2) }));
+  const flowingOf = (ids: string[]) =>
+    ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, ((basis.density * areaOf(id)) / byId.get(id)!.kFactor) ** 2) }));
   const pruned = searchMostDemanding(r.network, cands, flowingOf, settings, basis.hoseAllowance);
   const brute = searchMostDemanding(r.network, cands, flowingOf, settings, basis.hoseAllowance, { prune: false });
   return { pruned, brute, r };
@@ -29,49 +30,66 @@ function searchBoth(spec: Parameters<typeof checkLayout>[0], config: Record<stri
 
 describe('design-area search', () => {
   it('pruning never drops the most demanding area or the runner-up (brute force on random trees and grids)', () => {
-    fc.assert(fc.property(
-      fc.record({
-        s: fc.double({ min: 8, max: 13, noNaN: true }), l: fc.double({ min: 8, max: 12, noNaN: true }),
-        heads: fc.integer({ min: 3, max: 8 }), lines: fc.integer({ min: 2, max: 6 }),
-        area: fc.integer({ min: 300, max: 1500 }), supply: fc.boolean(), gridded: fc.boolean(),
-      }),
-      (p) => {
-        const config = {
-          design: { density: 0.2, area: p.area }, defaults: { headElevation: 10, sourceElevation: 0 },
-          ...(p.supply ? { supply: { static: 90, residual: 70, flow: 1000 } } : {}),
-        };
-        const { pruned, brute } = searchBoth({ s: p.s, l: p.l, heads: p.heads, lines: p.lines, gridded: p.gridded }, config);
-        expect(brute.evaluated).toBe(brute.candidates);
-        // equal to the pressure search's tolerance (1e-6 psi; warm starts differ between the two runs)
-        expect(pruned.best!.score).toBeCloseTo(brute.best!.score, 4);
-        if (brute.runnerUp) expect(pruned.runnerUp!.score).toBeCloseTo(brute.runnerUp.score, 4);
-        expect(pruned.evaluated).toBeLessThanOrEqual(brute.evaluated);
-      },
-    ), { numRuns: 40 });
+    fc.assert(
+      fc.property(
+        fc.record({
+          s: fc.double({ min: 8, max: 13, noNaN: true }),
+          l: fc.double({ min: 8, max: 12, noNaN: true }),
+          heads: fc.integer({ min: 3, max: 8 }),
+          lines: fc.integer({ min: 2, max: 6 }),
+          area: fc.integer({ min: 300, max: 1500 }),
+          supply: fc.boolean(),
+          gridded: fc.boolean(),
+        }),
+        (p) => {
+          const config = {
+            design: { density: 0.2, area: p.area },
+            defaults: { headElevation: 10, sourceElevation: 0 },
+            ...(p.supply ? { supply: { static: 90, residual: 70, flow: 1000 } } : {}),
+          };
+          const { pruned, brute } = searchBoth({ s: p.s, l: p.l, heads: p.heads, lines: p.lines, gridded: p.gridded }, config);
+          expect(brute.evaluated).toBe(brute.candidates);
+          // equal to the pressure search's tolerance (1e-6 psi; warm starts differ between the two runs)
+          expect(pruned.best!.score).toBeCloseTo(brute.best!.score, 4);
+          if (brute.runnerUp) expect(pruned.runnerUp!.score).toBeCloseTo(brute.runnerUp.score, 4);
+          expect(pruned.evaluated).toBeLessThanOrEqual(brute.evaluated);
+        },
+      ),
+      { numRuns: 40 },
+    );
   });
 
   it('the bound is never below the exact demand (every candidate of random trees)', () => {
-    fc.assert(fc.property(
-      fc.record({ s: fc.double({ min: 8, max: 13, noNaN: true }), heads: fc.integer({ min: 3, max: 7 }), lines: fc.integer({ min: 2, max: 5 }), area: fc.integer({ min: 300, max: 1500 }) }),
-      (p) => {
-        const config = { design: { density: 0.2, area: p.area } };
-        const r = checkLayout({ s: p.s, l: 10, heads: p.heads, lines: p.lines }, config);
-        const settings = parseSettings(config);
-        const basis = designBasis(settings);
-        const areaOf = (id: string) => r.coverage.get(id)!.area!;
-        const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
-        const flowingOf = (ids: string[]) => ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, (0.2 * areaOf(id) / 5.6) ** 2) }));
-        const bound = treeBound(buildModel(r.network, flowingOf(r.plan.heads.map((h) => h.id)), settings))!;
-        const fam = lineFamilies(r.network, r.plan.heads, r.coverage, basis.area)[0]!;
-        for (const c of candidatesOf(fam, areaOf, basis.area)) {
-          const exact = calculateArea(r.network, flowingOf(c.headIds), settings, 0);
-          const b = bound.bound(c.headIds)!;
-          expect(b.pressure).toBeGreaterThanOrEqual(exact.sourcePressure - 1e-6);
-          expect(b.flow).toBeGreaterThanOrEqual(exact.sourceFlow - 1e-6);
-          expect(b.pressure).toBeLessThan(exact.sourcePressure * 1.05); // and it is tight
-        }
-      },
-    ), { numRuns: 15 });
+    fc.assert(
+      fc.property(
+        fc.record({
+          s: fc.double({ min: 8, max: 13, noNaN: true }),
+          heads: fc.integer({ min: 3, max: 7 }),
+          lines: fc.integer({ min: 2, max: 5 }),
+          area: fc.integer({ min: 300, max: 1500 }),
+        }),
+        (p) => {
+          const config = { design: { density: 0.2, area: p.area } };
+          const r = checkLayout({ s: p.s, l: 10, heads: p.heads, lines: p.lines }, config);
+          const settings = parseSettings(config);
+          const basis = designBasis(settings);
+          const areaOf = (id: string) => r.coverage.get(id)!.area!;
+          const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
+          const flowingOf = (ids: string[]) =>
+            ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, ((0.2 * areaOf(id)) / 5.6) ** 2) }));
+          const bound = treeBound(buildModel(r.network, flowingOf(r.plan.heads.map((h) => h.id)), settings))!;
+          const fam = lineFamilies(r.network, r.plan.heads, r.coverage, basis.area)[0]!;
+          for (const c of candidatesOf(fam, areaOf, basis.area)) {
+            const exact = calculateArea(r.network, flowingOf(c.headIds), settings, 0);
+            const b = bound.bound(c.headIds)!;
+            expect(b.pressure).toBeGreaterThanOrEqual(exact.sourcePressure - 1e-6);
+            expect(b.flow).toBeGreaterThanOrEqual(exact.sourceFlow - 1e-6);
+            expect(b.pressure).toBeLessThan(exact.sourcePressure * 1.05); // and it is tight
+          }
+        },
+      ),
+      { numRuns: 15 },
+    );
   });
 
   for (const gridded of [false, true]) {
@@ -100,7 +118,9 @@ describe('design-area search', () => {
     }
     expect([...counts.values()].sort()).toEqual([1, 4, 4, 4]);
     expect(Math.max(...xs)).toBe(90);
-    const lone = best.headIds.find((id) => counts.get(Number(r.network.branchLines.find((b) => b.headIds.includes(id))!.id.slice(1))) === 1)!;
+    const lone = best.headIds.find(
+      (id) => counts.get(Number(r.network.branchLines.find((b) => b.headIds.includes(id))!.id.slice(1))) === 1,
+    )!;
     expect(r.plan.heads.find((h) => h.id === lone)!.position.x).toBe(54);
     expect(best.length).toBeCloseTo(48, 9);
     expect(best.actualArea).toBeCloseTo(13 * 120, 9);

@@ -34,13 +34,21 @@ export interface SearchOutcome {
   pruned: boolean;
 }
 
-interface Scored { candidate: Candidate; demand: AreaDemand; score: number }
+interface Scored {
+  candidate: Candidate;
+  demand: AreaDemand;
+  score: number;
+}
 
 /** Margin over the solver's pressure tolerance when comparing scores, psi. */
 const SCORE_TOL = 1e-5;
 
 export function searchMostDemanding(
-  network: Network, candidates: Candidate[], flowingOf: (ids: string[]) => FlowingHead[], settings: Settings, hose: number,
+  network: Network,
+  candidates: Candidate[],
+  flowingOf: (ids: string[]) => FlowingHead[],
+  settings: Settings,
+  hose: number,
   options: { prune?: boolean } = {},
 ): SearchOutcome {
   // Every head any candidate flows (a set filled head by head: the flat list of all candidates' heads would be
@@ -48,7 +56,8 @@ export function searchMostDemanding(
   const anyArea = new Set<string>();
   for (const c of candidates) for (const id of c.headIds) anyArea.add(id);
   const all = flowingOf([...anyArea]);
-  if (all.length === 0) return { best: null, runnerUp: null, candidates: candidates.length, evaluated: 0, screened: 0, solves: 0, pruned: false };
+  if (all.length === 0)
+    return { best: null, runnerUp: null, candidates: candidates.length, evaluated: 0, screened: 0, solves: 0, pruned: false };
   const prune = options.prune !== false;
   const calculator = new AreaCalculator(network, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
@@ -81,7 +90,10 @@ export function searchMostDemanding(
       const at = calculator.satisfiedAt(heads, P);
       solves++;
       if (!at.satisfied) return false;
-      if (scoreAt(P, at.flow) <= target) { lastFlow = at.flow; return true; }
+      if (scoreAt(P, at.flow) <= target) {
+        lastFlow = at.flow;
+        return true;
+      }
       if (!supply) return false;
       P = target + availablePressure(supply, at.flow + hose);
     }
@@ -93,16 +105,30 @@ export function searchMostDemanding(
     const c = candidates[i]!;
     // On trees the order is by bound: once it cannot beat the runner-up, neither can any candidate left.
     if (top.runnerUp && upper[i]! + SCORE_TOL <= top.runnerUp.score) break;
-    if (prune && ruledOut(c.headIds)) { screened++; continue; }
+    if (prune && ruledOut(c.headIds)) {
+      screened++;
+      continue;
+    }
     const demand = calculator.demand(c.headIds);
     evaluated++;
     solves += demand.solves;
     const scored = { candidate: c, demand, score: scoreAt(demand.sourcePressure, demand.sourceFlow) };
-    if (!top.best || scored.score > top.best.score) { top.runnerUp = top.best; top.best = scored; }
-    else if (!top.runnerUp || scored.score > top.runnerUp.score) top.runnerUp = scored;
+    if (!top.best || scored.score > top.best.score) {
+      top.runnerUp = top.best;
+      top.best = scored;
+    } else if (!top.runnerUp || scored.score > top.runnerUp.score) top.runnerUp = scored;
   }
-  const withTables = (x: Scored | null): ScoredArea | null => x && { candidate: x.candidate, score: x.score, hydraulics: calculator.hydraulicsOf(x.demand, hose) };
-  return { best: withTables(top.best), runnerUp: withTables(top.runnerUp), candidates: candidates.length, evaluated, screened, solves, pruned: bound !== null };
+  const withTables = (x: Scored | null): ScoredArea | null =>
+    x && { candidate: x.candidate, score: x.score, hydraulics: calculator.hydraulicsOf(x.demand, hose) };
+  return {
+    best: withTables(top.best),
+    runnerUp: withTables(top.runnerUp),
+    candidates: candidates.length,
+    evaluated,
+    screened,
+    solves,
+    pruned: bound !== null,
+  };
 }
 
 function estimateOnTree(model: AreaCalculator['model'], candidates: Candidate[], scoreAt: (p: number, q: number) => number): number[] {

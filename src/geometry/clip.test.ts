@@ -4,7 +4,12 @@ import { describe, expect, it } from 'vitest';
 import { signedArea } from './polygon.js';
 import { clipPolygon } from './clip.js';
 
-const square = (x: number, y: number, s: number) => [{ x, y }, { x: x + s, y }, { x: x + s, y: y + s }, { x, y: y + s }];
+const square = (x: number, y: number, s: number) => [
+  { x, y },
+  { x: x + s, y },
+  { x: x + s, y: y + s },
+  { x, y: y + s },
+];
 
 describe('clipPolygon', () => {
   it('keeps the overlap of two squares: 10 × 10 and 10 × 10 offset by (5, 5) share 25', () => {

@@ -18,7 +18,10 @@ export function clipPolygon(subject: Point[], clip: Point[]): Point[] {
     let bestArea = 0;
     for (const face of result.faces as Iterable<flatten.Face>) {
       const area = Math.abs(face.area());
-      if (area > bestArea) { bestArea = area; best = face.edges.map((e: flatten.Edge) => ({ x: e.start.x, y: e.start.y })); }
+      if (area > bestArea) {
+        bestArea = area;
+        best = face.edges.map((e: flatten.Edge) => ({ x: e.start.x, y: e.start.y }));
+      }
     }
     return best.length >= 3 ? best : subject;
   } catch {

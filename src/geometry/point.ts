@@ -29,8 +29,7 @@ export function closestOnSegment(p: Point, a: Point, b: Point): { point: Point; 
 }
 
 /** Distance from `p` to segment a–b. */
-export const distanceToSegment = (p: Point, a: Point, b: Point): number =>
-  distance(p, closestOnSegment(p, a, b).point);
+export const distanceToSegment = (p: Point, a: Point, b: Point): number => distance(p, closestOnSegment(p, a, b).point);
 
 /** Axis-aligned bounds of a set of points. */
 export interface Bounds {
@@ -41,7 +40,10 @@ export interface Bounds {
 }
 
 export function boundsOf(points: Iterable<Point>): Bounds {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   for (const p of points) {
     if (p.x < minX) minX = p.x;
     if (p.y < minY) minY = p.y;

@@ -36,7 +36,12 @@ const IDLE_SHARE = 1e-9;
 /** Velocity in ft/s of `q` gpm in a pipe of inside diameter `d` inches: 0.4085·q/d² (derived from 1 gpm = 0.002228 ft³/s). */
 export const velocityFtPerS = (q: number, d: number): number => (0.4085 * Math.abs(q)) / (d * d);
 
-interface Trial { P: number; value: number; critical: number; state: SolveResult }
+interface Trial {
+  P: number;
+  value: number;
+  critical: number;
+  state: SolveResult;
+}
 
 /** What a design area needs at the source, before its tables are drawn up. */
 export interface AreaDemand {
@@ -61,7 +66,11 @@ export class AreaCalculator {
   private readonly hand: ReturnType<typeof kFactorWalk>;
   private lastPressure: number | undefined;
 
-  constructor(network: Network, mayFlow: FlowingHead[], private readonly settings: Settings) {
+  constructor(
+    network: Network,
+    mayFlow: FlowingHead[],
+    private readonly settings: Settings,
+  ) {
     this.model = buildModel(network, mayFlow, settings);
     if (this.model.emitters.length === 0) throw new Error('no flowing head is connected to the source');
     this.solver = new NetworkSolver(this.model);
@@ -104,17 +113,27 @@ export class AreaCalculator {
       let critical = state.open[0]!;
       state.open.forEach((k, x) => {
         const v = state.pressure[x]! - model.emitters[k]!.required;
-        if (v < value) { value = v; critical = k; }
+        if (v < value) {
+          value = v;
+          critical = k;
+        }
       });
       return { P, value, critical, state };
     };
     const zSource = model.nodes[model.source]!.elevation;
-    const staticHead = maxOf(Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)));
+    const staticHead = maxOf(
+      Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)),
+    );
     const found = findPressure(slack, staticHead, this.lastPressure, () => solves);
     this.lastPressure = found.P;
     return {
-      headIds, sourcePressure: found.P, sourceFlow: found.state.flow.reduce((sum, q) => sum + q, 0),
-      criticalHeadId: model.emitters[found.critical]!.headId, solves, iterations, state: found.state,
+      headIds,
+      sourcePressure: found.P,
+      sourceFlow: found.state.flow.reduce((sum, q) => sum + q, 0),
+      criticalHeadId: model.emitters[found.critical]!.headId,
+      solves,
+      iterations,
+      state: found.state,
     };
   }
 
@@ -132,11 +151,20 @@ export class AreaCalculator {
     const supplyAvailable = settings.supply ? availablePressure(settings.supply, totalDemand) : null;
     const busy = model.pipes.map((_, k) => Math.abs(s.flow[k]!) > IDLE_SHARE * sourceFlow);
     const onBusy = new Set<number>([model.source]);
-    model.pipes.forEach((p, k) => { if (busy[k]) { onBusy.add(p.from); onBusy.add(p.to); } });
+    model.pipes.forEach((p, k) => {
+      if (busy[k]) {
+        onBusy.add(p.from);
+        onBusy.add(p.to);
+      }
+    });
     const emitterAtNode = new Map(model.emitters.map((e, k) => [e.node, k]));
     const hand = this.hand?.bound(d.headIds) ?? null;
     return {
-      sourcePressure: P, sourceFlow, hoseAllowance, totalDemand, supplyAvailable,
+      sourcePressure: P,
+      sourceFlow,
+      hoseAllowance,
+      totalDemand,
+      supplyAvailable,
       margin: supplyAvailable === null ? null : supplyAvailable - P,
       criticalHeadId: d.criticalHeadId,
       nodes: model.nodes.flatMap((n, i) => {
@@ -144,11 +172,25 @@ export class AreaCalculator {
         const k = emitterAtNode.get(i);
         return [{ id: n.id, pressure: s.pressure[i]!, flow: k !== undefined ? s.emitterFlow[k]! : 0, elevation: n.elevation }];
       }),
-      pipes: model.pipes.flatMap((p, k) => busy[k] ? [{
-        id: p.id, flow: s.flow[k]!, velocity: velocityFtPerS(s.flow[k]!, p.diameter), frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
-        length: p.length, fittingsLength: p.fittingsLength, fittings: p.fittings,
-      }] : []),
-      riser: model.riser, handMethod: hand && { sourcePressure: hand.pressure, sourceFlow: hand.flow }, solves: d.solves, iterations: d.iterations,
+      pipes: model.pipes.flatMap((p, k) =>
+        busy[k]
+          ? [
+              {
+                id: p.id,
+                flow: s.flow[k]!,
+                velocity: velocityFtPerS(s.flow[k]!, p.diameter),
+                frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
+                length: p.length,
+                fittingsLength: p.fittingsLength,
+                fittings: p.fittings,
+              },
+            ]
+          : [],
+      ),
+      riser: model.riser,
+      handMethod: hand && { sourcePressure: hand.pressure, sourceFlow: hand.flow },
+      solves: d.solves,
+      iterations: d.iterations,
     };
   }
 }
@@ -182,8 +224,17 @@ function findPressure(slack: (P: number) => Trial, staticHead: number, previous:
   while (solves() < MAX_SOLVES && hi.P - lo.P > PRESSURE_TOL) {
     const m = slack(hi.P - (fh * (hi.P - lo.P)) / (fh - fl));
     if (Math.abs(m.value) <= PRESSURE_TOL) return m;
-    if (m.value < 0) { lo = m; fl = m.value; if (side === -1) fh /= 2; side = -1; }
-    else { hi = m; fh = m.value; if (side === 1) fl /= 2; side = 1; }
+    if (m.value < 0) {
+      lo = m;
+      fl = m.value;
+      if (side === -1) fh /= 2;
+      side = -1;
+    } else {
+      hi = m;
+      fh = m.value;
+      if (side === 1) fl /= 2;
+      side = 1;
+    }
   }
   if (hi.value < -PRESSURE_TOL) throw new Error('the required source pressure could not be found');
   return hi;
@@ -191,5 +242,8 @@ function findPressure(slack: (P: number) => Trial, staticHead: number, previous:
 
 /** One design area on its own. */
 export function calculateArea(network: Network, flowing: FlowingHead[], settings: Settings, hoseAllowance: number): AreaHydraulics {
-  return new AreaCalculator(network, flowing, settings).calculate(flowing.map((f) => f.head.id), hoseAllowance);
+  return new AreaCalculator(network, flowing, settings).calculate(
+    flowing.map((f) => f.head.id),
+    hoseAllowance,
+  );
 }

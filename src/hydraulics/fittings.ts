@@ -4,7 +4,12 @@
 import type { NominalSize } from '../quantities/pipe-sizes.js';
 import { INSIDE_DIAMETER } from '../quantities/pipe-sizes.js';
 
-export interface FittingLengths { elbow45: number; elbow90: number; longTurn90: number; teeTurn: number }
+export interface FittingLengths {
+  elbow45: number;
+  elbow90: number;
+  longTurn90: number;
+  teeTurn: number;
+}
 
 /**
  * Feet, Schedule 40 steel, C = 120. NFPA 13 (2019 edition), Table 28.2.3.1.1: sizes 1, 2 and 4 confirmed

@@ -12,8 +12,13 @@ import { NetworkSolver } from './solver.js';
 import { availablePressure, flowAtZeroPressure } from './water-supply.js';
 
 const onePipe = (): HydraulicModel => ({
-  nodes: [{ id: 'S', elevation: 0 }, { id: 'H', elevation: 0 }],
-  pipes: [{ id: 'P', from: 0, to: 1, length: 100, fittingsLength: 0, fittings: [], diameter: 1.049, c: 120, r: resistance(100, 120, 1.049) }],
+  nodes: [
+    { id: 'S', elevation: 0 },
+    { id: 'H', elevation: 0 },
+  ],
+  pipes: [
+    { id: 'P', from: 0, to: 1, length: 100, fittingsLength: 0, fittings: [], diameter: 1.049, c: 120, r: resistance(100, 120, 1.049) },
+  ],
   emitters: [{ node: 1, headId: 'H1', k: 5.6, required: 7 }],
   source: 0,
   riser: { modelled: 'none', length: 0, nominalSize: '1' },
@@ -63,13 +68,21 @@ describe('network solver', () => {
     const lossA = 10 * frictionPsiPerFt(24 + q1, 120, 1.049);
     const pSource = p1 + lossA;
     const model: HydraulicModel = {
-      nodes: [{ id: 'S', elevation: 0 }, { id: 'N1', elevation: 0 }, { id: 'N2', elevation: 0 }],
+      nodes: [
+        { id: 'S', elevation: 0 },
+        { id: 'N1', elevation: 0 },
+        { id: 'N2', elevation: 0 },
+      ],
       pipes: [
         { id: 'A', from: 0, to: 1, length: 10, fittingsLength: 0, fittings: [], diameter: 1.049, c: 120, r: resistance(10, 120, 1.049) },
         { id: 'B', from: 1, to: 2, length: 12, fittingsLength: 0, fittings: [], diameter: 1.049, c: 120, r: resistance(12, 120, 1.049) },
       ],
-      emitters: [{ node: 1, headId: 'H1', k: 5.6, required: p2 }, { node: 2, headId: 'H2', k: 5.6, required: p2 }],
-      source: 0, riser: { modelled: 'none', length: 0, nominalSize: '1' },
+      emitters: [
+        { node: 1, headId: 'H1', k: 5.6, required: p2 },
+        { node: 2, headId: 'H2', k: 5.6, required: p2 },
+      ],
+      source: 0,
+      riser: { modelled: 'none', length: 0, nominalSize: '1' },
     };
     const solver = new NetworkSolver(model);
     const s = solver.expand(solver.solve(pSource));
@@ -88,7 +101,7 @@ describe('design-area hydraulics against EPANET', () => {
     it(`${gridded ? 'grid' : 'tree'}: source pressure and flow and every node pressure within 1%`, async () => {
       const r = checkLayout({ s: 12, l: 10, heads: 5, lines: 4, gridded }, { defaults: { headElevation: 0, sourceElevation: 0 } });
       expect(r.network.topology).toBe(gridded ? 'grid' : 'tree');
-      const flowing = r.plan.heads.map((h) => ({ head: h, required: Math.max(7, (0.2 * 120 / h.kFactor) ** 2) }));
+      const flowing = r.plan.heads.map((h) => ({ head: h, required: Math.max(7, ((0.2 * 120) / h.kFactor) ** 2) }));
       const a = calculateArea(r.network, flowing, settings, 250);
       const model = buildModel(r.network, flowing, settings);
       const e = await solveWithEpanet(model, a.sourcePressure);
@@ -99,7 +112,7 @@ describe('design-area hydraulics against EPANET', () => {
         expect(Math.abs(e.pressure.get(n.id)! - n.pressure) / a.sourcePressure).toBeLessThan(0.01);
       }
       // the most demanding head is exactly at its requirement, every other one above it
-      const req = (0.2 * 120 / 5.6) ** 2;
+      const req = ((0.2 * 120) / 5.6) ** 2;
       const headPressures = a.nodes.filter((n) => n.flow > 0).map((n) => n.pressure);
       expect(Math.min(...headPressures)).toBeCloseTo(req, 5);
     });
@@ -119,7 +132,10 @@ describe('one solver for many design areas, against EPANET', () => {
       const model = buildModel(r.network, all, settings);
       const solver = new NetworkSolver(model);
       let seed = 7;
-      const random = () => { seed = (seed * 16807) % 2147483647; return seed / 2147483647; };
+      const random = () => {
+        seed = (seed * 16807) % 2147483647;
+        return seed / 2147483647;
+      };
       for (let area = 0; area < 5; area++) {
         const open = all.filter(() => random() < 0.3);
         const ids = new Set(open.map((f) => f.head.id));

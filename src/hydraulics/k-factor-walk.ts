@@ -50,7 +50,10 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
       const chain = sk.chains[c]!;
       const v = chain.a === u ? chain.b : chain.a;
       if (seen[v]) continue;
-      seen[v] = 1; upChain[v] = c; upAnchor[v] = u; order.push(v);
+      seen[v] = 1;
+      upChain[v] = c;
+      upAnchor[v] = u;
+      order.push(v);
     }
   }
   if (order.length !== nA) return null;
@@ -93,20 +96,34 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
   const join = (p: number, q: number) => {
     const jp = scratch[0]!;
     const jq = scratch[1]!;
-    if (jq === 0) { scratch[0] = p; scratch[1] = q; } else if (p <= jp) scratch[1] = jq + q * pow(jp / p, raiseExponent);
-    else { scratch[1] = jq * pow(p / jp, raiseExponent) + q; scratch[0] = p; }
+    if (jq === 0) {
+      scratch[0] = p;
+      scratch[1] = q;
+    } else if (p <= jp) scratch[1] = jq + q * pow(jp / p, raiseExponent);
+    else {
+      scratch[1] = jq * pow(p / jp, raiseExponent) + q;
+      scratch[0] = p;
+    }
   };
   const atLevel = (h: number | null) => {
     if (h === null) return true;
     if (Number.isNaN(h)) return false;
-    if (!levelSeen) { scratch[2] = h; levelSeen = true; }
+    if (!levelSeen) {
+      scratch[2] = h;
+      levelSeen = true;
+    }
     return Math.abs(h - scratch[2]!) <= 1e-9;
   };
   /** Marks the anchors from `from` to the source as reached this call; false where the elevations differ. */
   const touch = (from: number): boolean => {
     for (let v = from; v >= 0 && stamp[v] !== epoch; v = upAnchor[v]!) {
-      stamp[v] = epoch; P[v] = 0; Q[v] = 0; R[v] = 0; touchedRanks[touched++] = rank[v]!;
-      if (v !== sk.source && (!atLevel(anchorZ[v]!) || (upChain[v]! >= 0 && upAnchor[v] !== sk.source && !atLevel(chainZ[upChain[v]!]!)))) return false;
+      stamp[v] = epoch;
+      P[v] = 0;
+      Q[v] = 0;
+      R[v] = 0;
+      touchedRanks[touched++] = rank[v]!;
+      if (v !== sk.source && (!atLevel(anchorZ[v]!) || (upChain[v]! >= 0 && upAnchor[v] !== sk.source && !atLevel(chainZ[upChain[v]!]!))))
+        return false;
       if (v !== sk.source && upAnchor[v] === sk.source && !atLevel(chainZ[upChain[v]!]!)) return false;
     }
     return true;
@@ -126,15 +143,24 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         if (!e) return null;
         heads[headCount++] = e;
         const anchor = sk.anchorOf[e.node]!;
-        if (anchor >= 0) { if (!touch(anchor)) return null; continue; }
+        if (anchor >= 0) {
+          if (!touch(anchor)) return null;
+          continue;
+        }
         const c = sk.chainOf[e.node]!;
         const indices = chainHeadIndex[c]!;
         const emitters = chainHeadEmitter[c]!;
-        if (chainStamp[c] !== epoch) { chainStamp[c] = epoch; chainHeadCount[c] = 0; }
+        if (chainStamp[c] !== epoch) {
+          chainStamp[c] = epoch;
+          chainHeadCount[c] = 0;
+        }
         // Kept in order along the chain (a few heads: an insertion, no sort).
         const index = sk.indexInChain[e.node]!;
         let k = chainHeadCount[c]!++;
-        for (; k > 0 && indices[k - 1]! > index; k--) { indices[k] = indices[k - 1]!; emitters[k] = emitters[k - 1]!; }
+        for (; k > 0 && indices[k - 1]! > index; k--) {
+          indices[k] = indices[k - 1]!;
+          emitters[k] = emitters[k - 1]!;
+        }
         indices[k] = index;
         emitters[k] = e;
         // The chain's lower end: the anchor whose way to the source runs through it.
@@ -145,9 +171,11 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         const e = heads[h]!;
         const anchor = sk.anchorOf[e.node]!;
         if (anchor < 0) continue;
-        scratch[0] = P[anchor]!; scratch[1] = Q[anchor]!;
+        scratch[0] = P[anchor]!;
+        scratch[1] = Q[anchor]!;
         join(e.required, e.k * Math.sqrt(e.required));
-        P[anchor] = scratch[0]!; Q[anchor] = scratch[1]!;
+        P[anchor] = scratch[0]!;
+        Q[anchor] = scratch[1]!;
       }
       // Deepest first: in breadth-first order from the source, read backwards (typed sort, in place).
       touchedRanks.subarray(0, touched).sort();
@@ -187,10 +215,18 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
           r = R[v]! + resistance(c, fromA ? 0 : chain.nodes.length + 1, end);
         }
         if (q === 0) continue;
-        if (Q[u] === 0) { P[u] = p; Q[u] = q; R[u] = r; continue; }
-        scratch[0] = pressureAt(u); scratch[1] = Q[u]!;
+        if (Q[u] === 0) {
+          P[u] = p;
+          Q[u] = q;
+          R[u] = r;
+          continue;
+        }
+        scratch[0] = pressureAt(u);
+        scratch[1] = Q[u]!;
         join(p + r * pow(q, HW_EXPONENT), q);
-        P[u] = scratch[0]!; Q[u] = scratch[1]!; R[u] = 0;
+        P[u] = scratch[0]!;
+        Q[u] = scratch[1]!;
+        R[u] = 0;
       }
       return null;
     },
@@ -203,7 +239,13 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
  */
 export function spanningTreeModel(model: HydraulicModel): HydraulicModel {
   const { parentPipe } = breadthFirst(model);
-  return { ...model, pipes: [...parentPipe].filter((k) => k >= 0).sort((a, b) => a - b).map((k) => model.pipes[k]!) };
+  return {
+    ...model,
+    pipes: [...parentPipe]
+      .filter((k) => k >= 0)
+      .sort((a, b) => a - b)
+      .map((k) => model.pipes[k]!),
+  };
 }
 
 /** Breadth-first from the source: visiting order, and each reached node's pipe and node towards the source. */
@@ -212,7 +254,10 @@ function breadthFirst(model: HydraulicModel): { order: number[]; parentPipe: Int
   const parentPipe = new Int32Array(n).fill(-1);
   const parentNode = new Int32Array(n).fill(-1);
   const incident: number[][] = model.nodes.map(() => []);
-  model.pipes.forEach((p, k) => { incident[p.from]!.push(k); incident[p.to]!.push(k); });
+  model.pipes.forEach((p, k) => {
+    incident[p.from]!.push(k);
+    incident[p.to]!.push(k);
+  });
   const seen = new Uint8Array(n);
   const order = [model.source];
   seen[model.source] = 1;
@@ -222,7 +267,10 @@ function breadthFirst(model: HydraulicModel): { order: number[]; parentPipe: Int
       const p = model.pipes[k]!;
       const v = p.from === u ? p.to : p.from;
       if (seen[v]) continue;
-      seen[v] = 1; parentPipe[v] = k; parentNode[v] = u; order.push(v);
+      seen[v] = 1;
+      parentPipe[v] = k;
+      parentNode[v] = u;
+      order.push(v);
     }
   }
   return { order, parentPipe, parentNode };

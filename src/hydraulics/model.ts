@@ -7,7 +7,10 @@ import type { Head } from '../read/plan.js';
 import { EQUIVALENT_LENGTH_FT, fittingFactor } from './fittings.js';
 import { resistance } from './hazen-williams.js';
 
-export interface ModelNode { id: string; elevation: number }
+export interface ModelNode {
+  id: string;
+  elevation: number;
+}
 export interface ModelPipe {
   id: string;
   from: number;
@@ -20,7 +23,12 @@ export interface ModelPipe {
   c: number;
   r: number;
 }
-export interface Emitter { node: number; headId: string; k: number; required: number }
+export interface Emitter {
+  node: number;
+  headId: string;
+  k: number;
+  required: number;
+}
 
 export interface HydraulicModel {
   nodes: ModelNode[];
@@ -31,7 +39,10 @@ export interface HydraulicModel {
   riser: { modelled: 'virtual' | 'none'; length: number; nominalSize: string };
 }
 
-export interface FlowingHead { head: Head; required: number }
+export interface FlowingHead {
+  head: Head;
+  required: number;
+}
 
 /** Id of the virtual supply node and riser pipe when the supply is below the piping. */
 export const SUPPLY_NODE_ID = 'SUPPLY';
@@ -44,7 +55,10 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
   const flowingByNode = new Map<string, FlowingHead>();
   for (const f of flowing) {
     const n = network.headNode[f.head.id];
-    if (n) { flowingByNode.set(n, f); headOfNode.set(n, f.head); }
+    if (n) {
+      flowingByNode.set(n, f);
+      headOfNode.set(n, f.head);
+    }
   }
   const g = indexNetwork(network);
   const keep = pruneDeadEnds(network, g, new Set(flowingByNode.keys()));
@@ -52,21 +66,35 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
   const index = new Map(nodeIds.map((id, i) => [id, i]));
   const nodes: ModelNode[] = nodeIds.map((id) => ({ id, elevation: headOfNode.get(id)?.elevation ?? pipeLevel }));
   const fittings = settings.design.fittings ? inferFittings(network, g) : null;
-  const pipes: ModelPipe[] = network.pipes.flatMap((p, k) => (keep.pipes[k] ? [{ p, k }] : [])).map(({ p, k }) => {
-    const list = fittings?.[k] ?? [];
-    const eq = EQUIVALENT_LENGTH_FT[p.nominalSize];
-    const factor = fittingFactor(p.cFactor, p.nominalSize, p.innerDiameter);
-    const fittingsLength = list.reduce((s, f) => s + (f === 'tee' ? eq.teeTurn : eq.elbow90), 0) * factor;
-    const length = p.length + fittingsLength;
-    return {
-      id: p.id, from: index.get(p.from)!, to: index.get(p.to)!, length, fittingsLength, fittings: list,
-      diameter: p.innerDiameter, c: p.cFactor, r: resistance(length, p.cFactor, p.innerDiameter),
-    };
-  });
+  const pipes: ModelPipe[] = network.pipes
+    .flatMap((p, k) => (keep.pipes[k] ? [{ p, k }] : []))
+    .map(({ p, k }) => {
+      const list = fittings?.[k] ?? [];
+      const eq = EQUIVALENT_LENGTH_FT[p.nominalSize];
+      const factor = fittingFactor(p.cFactor, p.nominalSize, p.innerDiameter);
+      const fittingsLength = list.reduce((s, f) => s + (f === 'tee' ? eq.teeTurn : eq.elbow90), 0) * factor;
+      const length = p.length + fittingsLength;
+      return {
+        id: p.id,
+        from: index.get(p.from)!,
+        to: index.get(p.to)!,
+        length,
+        fittingsLength,
+        fittings: list,
+        diameter: p.innerDiameter,
+        c: p.cFactor,
+        r: resistance(length, p.cFactor, p.innerDiameter),
+      };
+    });
   // Heads on piping that does not reach the source cannot flow: they are no emitters of this model.
-  const emitters: Emitter[] = [...flowingByNode.entries()].filter(([nodeId]) => index.has(nodeId)).map(([nodeId, f]) => ({
-    node: index.get(nodeId)!, headId: f.head.id, k: f.head.kFactor, required: f.required,
-  }));
+  const emitters: Emitter[] = [...flowingByNode.entries()]
+    .filter(([nodeId]) => index.has(nodeId))
+    .map(([nodeId, f]) => ({
+      node: index.get(nodeId)!,
+      headId: f.head.id,
+      k: f.head.kFactor,
+      required: f.required,
+    }));
   let source = index.get(network.sourceNodeId)!;
   const rise = pipeLevel - settings.defaults.sourceElevation;
   const feed = network.pipes.find((p) => p.from === network.sourceNodeId || p.to === network.sourceNodeId);
@@ -75,8 +103,15 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
     nodes.push({ id: SUPPLY_NODE_ID, elevation: settings.defaults.sourceElevation });
     const length = Math.abs(rise);
     pipes.push({
-      id: RISER_PIPE_ID, from: nodes.length - 1, to: source, length, fittingsLength: 0, fittings: [],
-      diameter: feed.innerDiameter, c: feed.cFactor, r: resistance(length, feed.cFactor, feed.innerDiameter),
+      id: RISER_PIPE_ID,
+      from: nodes.length - 1,
+      to: source,
+      length,
+      fittingsLength: 0,
+      fittings: [],
+      diameter: feed.innerDiameter,
+      c: feed.cFactor,
+      r: resistance(length, feed.cFactor, feed.innerDiameter),
     });
     source = nodes.length - 1;
     riser = { modelled: 'virtual', length, nominalSize: feed.nominalSize };
@@ -85,14 +120,22 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
 }
 
 /** The network's nodes and pipes by index: each pipe's ends, and the pipes at each node. */
-interface Indexed { from: Int32Array; to: Int32Array; incident: number[][]; source: number }
+interface Indexed {
+  from: Int32Array;
+  to: Int32Array;
+  incident: number[][];
+  source: number;
+}
 
 function indexNetwork(network: Network): Indexed {
   const at = new Map(network.nodes.map((n, i) => [n.id, i]));
   const from = Int32Array.from(network.pipes, (p) => at.get(p.from)!);
   const to = Int32Array.from(network.pipes, (p) => at.get(p.to)!);
   const incident: number[][] = network.nodes.map(() => []);
-  for (let k = 0; k < from.length; k++) { incident[from[k]!]!.push(k); incident[to[k]!]!.push(k); }
+  for (let k = 0; k < from.length; k++) {
+    incident[from[k]!]!.push(k);
+    incident[to[k]!]!.push(k);
+  }
   return { from, to, incident, source: network.sourceNodeId ? at.get(network.sourceNodeId)! : -1 };
 }
 

@@ -5,7 +5,17 @@ import { describe, expect, it } from 'vitest';
 import type { HydraulicModel } from './model.js';
 import { buildSkeleton } from './skeleton.js';
 
-const pipe = (from: number, to: number, r: number) => ({ id: `P${from}-${to}`, from, to, length: 1, fittingsLength: 0, fittings: [], diameter: 1, c: 120, r });
+const pipe = (from: number, to: number, r: number) => ({
+  id: `P${from}-${to}`,
+  from,
+  to,
+  length: 1,
+  fittingsLength: 0,
+  fittings: [],
+  diameter: 1,
+  c: 120,
+  r,
+});
 
 // S(0) — 1 — T(2) — 3 — 4 (end), and T(2) — 5 — 6 — back to T(2) (a loop), pipe 4 drawn backwards.
 // Resistances 1 to 7 are invented for the test: only their sums along each chain are checked.
@@ -25,7 +35,14 @@ describe('skeleton', () => {
   });
 
   it('chains run anchor to anchor in order, with signs for pipes drawn the other way and summed resistances', () => {
-    const byEnds = sk.chains.map((c) => ({ a: sk.anchorNode[c.a], b: sk.anchorNode[c.b], nodes: [...c.nodes], pipes: [...c.pipes], sign: [...c.sign], cumR: [...c.cumR] }));
+    const byEnds = sk.chains.map((c) => ({
+      a: sk.anchorNode[c.a],
+      b: sk.anchorNode[c.b],
+      nodes: [...c.nodes],
+      pipes: [...c.pipes],
+      sign: [...c.sign],
+      cumR: [...c.cumR],
+    }));
     expect(byEnds).toEqual([
       { a: 0, b: 2, nodes: [1], pipes: [0, 1], sign: [1, 1], cumR: [0, 1, 3] },
       { a: 2, b: 4, nodes: [3], pipes: [2, 3], sign: [1, -1], cumR: [0, 3, 7] },

@@ -34,10 +34,16 @@ export interface Skeleton {
 export function buildSkeleton(model: HydraulicModel): Skeleton {
   const n = model.nodes.length;
   const incident: number[][] = Array.from({ length: n }, () => []);
-  model.pipes.forEach((p, k) => { incident[p.from]!.push(k); incident[p.to]!.push(k); });
+  model.pipes.forEach((p, k) => {
+    incident[p.from]!.push(k);
+    incident[p.to]!.push(k);
+  });
   const anchorOf = new Int32Array(n).fill(-1);
   const anchorNode: number[] = [];
-  const makeAnchor = (v: number) => { anchorOf[v] = anchorNode.length; anchorNode.push(v); };
+  const makeAnchor = (v: number) => {
+    anchorOf[v] = anchorNode.length;
+    anchorNode.push(v);
+  };
   makeAnchor(model.source);
   for (let v = 0; v < n; v++) if (v !== model.source && incident[v]!.length !== 2) makeAnchor(v);
   const chainOf = new Int32Array(n).fill(-1);
@@ -56,7 +62,10 @@ export function buildSkeleton(model: HydraulicModel): Skeleton {
       const next = p.from === at ? p.to : p.from;
       pipes.push(k);
       sign.push(p.from === at ? 1 : -1);
-      if (anchorOf[next]! >= 0) { at = next; break; }
+      if (anchorOf[next]! >= 0) {
+        at = next;
+        break;
+      }
       chainOf[next] = chains.length;
       indexInChain[next] = nodes.length;
       nodes.push(next);
@@ -65,8 +74,17 @@ export function buildSkeleton(model: HydraulicModel): Skeleton {
       at = next;
     }
     const cumR = new Float64Array(pipes.length + 1);
-    pipes.forEach((pk, j) => { cumR[j + 1] = cumR[j]! + model.pipes[pk]!.r; });
-    chains.push({ a: anchorOf[start]!, b: anchorOf[at]!, nodes: Int32Array.from(nodes), pipes: Int32Array.from(pipes), sign: Int8Array.from(sign), cumR });
+    pipes.forEach((pk, j) => {
+      cumR[j + 1] = cumR[j]! + model.pipes[pk]!.r;
+    });
+    chains.push({
+      a: anchorOf[start]!,
+      b: anchorOf[at]!,
+      nodes: Int32Array.from(nodes),
+      pipes: Int32Array.from(pipes),
+      sign: Int8Array.from(sign),
+      cumR,
+    });
   };
   for (let i = 0; i < anchorNode.length; i++) {
     for (const k of incident[anchorNode[i]!]!) if (!used[k]) walkFrom(anchorNode[i]!, k);
@@ -74,6 +92,9 @@ export function buildSkeleton(model: HydraulicModel): Skeleton {
   // A loop of plain pipes touching no anchor cannot be reached from the source: the model holds none.
   if (used.some((u) => !u)) throw new Error('the network has pipes not reachable from any junction');
   const chainsAt: number[][] = anchorNode.map(() => []);
-  chains.forEach((c, i) => { chainsAt[c.a]!.push(i); if (c.b !== c.a) chainsAt[c.b]!.push(i); });
+  chains.forEach((c, i) => {
+    chainsAt[c.a]!.push(i);
+    if (c.b !== c.a) chainsAt[c.b]!.push(i);
+  });
   return { anchorNode: Int32Array.from(anchorNode), anchorOf, chains, chainsAt, chainOf, indexInChain, source: 0 };
 }

@@ -131,7 +131,13 @@ export class NetworkSolver {
     const chainHeads: number[] = [];
     for (const k of openList) {
       const anchor = emitterAnchor[k]!;
-      if (anchor >= 0) { pinned[anchor] = 1; anchorEmitters.push(k); } else { chainHeads.push(k); headCount[emitterChain[k]!]!++; }
+      if (anchor >= 0) {
+        pinned[anchor] = 1;
+        anchorEmitters.push(k);
+      } else {
+        chainHeads.push(k);
+        headCount[emitterChain[k]!]!++;
+      }
     }
     chainHeads.sort((x, y) => emitterChain[x]! - emitterChain[y]! || emitterIndex[x]! - emitterIndex[y]!);
     // Peel dead ends: an anchor with one live chain end or none, no open head and no source is idle; a chain
@@ -140,7 +146,10 @@ export class NetworkSolver {
     for (let i = 0; i < nC; i++) {
       const on = chainA[i] !== chainB[i] || headCount[i]! > 0 ? 1 : 0;
       alive[i] = aLink[i] = bLink[i] = on;
-      if (on) { degree[chainA[i]!]!++; degree[chainB[i]!]!++; }
+      if (on) {
+        degree[chainA[i]!]!++;
+        degree[chainB[i]!]!++;
+      }
     }
     const liveAnchor = new Uint8Array(nA).fill(1);
     const stack: number[] = [];
@@ -151,16 +160,22 @@ export class NetworkSolver {
       if (!liveAnchor[v] || pinned[v] || degree[v]! > 1) continue;
       liveAnchor[v] = 0;
       let on = -1;
-      for (const i of sk.chainsAt[v]!) if (alive[i] && ((chainA[i] === v && aLink[i]) || (chainB[i] === v && bLink[i]))) { on = i; break; }
+      for (const i of sk.chainsAt[v]!)
+        if (alive[i] && ((chainA[i] === v && aLink[i]) || (chainB[i] === v && bLink[i]))) {
+          on = i;
+          break;
+        }
       peeled.push({ anchor: v, chain: on });
       if (on < 0) continue;
       const atA = chainA[on] === v;
-      if (atA) aLink[on] = 0; else bLink[on] = 0;
+      if (atA) aLink[on] = 0;
+      else bLink[on] = 0;
       if (headCount[on]! > 0) continue;
       alive[on] = 0;
       const w = atA ? chainB[on]! : chainA[on]!;
       if (atA ? bLink[on] : aLink[on]) {
-        if (atA) bLink[on] = 0; else aLink[on] = 0;
+        if (atA) bLink[on] = 0;
+        else aLink[on] = 0;
         if (--degree[w]! <= 1 && !pinned[w]) stack.push(w);
       }
     }
@@ -178,12 +193,25 @@ export class NetworkSolver {
       headStart.push(next);
     }
     const liveChain = Int32Array.from(chain);
-    const linked = (flags: Uint8Array) => { const out = new Uint8Array(chain.length); chain.forEach((c, i) => { out[i] = flags[c]!; }); return out; };
+    const linked = (flags: Uint8Array) => {
+      const out = new Uint8Array(chain.length);
+      chain.forEach((c, i) => {
+        out[i] = flags[c]!;
+      });
+      return out;
+    };
     const headEmitter = Int32Array.from(chainHeads);
     return {
-      chain: liveChain, aLinked: linked(aLink), bLinked: linked(bLink),
-      headStart: Int32Array.from(headStart), headIndex: headEmitter.map((k) => emitterIndex[k]!), headEmitter,
-      liveAnchor, anchorEmitters: Int32Array.from(anchorEmitters), peeled, liveIndex,
+      chain: liveChain,
+      aLinked: linked(aLink),
+      bLinked: linked(bLink),
+      headStart: Int32Array.from(headStart),
+      headIndex: headEmitter.map((k) => emitterIndex[k]!),
+      headEmitter,
+      liveAnchor,
+      anchorEmitters: Int32Array.from(anchorEmitters),
+      peeled,
+      liveIndex,
     };
   }
 
@@ -212,11 +240,16 @@ export class NetworkSolver {
     const { qH, kH, zH, gE, cE, qA, kA, zA, atA, gA, cA, w, x0, xa, xb, segR, segOn, q, g, s, endA, endB, rhs } = this.work;
     for (let h = 0; h < T; h++) {
       const k = headEmitter[h]!;
-      qH[h] = firstFlow(k); kH[h] = model.emitters[k]!.k; zH[h] = zOf(model.emitters[k]!.node);
+      qH[h] = firstFlow(k);
+      kH[h] = model.emitters[k]!.k;
+      zH[h] = zOf(model.emitters[k]!.node);
     }
     for (let e = 0; e < nE; e++) {
       const k = anchorEmitters[e]!;
-      qA[e] = firstFlow(k); kA[e] = model.emitters[k]!.k; zA[e] = zOf(model.emitters[k]!.node); atA[e] = this.emitterAnchor[k]!;
+      qA[e] = firstFlow(k);
+      kA[e] = model.emitters[k]!.k;
+      zA[e] = zOf(model.emitters[k]!.node);
+      atA[e] = this.emitterAnchor[k]!;
     }
     // Head potentials along chains and at anchors, this iteration's and the next (swapped each iteration).
     let H = this.work.H.fill(0, 0, T);
@@ -270,7 +303,11 @@ export class NetworkSolver {
         cE[h] = qH[h]! - ((qH[h]! * Math.abs(qH[h]!)) / K2) * ge - ge * zH[h]!;
       }
       for (let x = 0; x < S; x++) {
-        if (!segOn[x]) { g[x] = 0; s[x] = 0; continue; }
+        if (!segOn[x]) {
+          g[x] = 0;
+          s[x] = 0;
+          continue;
+        }
         const qx = q[x]!;
         const pow = lossPower(Math.abs(qx));
         const gx = 1 / Math.max(HW_EXPONENT * segR[x]! * pow, MIN_SLOPE);
@@ -285,21 +322,31 @@ export class NetworkSolver {
         const base = h0 + i;
         let pA: number, pB: number, pAB: number, pBA: number, cPa: number, cPb: number;
         if (m === 0) {
-          pA = pB = g[base]!; pAB = pBA = -g[base]!; cPa = s[base]!; cPb = -s[base]!;
+          pA = pB = g[base]!;
+          pAB = pBA = -g[base]!;
+          cPa = s[base]!;
+          cPb = -s[base]!;
         } else {
           eliminateHeads(g, s, base, gE, cE, h0, m, w, x0, xa, xb);
           const gFirst = g[base]!;
           const gLast = g[base + m]!;
           const hl = h0 + m - 1;
-          pA = gFirst * (1 - xa[h0]!); pAB = -gFirst * xb[h0]!; cPa = s[base]! - gFirst * x0[h0]!;
-          pBA = -gLast * xa[hl]!; pB = gLast * (1 - xb[hl]!); cPb = -s[base + m]! - gLast * x0[hl]!;
+          pA = gFirst * (1 - xa[h0]!);
+          pAB = -gFirst * xb[h0]!;
+          cPa = s[base]! - gFirst * x0[h0]!;
+          pBA = -gLast * xa[hl]!;
+          pB = gLast * (1 - xb[hl]!);
+          cPb = -s[base + m]! - gLast * x0[hl]!;
         }
         const a = endA[i]!;
         const b = endB[i]!;
         const la = aLinked[i] === 1;
         const lb = bLinked[i] === 1;
         if (la && lb && a === b) {
-          if (a !== src) { system.addAt(diagSlot[a]!, pA + pAB + pBA + pB); rhs[a - 1] = rhs[a - 1]! - cPa - cPb; }
+          if (a !== src) {
+            system.addAt(diagSlot[a]!, pA + pAB + pBA + pB);
+            rhs[a - 1] = rhs[a - 1]! - cPa - cPb;
+          }
           continue;
         }
         if (la && a !== src) {
@@ -354,7 +401,10 @@ export class NetworkSolver {
       }
       [anchorHead, nextAnchor] = [nextAnchor, anchorHead];
       [H, nextH] = [nextH, H];
-      if (iterations > 0 && remaining(dq, lastDq) <= FLOW_TOL * Math.max(total, 1) && remaining(dh, lastDh) <= HEAD_TOL) { iterations++; break; }
+      if (iterations > 0 && remaining(dq, lastDq) <= FLOW_TOL * Math.max(total, 1) && remaining(dh, lastDh) <= HEAD_TOL) {
+        iterations++;
+        break;
+      }
       lastDq = dq;
       lastDh = dh;
     }
@@ -372,7 +422,10 @@ export class NetworkSolver {
     for (let e = 0; e < nE; e++) put(e, anchorEmitters[e]!, anchorHead[atA[e]!]!, qA[e]!, zA[e]!);
     for (let h = 0; h < T; h++) put(nE + h, headEmitter[h]!, H[h]!, qH[h]!, zH[h]!);
     return {
-      open: openOut, pressure, flow, iterations,
+      open: openOut,
+      pressure,
+      flow,
+      iterations,
       solution: keep ? { live, anchorHead: anchorHead.slice(0, nA), headPotential: H.slice(0, T), segmentFlow: q.slice(0, S) } : null,
     };
   }
@@ -411,15 +464,24 @@ export class NetworkSolver {
       if (chain < 0) continue;
       const c = sk.chains[chain]!;
       const li = live.liveIndex[chain]!;
-      if (li < 0) { Hanchor[anchor] = Hanchor[c.a === anchor ? c.b : c.a]!; continue; }
+      if (li < 0) {
+        Hanchor[anchor] = Hanchor[c.a === anchor ? c.b : c.a]!;
+        continue;
+      }
       const h0 = live.headStart[li]!;
       Hanchor[anchor] = headPotential[c.a === anchor ? h0 : live.headStart[li + 1]! - 1]!;
     }
-    sk.chains.forEach((c, i) => { if (live.liveIndex[i]! < 0) for (const v of c.nodes) H[v] = Hanchor[c.a]!; });
-    sk.anchorNode.forEach((v, a) => { H[v] = Hanchor[a]!; });
+    sk.chains.forEach((c, i) => {
+      if (live.liveIndex[i]! < 0) for (const v of c.nodes) H[v] = Hanchor[c.a]!;
+    });
+    sk.anchorNode.forEach((v, a) => {
+      H[v] = Hanchor[a]!;
+    });
     const pressure = Float64Array.from(model.nodes, (node, v) => H[v]! - PSI_PER_FT * node.elevation);
     const emitterFlow = new Float64Array(model.emitters.length);
-    result.open.forEach((k, x) => { emitterFlow[k] = result.flow[x]!; });
+    result.open.forEach((k, x) => {
+      emitterFlow[k] = result.flow[x]!;
+    });
     return { pressure, flow, emitterFlow, iterations: result.iterations };
   }
 }
@@ -434,18 +496,44 @@ function workspace(emitters: number, chains: number, anchors: number) {
   const f = (n: number) => new Float64Array(n);
   return {
     // open heads on chains: flow, K, elevation head, linearization, elimination, potential now and next
-    qH: f(emitters), kH: f(emitters), zH: f(emitters), gE: f(emitters), cE: f(emitters),
-    w: f(emitters), x0: f(emitters), xa: f(emitters), xb: f(emitters), H: f(emitters), nextH: f(emitters),
+    qH: f(emitters),
+    kH: f(emitters),
+    zH: f(emitters),
+    gE: f(emitters),
+    cE: f(emitters),
+    w: f(emitters),
+    x0: f(emitters),
+    xa: f(emitters),
+    xb: f(emitters),
+    H: f(emitters),
+    nextH: f(emitters),
     // open heads on anchors
-    qA: f(emitters), kA: f(emitters), zA: f(emitters), gA: f(emitters), cA: f(emitters), atA: new Int32Array(emitters),
+    qA: f(emitters),
+    kA: f(emitters),
+    zA: f(emitters),
+    gA: f(emitters),
+    cA: f(emitters),
+    atA: new Int32Array(emitters),
     // segments of live chains, and the chains' end anchors
-    segR: f(emitters + chains), q: f(emitters + chains), g: f(emitters + chains), s: f(emitters + chains),
-    segOn: new Uint8Array(emitters + chains), endA: new Int32Array(chains), endB: new Int32Array(chains),
+    segR: f(emitters + chains),
+    q: f(emitters + chains),
+    g: f(emitters + chains),
+    s: f(emitters + chains),
+    segOn: new Uint8Array(emitters + chains),
+    endA: new Int32Array(chains),
+    endB: new Int32Array(chains),
     // the anchor system
-    rhs: f(anchors), solved: f(anchors), anchorHead: f(anchors), nextAnchor: f(anchors),
+    rhs: f(anchors),
+    solved: f(anchors),
+    anchorHead: f(anchors),
+    nextAnchor: f(anchors),
     // finding the live part
-    pinned: new Uint8Array(anchors), degree: new Int32Array(anchors),
-    alive: new Uint8Array(chains), aLink: new Uint8Array(chains), bLink: new Uint8Array(chains), headCount: new Int32Array(chains),
+    pinned: new Uint8Array(anchors),
+    degree: new Int32Array(anchors),
+    alive: new Uint8Array(chains),
+    aLink: new Uint8Array(chains),
+    bLink: new Uint8Array(chains),
+    headCount: new Int32Array(chains),
   };
 }
 
@@ -455,8 +543,17 @@ function workspace(emitters: number, chains: number, anchors: number) {
  * x0 + xa·H_a + xb·H_b. Head h lies between segment h and segment h + 1 of the chain.
  */
 function eliminateHeads(
-  g: Float64Array, s: Float64Array, base: number, gE: Float64Array, cE: Float64Array, h0: number, m: number,
-  w: Float64Array, x0: Float64Array, xa: Float64Array, xb: Float64Array,
+  g: Float64Array,
+  s: Float64Array,
+  base: number,
+  gE: Float64Array,
+  cE: Float64Array,
+  h0: number,
+  m: number,
+  w: Float64Array,
+  x0: Float64Array,
+  xa: Float64Array,
+  xb: Float64Array,
 ): void {
   for (let i = 0; i < m; i++) {
     const h = h0 + i;

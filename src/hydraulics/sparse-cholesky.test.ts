@@ -28,30 +28,47 @@ function denseSolve(a: number[][], b: number[]): number[] {
 
 describe('SparseSpdSystem', () => {
   it('solves random grounded Laplacians like dense elimination', () => {
-    fc.assert(fc.property(fc.integer({ min: 2, max: 25 }), fc.integer({ min: 0, max: 1_000_000 }), (n, seed) => {
-      let s = seed;
-      const rnd = () => ((s = (s * 1103515245 + 12345) % 2147483648) / 2147483648);
-      const edges: [number, number][] = [];
-      for (let i = 1; i < n; i++) edges.push([i, Math.floor(rnd() * i)]);
-      for (let e = 0; e < n / 2; e++) { const a = Math.floor(rnd() * n); const b = Math.floor(rnd() * n); if (a !== b) edges.push([a, b]); }
-      const sys = new SparseSpdSystem(n, edges);
-      const dense = Array.from({ length: n }, () => new Array(n).fill(0));
-      for (const [a, b] of edges) {
-        const w = 0.1 + rnd() * 10;
-        sys.add(a, a, w); sys.add(b, b, w); sys.add(a, b, -w);
-        dense[a]![a] += w; dense[b]![b] += w; dense[a]![b] -= w; dense[b]![a] -= w;
-      }
-      sys.add(0, 0, 1); dense[0]![0] += 1; // grounded: positive definite
-      const b = Array.from({ length: n }, () => rnd() * 2 - 1);
-      const x = sys.solve(Float64Array.from(b));
-      const ref = denseSolve(dense, b);
-      ref.forEach((v, i) => expect(x[i]).toBeCloseTo(v, 6));
-    }), { numRuns: 60 });
+    fc.assert(
+      fc.property(fc.integer({ min: 2, max: 25 }), fc.integer({ min: 0, max: 1_000_000 }), (n, seed) => {
+        let s = seed;
+        const rnd = () => (s = (s * 1103515245 + 12345) % 2147483648) / 2147483648;
+        const edges: [number, number][] = [];
+        for (let i = 1; i < n; i++) edges.push([i, Math.floor(rnd() * i)]);
+        for (let e = 0; e < n / 2; e++) {
+          const a = Math.floor(rnd() * n);
+          const b = Math.floor(rnd() * n);
+          if (a !== b) edges.push([a, b]);
+        }
+        const sys = new SparseSpdSystem(n, edges);
+        const dense = Array.from({ length: n }, () => new Array(n).fill(0));
+        for (const [a, b] of edges) {
+          const w = 0.1 + rnd() * 10;
+          sys.add(a, a, w);
+          sys.add(b, b, w);
+          sys.add(a, b, -w);
+          dense[a]![a] += w;
+          dense[b]![b] += w;
+          dense[a]![b] -= w;
+          dense[b]![a] -= w;
+        }
+        sys.add(0, 0, 1);
+        dense[0]![0] += 1; // grounded: positive definite
+        const b = Array.from({ length: n }, () => rnd() * 2 - 1);
+        const x = sys.solve(Float64Array.from(b));
+        const ref = denseSolve(dense, b);
+        ref.forEach((v, i) => {
+          expect(x[i]).toBeCloseTo(v, 6);
+        });
+      }),
+      { numRuns: 60 },
+    );
   });
 
   it('refuses a singular system (an island without a fixed pressure)', () => {
     const sys = new SparseSpdSystem(2, [[0, 1]]);
-    sys.add(0, 0, 1); sys.add(1, 1, 1); sys.add(0, 1, -1);
+    sys.add(0, 0, 1);
+    sys.add(1, 1, 1);
+    sys.add(0, 1, -1);
     expect(() => sys.solve(new Float64Array([1, -1]))).toThrow(/not positive definite/);
   });
 });

@@ -26,7 +26,9 @@ export class SparseSpdSystem {
     this.n = n;
     const { order, structure } = minimumDegree(n, edges);
     this.pos = new Int32Array(n);
-    order.forEach((v, j) => { this.pos[v] = j; });
+    order.forEach((v, j) => {
+      this.pos[v] = j;
+    });
     this.diagSlot = Int32Array.from({ length: n }, (_, j) => j);
     this.colStart = new Int32Array(n + 1);
     const rows: number[] = [];
@@ -35,7 +37,12 @@ export class SparseSpdSystem {
     this.slotOf = new Map();
     for (let j = 0; j < n; j++) {
       const r = structure[j]!.map((v) => this.pos[v]!).sort((a, b) => a - b);
-      for (const i of r) { rows.push(i); slots.push(next); this.slotOf.set(i * n + j, next); next++; }
+      for (const i of r) {
+        rows.push(i);
+        slots.push(next);
+        this.slotOf.set(i * n + j, next);
+        next++;
+      }
       this.colStart[j + 1] = rows.length;
     }
     this.colRows = Int32Array.from(rows);
@@ -129,7 +136,11 @@ export class SparseSpdSystem {
  */
 function minimumDegree(n: number, edges: readonly (readonly [number, number])[]): { order: number[]; structure: number[][] } {
   const adj: Set<number>[] = Array.from({ length: n }, () => new Set());
-  for (const [a, b] of edges) if (a !== b) { adj[a]!.add(b); adj[b]!.add(a); }
+  for (const [a, b] of edges)
+    if (a !== b) {
+      adj[a]!.add(b);
+      adj[b]!.add(a);
+    }
   const buckets: Set<number>[] = [];
   const degree = new Int32Array(n);
   const place = (v: number) => {
@@ -156,7 +167,10 @@ function minimumDegree(n: number, edges: readonly (readonly [number, number])[])
       adj[a]!.delete(v);
       for (const b of nb) if (a !== b) adj[a]!.add(b);
     }
-    for (const a of nb) { place(a); if (degree[a]! < low) low = degree[a]!; }
+    for (const a of nb) {
+      place(a);
+      if (degree[a]! < low) low = degree[a]!;
+    }
   }
   return { order, structure };
 }

@@ -1,7 +1,11 @@
 // The water supply from a flow test at the source: static pressure Ps, residual Pr while flowing Qr;
 // available P(Q) = Ps − (Ps − Pr)·(Q/Qr)^1.85 (confirmed, the NFPA 291 form), a straight line on Q^1.85 paper.
 
-export interface FlowTest { static: number; residual: number; flow: number }
+export interface FlowTest {
+  static: number;
+  residual: number;
+  flow: number;
+}
 
 /** Pressure the supply gives at a flow: the NFPA 291 line, and nothing beyond where it reaches zero. */
 export function availablePressure(test: FlowTest, flowGpm: number): number {

@@ -34,5 +34,9 @@ function collector(): (() => void) | null {
 export function collectBetweenStages(drawingBytes: number): ((stage: string) => void) | undefined {
   if (drawingBytes < LARGE_DRAWING_BYTES) return undefined;
   const collect = collector();
-  return collect ? (stage) => { if (COLLECT_AFTER.has(stage)) collect(); } : undefined;
+  return collect
+    ? (stage) => {
+        if (COLLECT_AFTER.has(stage)) collect();
+      }
+    : undefined;
 }

@@ -36,11 +36,30 @@ describe('writeAllAtomically', () => {
   it('leaves no file, finished or temporary, when making a later output fails, and passes its error on', async () => {
     const dir = folder();
     const made: string[] = [];
-    await expect(writeAllAtomically([
-      { path: join(dir, 'report.json'), data: () => { made.push('json'); return '{}\n'; } },
-      { path: join(dir, 'plan.dxf'), data: () => { throw new InputError('the drawing has no ENTITIES section'); } },
-      { path: join(dir, 'report.html'), data: () => { made.push('html'); return '<p>'; } },
-    ])).rejects.toThrow(/^the drawing has no ENTITIES section$/);
+    await expect(
+      writeAllAtomically([
+        {
+          path: join(dir, 'report.json'),
+          data: () => {
+            made.push('json');
+            return '{}\n';
+          },
+        },
+        {
+          path: join(dir, 'plan.dxf'),
+          data: () => {
+            throw new InputError('the drawing has no ENTITIES section');
+          },
+        },
+        {
+          path: join(dir, 'report.html'),
+          data: () => {
+            made.push('html');
+            return '<p>';
+          },
+        },
+      ]),
+    ).rejects.toThrow(/^the drawing has no ENTITIES section$/);
     expect(made).toEqual(['json']); // the HTML was never made
     expect(readdirSync(dir)).toEqual([]);
   });

@@ -36,7 +36,6 @@ export function assertNotInput(output: string, input: string): void {
   if (resolve(output) === resolve(input)) throw new InputError(`${output}: an output may not overwrite the input drawing`);
 }
 
-
 /** Temporary files start so (in the output's own folder, so that the rename stays on one disk) and end `.tmp`. */
 const TEMP_PREFIX = '.headcheck-';
 /** A temporary file older than this in an output folder is left by a run that was killed: removed at start. */
@@ -72,7 +71,10 @@ export async function writeAllAtomically(files: { path: string; data: OutputData
   const temps: { tmp: string; path: string }[] = [];
   const renamed: string[] = [];
   const clean = () => {
-    for (const t of temps) { removeQuietly(t.tmp); openTemps.delete(t.tmp); }
+    for (const t of temps) {
+      removeQuietly(t.tmp);
+      openTemps.delete(t.tmp);
+    }
     for (const r of renamed) removeQuietly(r);
   };
   const release = guardTemps();
@@ -145,7 +147,8 @@ function cleanAndEnd(signal: NodeJS.Signals): void {
   const mine = `-${process.pid}-`;
   for (const dir of outputFolders) {
     try {
-      for (const name of readdirSync(dir)) if (name.startsWith(TEMP_PREFIX) && name.includes(mine) && name.endsWith('.tmp')) removeQuietly(join(dir, name));
+      for (const name of readdirSync(dir))
+        if (name.startsWith(TEMP_PREFIX) && name.includes(mine) && name.endsWith('.tmp')) removeQuietly(join(dir, name));
     } catch {
       // the folder went away
     }
@@ -163,7 +166,9 @@ function guardTemps(): () => void {
   if (typeof process.on !== 'function' || !isMainThread) return () => undefined;
   const handlers = SIGNALS.map((signal) => [signal, () => cleanAndEnd(signal)] as const);
   for (const [signal, handler] of handlers) process.on(signal, handler);
-  return () => { for (const [signal, handler] of handlers) process.off(signal, handler); };
+  return () => {
+    for (const [signal, handler] of handlers) process.off(signal, handler);
+  };
 }
 
 /** For the whole of a run whose thread waits on workers (the batch): the same cleanup on a signal. */
@@ -175,12 +180,16 @@ export function cleanUpOnSignals(): void {
 }
 
 /** Marks a folder where worker threads of this process write (the batch output folder), for the cleanup above. */
-export const watchOutputFolder = (dir: string) => { sweepStaleTemps(resolve(dir)); };
+export const watchOutputFolder = (dir: string) => {
+  sweepStaleTemps(resolve(dir));
+};
 
 /** Writes the data a piece at a time, each write a turn of the event loop (so that a signal can be handled). */
 async function writeData(path: string, data: OutputData): Promise<void> {
   const file = await open(path, 'w');
-  const put = async (piece: Uint8Array) => { for (let at = 0; at < piece.length;) at += (await file.write(piece, at, piece.length - at)).bytesWritten; };
+  const put = async (piece: Uint8Array) => {
+    for (let at = 0; at < piece.length; ) at += (await file.write(piece, at, piece.length - at)).bytesWritten;
+  };
   try {
     if (typeof data === 'string') for (const piece of utf8Pieces(data)) await put(piece);
     else for (const piece of Array.isArray(data) ? data : [data]) await put(piece);
@@ -194,7 +203,7 @@ const TEXT_PIECE = 1 << 20;
 
 /** The text as UTF-8, a piece at a time, never splitting a surrogate pair. */
 function* utf8Pieces(text: string): Generator<Uint8Array> {
-  for (let at = 0; at < text.length;) {
+  for (let at = 0; at < text.length; ) {
     let end = Math.min(text.length, at + TEXT_PIECE);
     const last = text.charCodeAt(end - 1);
     if (end < text.length && last >= 0xd800 && last <= 0xdbff) end--;

@@ -31,30 +31,57 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
   const maxNodes = settings.inputLimits.networkNodes;
   if (g.nodes.length > maxNodes) fail(`the piping has ${g.nodes.length} nodes, over the limit of ${maxNodes} (inputLimits.networkNodes)`);
   const headAt = new Map<number, string>();
-  plan.heads.forEach((h, i) => { const n = g.attached[i]!; if (n >= 0 && !headAt.has(n)) headAt.set(n, h.id); });
+  plan.heads.forEach((h, i) => {
+    const n = g.attached[i]!;
+    if (n >= 0 && !headAt.has(n)) headAt.set(n, h.id);
+  });
   const sourceRaw = plan.sources.map((_, i) => g.attached[plan.heads.length + i]!).find((n) => n >= 0) ?? -1;
 
-  const chains = mergeChains(g.nodes.length, g.edges, (n) => headAt.has(n) || n === sourceRaw, (e) => strokeSizes[e.stroke] ?? null);
+  const chains = mergeChains(
+    g.nodes.length,
+    g.edges,
+    (n) => headAt.has(n) || n === sourceRaw,
+    (e) => strokeSizes[e.stroke] ?? null,
+  );
   // Renumber the nodes that remain pipe ends.
   const keep = new Map<number, number>();
-  const nodeOf = (raw: number) => { if (!keep.has(raw)) keep.set(raw, keep.size); return keep.get(raw)!; };
-  for (const c of chains) { nodeOf(c.from); nodeOf(c.to); }
+  const nodeOf = (raw: number) => {
+    if (!keep.has(raw)) keep.set(raw, keep.size);
+    return keep.get(raw)!;
+  };
+  for (const c of chains) {
+    nodeOf(c.from);
+    nodeOf(c.to);
+  }
   const nodes: NetNode[] = [...keep.entries()].map(([raw, i]) => ({
-    id: `N${i + 1}`, position: g.nodes[raw]!, isSource: raw === sourceRaw,
+    id: `N${i + 1}`,
+    position: g.nodes[raw]!,
+    isSource: raw === sourceRaw,
     ...(headAt.has(raw) ? { headId: headAt.get(raw)! } : {}),
   }));
   const schedule = settings.defaults.schedule;
   const runs = groupRuns(
-    nodes.length, chains.map((c) => ({ from: keep.get(c.from)!, to: keep.get(c.to)!, points: c.points, size: c.size ?? defaultSize })), (n) => nodes[n]!.headId !== undefined,
+    nodes.length,
+    chains.map((c) => ({ from: keep.get(c.from)!, to: keep.get(c.to)!, points: c.points, size: c.size ?? defaultSize })),
+    (n) => nodes[n]!.headId !== undefined,
   );
   const pipes: NetPipe[] = chains.map((c, i) => {
     const size = c.size ?? defaultSize;
     return {
-      id: `P${i + 1}`, from: nodes[keep.get(c.from)!]!.id, to: nodes[keep.get(c.to)!]!.id,
-      handles: [...new Set(c.edges.map((e) => plan.pipes[e.stroke]!.handle))], points: c.points, length: c.length, bends: c.bends,
-      nominalSize: size, sizeFrom: c.size ? 'label' : 'default', unreadLabels: [...new Set(c.edges.flatMap((e) => unread.get(e.stroke) ?? []))],
+      id: `P${i + 1}`,
+      from: nodes[keep.get(c.from)!]!.id,
+      to: nodes[keep.get(c.to)!]!.id,
+      handles: [...new Set(c.edges.map((e) => plan.pipes[e.stroke]!.handle))],
+      points: c.points,
+      length: c.length,
+      bends: c.bends,
+      nominalSize: size,
+      sizeFrom: c.size ? 'label' : 'default',
+      unreadLabels: [...new Set(c.edges.flatMap((e) => unread.get(e.stroke) ?? []))],
       innerDiameter: INSIDE_DIAMETER[schedule][size],
-      cFactor: settings.defaults.cFactor, role: 'unknown', run: runs[i]!,
+      cFactor: settings.defaults.cFactor,
+      role: 'unknown',
+      run: runs[i]!,
     };
   });
   const headNode: Record<string, string> = {};
@@ -65,7 +92,14 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
   });
   const sourceNodeId = sourceRaw >= 0 && keep.has(sourceRaw) ? nodes[keep.get(sourceRaw)!]!.id : null;
   const unattachedHeadIds = plan.heads.filter((h) => !headNode[h.id]).map((h) => h.id);
-  return classify(nodes, pipes, headNode, sourceNodeId, unattachedHeadIds, plan.heads.map((h) => h.id));
+  return classify(
+    nodes,
+    pipes,
+    headNode,
+    sourceNodeId,
+    unattachedHeadIds,
+    plan.heads.map((h) => h.id),
+  );
 }
 
 interface Chain {
@@ -81,8 +115,12 @@ interface Chain {
 /** Joins edges through plain two-pipe nodes (no head, no source, same size) into one pipe each. */
 function mergeChains(nodeCount: number, edges: Edge[], pinned: (n: number) => boolean, sizeOf: (e: Edge) => NominalSize | null): Chain[] {
   const incident: number[][] = Array.from({ length: nodeCount }, () => []);
-  edges.forEach((e, i) => { incident[e.a]!.push(i); incident[e.b]!.push(i); });
-  const through = (n: number) => incident[n]!.length === 2 && !pinned(n) && sizeOf(edges[incident[n]![0]!]!) === sizeOf(edges[incident[n]![1]!]!);
+  edges.forEach((e, i) => {
+    incident[e.a]!.push(i);
+    incident[e.b]!.push(i);
+  });
+  const through = (n: number) =>
+    incident[n]!.length === 2 && !pinned(n) && sizeOf(edges[incident[n]![0]!]!) === sizeOf(edges[incident[n]![1]!]!);
   const used = new Set<number>();
   const chains: Chain[] = [];
   const walk = (start: number, first: number): Chain => {
@@ -111,7 +149,9 @@ function mergeChains(nodeCount: number, edges: Edge[], pinned: (n: number) => bo
     if (through(n)) continue;
     for (const ei of incident[n]!) if (!used.has(ei)) chains.push(walk(n, ei));
   }
-  edges.forEach((e, i) => { if (!used.has(i)) chains.push(walk(e.a, i)); }); // closed rings of plain nodes
+  edges.forEach((e, i) => {
+    if (!used.has(i)) chains.push(walk(e.a, i));
+  }); // closed rings of plain nodes
   return chains.filter((c) => c.from !== c.to || c.length > 0);
 }
 
@@ -129,12 +169,19 @@ function countBends(points: Point[], edges: Edge[]): number {
 
 /** Roles, branch lines, topology and disconnected parts. */
 function classify(
-  nodes: NetNode[], pipes: NetPipe[], headNode: Record<string, string>, sourceNodeId: string | null,
-  unattachedHeadIds: string[], headOrder: string[],
+  nodes: NetNode[],
+  pipes: NetPipe[],
+  headNode: Record<string, string>,
+  sourceNodeId: string | null,
+  unattachedHeadIds: string[],
+  headOrder: string[],
 ): Network {
   const nodeById = new Map(nodes.map((n) => [n.id, n]));
   const incident = new Map<string, NetPipe[]>(nodes.map((n) => [n.id, []]));
-  for (const p of pipes) { incident.get(p.from)!.push(p); incident.get(p.to)!.push(p); }
+  for (const p of pipes) {
+    incident.get(p.from)!.push(p);
+    incident.get(p.to)!.push(p);
+  }
   const degree = (id: string) => incident.get(id)!.length;
   const hasHead = (id: string) => nodeById.get(id)!.headId !== undefined;
 
@@ -142,7 +189,8 @@ function classify(
   const runPipes = new Map<number, NetPipe[]>();
   for (const p of pipes) {
     const list = runPipes.get(p.run);
-    if (list) list.push(p); else runPipes.set(p.run, [p]);
+    if (list) list.push(p);
+    else runPipes.set(p.run, [p]);
   }
   const isDrop = (p: NetPipe) => {
     if (p.length > DROP_MAX_FT || runPipes.get(p.run)!.length !== 1) return false;
@@ -180,7 +228,11 @@ function classify(
     for (let i = 0; i < order.length; i++) {
       for (const p of incident.get(order[i]!)!) {
         const other = p.from === order[i] ? p.to : p.from;
-        if (!reached.has(other)) { reached.add(other); order.push(other); parentPipe.set(other, p); }
+        if (!reached.has(other)) {
+          reached.add(other);
+          order.push(other);
+          parentPipe.set(other, p);
+        }
       }
     }
   }
@@ -196,7 +248,8 @@ function classify(
 
   // Mains: runs without heads; a run touching two or more branch lines is a cross main.
   const runNodes = new Map<number, Set<string>>();
-  for (const p of pipes) if (p.role !== 'drop') for (const n of [p.from, p.to]) runNodes.set(p.run, (runNodes.get(p.run) ?? new Set()).add(n));
+  for (const p of pipes)
+    if (p.role !== 'drop') for (const n of [p.from, p.to]) runNodes.set(p.run, (runNodes.get(p.run) ?? new Set()).add(n));
   const branchesTouching = (run: number) => {
     const touching = new Set<number>();
     for (const n of runNodes.get(run) ?? []) for (const r of runsAtNode.get(n) ?? []) if (r !== run && branchRuns.has(r)) touching.add(r);
@@ -216,8 +269,15 @@ function classify(
   const topology: Topology = loops <= 0 ? 'tree' : gridded ? 'grid' : 'loop';
   const headNodeIds = new Set(Object.values(headNode));
   return {
-    nodes, pipes, branchLines, headNode, sourceNodeId, topology, loops: Math.max(0, loops),
-    unattachedHeadIds, disconnected: disconnectedParts(nodes, reached, incident, headNodeIds),
+    nodes,
+    pipes,
+    branchLines,
+    headNode,
+    sourceNodeId,
+    topology,
+    loops: Math.max(0, loops),
+    unattachedHeadIds,
+    disconnected: disconnectedParts(nodes, reached, incident, headNodeIds),
   };
 }
 
@@ -232,8 +292,12 @@ function mainRunAt(nodeId: string, incident: Map<string, NetPipe[]>): number | n
 }
 
 function buildBranchLines(
-  pipes: NetPipe[], runHeads: Map<number, Set<string>>, nodeById: Map<string, NetNode>, incident: Map<string, NetPipe[]>,
-  headOrder: string[], headNode: Record<string, string>,
+  pipes: NetPipe[],
+  runHeads: Map<number, Set<string>>,
+  nodeById: Map<string, NetNode>,
+  incident: Map<string, NetPipe[]>,
+  headOrder: string[],
+  headNode: Record<string, string>,
 ): BranchLine[] {
   const rank = new Map(headOrder.map((h, i) => [h, i]));
   const lines: BranchLine[] = [];
@@ -263,7 +327,10 @@ function farthestPair(pts: Point[]): [Point, Point] {
 }
 
 function disconnectedParts(
-  nodes: NetNode[], reached: Set<string>, incident: Map<string, NetPipe[]>, headNodeIds: Set<string>,
+  nodes: NetNode[],
+  reached: Set<string>,
+  incident: Map<string, NetPipe[]>,
+  headNodeIds: Set<string>,
 ): DisconnectedPart[] {
   const byId = new Map(nodes.map((n) => [n.id, n]));
   const seen = new Set<string>(reached);
@@ -281,7 +348,10 @@ function disconnectedParts(
       for (const p of incident.get(id)!) {
         partPipes.add(p);
         const other = p.from === id ? p.to : p.from;
-        if (!seen.has(other)) { seen.add(other); stack.push(other); }
+        if (!seen.has(other)) {
+          seen.add(other);
+          stack.push(other);
+        }
       }
     }
     const list = [...partPipes];

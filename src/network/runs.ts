@@ -21,12 +21,21 @@ export function groupRuns(nodeCount: number, pipes: RunPipe[], hasHead: (node: n
   const find = (i: number): number => {
     let root = i;
     while (parent[root] !== root) root = parent[root]!;
-    for (let at = i; parent[at] !== root;) { const up = parent[at]!; parent[at] = root; at = up; }
+    for (let at = i; parent[at] !== root; ) {
+      const up = parent[at]!;
+      parent[at] = root;
+      at = up;
+    }
     return root;
   };
-  const union = (a: number, b: number) => { parent[find(a)] = find(b); };
+  const union = (a: number, b: number) => {
+    parent[find(a)] = find(b);
+  };
   const incident: number[][] = Array.from({ length: nodeCount }, () => []);
-  pipes.forEach((p, i) => { incident[p.from]!.push(i); incident[p.to]!.push(i); });
+  pipes.forEach((p, i) => {
+    incident[p.from]!.push(i);
+    incident[p.to]!.push(i);
+  });
 
   /** Direction leaving node n along pipe i. */
   const outward = (n: number, i: number): Point => {
@@ -35,7 +44,10 @@ export function groupRuns(nodeCount: number, pipes: RunPipe[], hasHead: (node: n
   };
 
   incident.forEach((list, n) => {
-    if (list.length === 2 && hasHead(n)) { union(list[0]!, list[1]!); return; }
+    if (list.length === 2 && hasHead(n)) {
+      union(list[0]!, list[1]!);
+      return;
+    }
     const free = new Set(list);
     const pairs: { i: number; j: number; straight: number }[] = [];
     for (let x = 0; x < list.length; x++) {
@@ -47,7 +59,11 @@ export function groupRuns(nodeCount: number, pipes: RunPipe[], hasHead: (node: n
     pairs.sort((p, q) => q.straight - p.straight);
     for (const p of pairs) {
       if (p.straight < STRAIGHT_COS) break;
-      if (free.has(p.i) && free.has(p.j)) { union(p.i, p.j); free.delete(p.i); free.delete(p.j); }
+      if (free.has(p.i) && free.has(p.j)) {
+        union(p.i, p.j);
+        free.delete(p.i);
+        free.delete(p.j);
+      }
     }
   });
   const ids = new Map<number, number>();

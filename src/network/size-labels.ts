@@ -7,7 +7,13 @@ import type { Stroke, TextItem } from '../read/types.js';
 import { parseSizeLabel, type NominalSize } from '../quantities/pipe-sizes.js';
 import { maxOf, minOf } from '../arrays.js';
 
-interface Box { minX: number; minY: number; maxX: number; maxY: number; i: number }
+interface Box {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+  i: number;
+}
 
 function distanceToStroke(p: Point, s: Stroke): number {
   const pts = [s.a, ...s.via, s.b];
@@ -20,13 +26,19 @@ function distanceToStroke(p: Point, s: Stroke): number {
  * Each stroke's size from the nearest readable label within `reach`, and the labels that read like sizes but name
  * none (`99"`), by the stroke they stand beside, so that the assumption made there can quote them.
  */
-export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: number): { sizes: (NominalSize | null)[]; unread: Map<number, string[]> } {
+export function sizesFromLabels(
+  strokes: Stroke[],
+  labels: TextItem[],
+  reach: number,
+): { sizes: (NominalSize | null)[]; unread: Map<number, string[]> } {
   const index = new RBush<Box>();
-  index.load(strokes.map((s, i) => {
-    const xs = [s.a.x, s.b.x, ...s.via.map((v) => v.x)];
-    const ys = [s.a.y, s.b.y, ...s.via.map((v) => v.y)];
-    return { minX: minOf(xs), minY: minOf(ys), maxX: maxOf(xs), maxY: maxOf(ys), i };
-  }));
+  index.load(
+    strokes.map((s, i) => {
+      const xs = [s.a.x, s.b.x, ...s.via.map((v) => v.x)];
+      const ys = [s.a.y, s.b.y, ...s.via.map((v) => v.y)];
+      return { minX: minOf(xs), minY: minOf(ys), maxX: maxOf(xs), maxY: maxOf(ys), i };
+    }),
+  );
   const own: (NominalSize | null)[] = strokes.map(() => null);
   const ownDistance = strokes.map(() => Infinity);
   const unread = new Map<number, string[]>();
@@ -39,13 +51,22 @@ export function sizesFromLabels(strokes: Stroke[], labels: TextItem[], reach: nu
     const p = label.position;
     for (const box of index.search({ minX: p.x - reach, minY: p.y - reach, maxX: p.x + reach, maxY: p.y + reach })) {
       const d = Math.min(...probes.map((q) => distanceToStroke(q, strokes[box.i]!)));
-      if (d <= reach && d < bestD) { best = box.i; bestD = d; }
+      if (d <= reach && d < bestD) {
+        best = box.i;
+        bestD = d;
+      }
     }
     if (best < 0) continue;
     if (!size) unread.set(best, [...(unread.get(best) ?? []), label.text.trim()]);
-    else if (bestD < ownDistance[best]!) { own[best] = size; ownDistance[best] = bestD; }
+    else if (bestD < ownDistance[best]!) {
+      own[best] = size;
+      ownDistance[best] = bestD;
+    }
   }
   const byHandle = new Map<string, NominalSize>();
-  strokes.forEach((s, i) => { const v = own[i]; if (v && !byHandle.has(s.handle)) byHandle.set(s.handle, v); });
+  strokes.forEach((s, i) => {
+    const v = own[i];
+    if (v && !byHandle.has(s.handle)) byHandle.set(s.handle, v);
+  });
   return { sizes: strokes.map((s, i) => own[i] ?? byHandle.get(s.handle) ?? null), unread };
 }

@@ -33,9 +33,15 @@ interface Box {
 const strokePoints = (s: Stroke): Point[] => [s.a, ...s.via, s.b];
 
 function boxOf(points: Point[], pad: number, i: number): Box {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   for (const p of points) {
-    minX = Math.min(minX, p.x); minY = Math.min(minY, p.y); maxX = Math.max(maxX, p.x); maxY = Math.max(maxY, p.y);
+    minX = Math.min(minX, p.x);
+    minY = Math.min(minY, p.y);
+    maxX = Math.max(maxX, p.x);
+    maxY = Math.max(maxY, p.y);
   }
   return { minX: minX - pad, minY: minY - pad, maxX: maxX + pad, maxY: maxY + pad, i };
 }
@@ -105,7 +111,10 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
     let bestD = Infinity;
     for (const box of nodeIndex.search({ minX: p.x - snap, minY: p.y - snap, maxX: p.x + snap, maxY: p.y + snap })) {
       const d = distance(p, nodes[box.i]!);
-      if (d <= snap && d < bestD) { best = box.i; bestD = d; }
+      if (d <= snap && d < bestD) {
+        best = box.i;
+        bestD = d;
+      }
     }
     if (best >= 0) return best;
     nodes.push(p);

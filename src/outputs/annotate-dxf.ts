@@ -11,7 +11,11 @@ import * as rec from './dxf-records.js';
 import { dxfStructure, type TableEntry, type TableInfo } from './dxf-structure.js';
 
 /** Bytes [at, end) of the original replaced by `bytes` (at = end: an insertion). */
-interface Splice { at: number; end: number; bytes: Uint8Array }
+interface Splice {
+  at: number;
+  end: number;
+  bytes: Uint8Array;
+}
 
 /**
  * The annotated drawing in pieces, to be written one after another: ranges of the original bytes (views, not
@@ -41,14 +45,16 @@ export function annotateDxf(bytes: Uint8Array, version: string, units: LengthUni
     bumpCount(layerTable, newLayers.length, splices, encode);
   } else {
     const before = sections.get('BLOCKS')?.begin ?? sections.get('ENTITIES')?.begin;
-    if (before !== undefined) insertAt(before, [0, 'SECTION', 2, 'TABLES', 0, 'TABLE', 2, 'LAYER', 70, newLayers.length, ...layerPairs, 0, 'ENDTAB', 0, 'ENDSEC']);
+    if (before !== undefined)
+      insertAt(before, [0, 'SECTION', 2, 'TABLES', 0, 'TABLE', 2, 'LAYER', 70, newLayers.length, ...layerPairs, 0, 'ENDTAB', 0, 'ENDSEC']);
   }
 
   // The legend block and its block record.
   const recordTable = tables.get('BLOCK_RECORD');
   const legendBlock = uniqueName(notes.legend.block, new Set([...(recordTable?.names ?? []), ...blockNames]));
   const def = rec.blockDefinition(ctx, legendBlock, { x: 0, y: 0 }, recordTable?.handle ?? null, (inner) =>
-    notes.legend.primitives.flatMap((p) => primitive(inner, p, put)));
+    notes.legend.primitives.flatMap((p) => primitive(inner, p, put)),
+  );
   if (def.record && recordTable) {
     insertAt(recordTable.endTab, def.record);
     bumpCount(recordTable, 1, splices, encode);
@@ -72,9 +78,12 @@ export function annotateDxf(bytes: Uint8Array, version: string, units: LengthUni
 function primitive(ctx: rec.RecordContext, p: Primitive, put: (p: Point) => Point): rec.Pairs {
   const color = p.color === 256 ? undefined : p.color;
   switch (p.kind) {
-    case 'circle': return rec.circle(ctx, p.layer, put(p.center), put({ x: p.radius, y: 0 }).x, color);
-    case 'text': return rec.text(ctx, p.layer, put(p.at), put({ x: p.height, y: 0 }).x, sanitize(p.text), color);
-    case 'polyline': return rec.polyline(ctx, p.layer, p.points.map(put), p.closed, color);
+    case 'circle':
+      return rec.circle(ctx, p.layer, put(p.center), put({ x: p.radius, y: 0 }).x, color);
+    case 'text':
+      return rec.text(ctx, p.layer, put(p.at), put({ x: p.height, y: 0 }).x, sanitize(p.text), color);
+    case 'polyline':
+      return rec.polyline(ctx, p.layer, p.points.map(put), p.closed, color);
   }
 }
 
@@ -84,6 +93,7 @@ const sanitize = (s: string) => s.replace(/[\r\n\t]+/g, ' ').replace(/\^/g, ' ')
 /** R2007 and later are UTF-8; older drawings take non-ASCII characters as \U+XXXX escapes (then all ASCII). */
 function encodeText(s: string, utf8: boolean): Uint8Array {
   if (utf8) return new TextEncoder().encode(s);
+  // biome-ignore lint/suspicious/noControlCharactersInRegex: the range is every ASCII byte, NUL included
   const ascii = s.replace(/[^\x00-\x7f]/g, (ch) => `\\U+${ch.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`);
   const out = new Uint8Array(ascii.length);
   for (let i = 0; i < ascii.length; i++) out[i] = ascii.charCodeAt(i);

@@ -54,9 +54,20 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
   for (const f of a.findings) {
     const color = SEVERITY_COLOR[f.severity];
     prims.push({ kind: 'circle', layer: LAYERS.findings.name, center: f.at, radius: 2 * h, color });
-    prims.push({ kind: 'text', layer: LAYERS.findings.name, at: { x: f.at.x + 2.2 * h, y: f.at.y + 1.2 * h }, height: h, text: findingLabel(f, fmt), color });
+    prims.push({
+      kind: 'text',
+      layer: LAYERS.findings.name,
+      at: { x: f.at.x + 2.2 * h, y: f.at.y + 1.2 * h },
+      height: h,
+      text: findingLabel(f, fmt),
+      color,
+    });
   }
-  const areaName = { drawn: 'DRAWN DESIGN AREA', 'most-demanding': 'MOST DEMANDING AREA (searched)', 'runner-up': 'RUNNER-UP AREA (searched)' };
+  const areaName = {
+    drawn: 'DRAWN DESIGN AREA',
+    'most-demanding': 'MOST DEMANDING AREA (searched)',
+    'runner-up': 'RUNNER-UP AREA (searched)',
+  };
   const areaColor = { drawn: 2, 'most-demanding': 6, 'runner-up': 4 };
   for (const area of a.design.areas) {
     const key = area.rank ?? 'drawn';
@@ -66,8 +77,12 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
     const hy = area.hydraulics;
     const numbers = hy ? `, ${fmt.pressure(hy.sourcePressure)} at ${fmt.flow(hy.sourceFlow)} at the source` : '';
     prims.push({
-      kind: 'text', layer: LAYERS.area.name, at: { x: top.minX, y: top.maxY + (key === 'runner-up' ? 2.8 : key === 'drawn' ? 4.4 : 1.2) * h }, height: h,
-      text: `${areaName[key]}: ${area.headIds.length} heads, ${fmt.area(area.actualArea)}${numbers}`, color: areaColor[key],
+      kind: 'text',
+      layer: LAYERS.area.name,
+      at: { x: top.minX, y: top.maxY + (key === 'runner-up' ? 2.8 : key === 'drawn' ? 4.4 : 1.2) * h },
+      height: h,
+      text: `${areaName[key]}: ${area.headIds.length} heads, ${fmt.area(area.actualArea)}${numbers}`,
+      color: areaColor[key],
     });
   }
   const best = a.design.areas.find((x) => x.rank === 'most-demanding')?.hydraulics;
@@ -78,8 +93,12 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
       const node = nodeAt.get(n.id);
       if (!node) continue;
       prims.push({
-        kind: 'text', layer: LAYERS.heads.name, at: { x: node.position.x + 0.6 * h, y: node.position.y - 1.6 * h }, height: 0.7 * h,
-        text: `${headOfNode.get(n.id) ?? n.id} ${fmt.pressure(n.pressure)} ${fmt.flow(n.flow)}`, color: LAYERS.heads.color,
+        kind: 'text',
+        layer: LAYERS.heads.name,
+        at: { x: node.position.x + 0.6 * h, y: node.position.y - 1.6 * h },
+        height: 0.7 * h,
+        text: `${headOfNode.get(n.id) ?? n.id} ${fmt.pressure(n.pressure)} ${fmt.flow(n.flow)}`,
+        color: LAYERS.heads.color,
       });
     }
     const pipeAt = new Map(a.network.pipes.map((p) => [p.id, p]));
@@ -88,10 +107,17 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
       if (!pipe) continue;
       const mid = pipe.points[Math.floor(pipe.points.length / 2)]!;
       const prev = pipe.points[Math.max(0, Math.floor(pipe.points.length / 2) - 1)]!;
-      const at = pipe.points.length === 2 ? { x: (pipe.points[0]!.x + pipe.points[1]!.x) / 2, y: (pipe.points[0]!.y + pipe.points[1]!.y) / 2 } : { x: (mid.x + prev.x) / 2, y: (mid.y + prev.y) / 2 };
+      const at =
+        pipe.points.length === 2
+          ? { x: (pipe.points[0]!.x + pipe.points[1]!.x) / 2, y: (pipe.points[0]!.y + pipe.points[1]!.y) / 2 }
+          : { x: (mid.x + prev.x) / 2, y: (mid.y + prev.y) / 2 };
       prims.push({
-        kind: 'text', layer: LAYERS.pipes.name, at: { x: at.x, y: at.y + 0.5 * h }, height: 0.6 * h,
-        text: `${pipe.id} ${pipe.nominalSize}" ${fmt.flow(Math.abs(p.flow))}`, color: LAYERS.pipes.color,
+        kind: 'text',
+        layer: LAYERS.pipes.name,
+        at: { x: at.x, y: at.y + 0.5 * h },
+        height: 0.6 * h,
+        text: `${pipe.id} ${pipe.nominalSize}" ${fmt.flow(Math.abs(p.flow))}`,
+        color: LAYERS.pipes.color,
       });
     }
   }
@@ -106,13 +132,20 @@ function findingLabel(f: Finding, fmt: Formatter): string {
   const show = (v: number | null) => {
     if (v === null) return '';
     switch (f.quantity) {
-      case 'length': return fmt.length(v);
-      case 'area': return fmt.area(v);
-      case 'pressure': return fmt.pressure(v);
-      case 'flow': return fmt.flow(v);
-      case 'kFactor': return fmt.kFactor(v);
-      case 'density': return fmt.density(v);
-      default: return String(Math.round(v * 100) / 100);
+      case 'length':
+        return fmt.length(v);
+      case 'area':
+        return fmt.area(v);
+      case 'pressure':
+        return fmt.pressure(v);
+      case 'flow':
+        return fmt.flow(v);
+      case 'kFactor':
+        return fmt.kFactor(v);
+      case 'density':
+        return fmt.density(v);
+      default:
+        return String(Math.round(v * 100) / 100);
     }
   };
   const values = f.measured !== null && f.limit !== null ? `: ${show(f.measured)} (limit ${show(f.limit)})` : '';
@@ -129,18 +162,40 @@ function legend(a: AnnotationInput, h: number): Primitive[] {
     `Drawing: ${a.fileName.split(/[\\/]/).pop()}`,
     `Verdict: ${errors ? 'FAIL' : 'PASS'} - ${errors} errors, ${warnings} warnings`,
     `Limits: ${a.edition}; density ${a.fmt.density(a.design.basis.density)} over ${a.fmt.area(a.design.basis.area)}`,
-    ...(best ? [`Most demanding area: ${a.fmt.pressure(best.sourcePressure)} at ${a.fmt.flow(best.sourceFlow)} + ${a.fmt.flow(best.hoseAllowance)} hose`] : []),
-    ...(best && best.supplyAvailable !== null ? [`Supply: ${a.fmt.pressure(best.supplyAvailable)} at ${a.fmt.flow(best.totalDemand)}; margin ${a.fmt.pressure(best.margin!)}`] : []),
+    ...(best
+      ? [
+          `Most demanding area: ${a.fmt.pressure(best.sourcePressure)} at ${a.fmt.flow(best.sourceFlow)} + ${a.fmt.flow(best.hoseAllowance)} hose`,
+        ]
+      : []),
+    ...(best && best.supplyAvailable !== null
+      ? [`Supply: ${a.fmt.pressure(best.supplyAvailable)} at ${a.fmt.flow(best.totalDemand)}; margin ${a.fmt.pressure(best.margin!)}`]
+      : []),
     'Layers: HC-FINDINGS rings red = error, orange = warning, cyan = info; HC-DESIGN-AREA outlines;',
     'HC-HEAD-TAGS pressure and flow of flowing heads; HC-PIPE-TAGS pipe size and flow.',
     ...wrap(CAUTION, 90),
   ];
   const prims: Primitive[] = lines.map((t, i) => ({
-    kind: 'text', layer: '0', at: { x: h, y: -(i + 1) * 1.8 * h }, height: i === 0 ? 1.2 * h : h, text: t, color: i === 0 ? 7 : 256,
+    kind: 'text',
+    layer: '0',
+    at: { x: h, y: -(i + 1) * 1.8 * h },
+    height: i === 0 ? 1.2 * h : h,
+    text: t,
+    color: i === 0 ? 7 : 256,
   }));
   const width = Math.max(...lines.map((l) => l.length)) * 0.75 * h + 2 * h;
   const height = (lines.length + 0.8) * 1.8 * h;
-  prims.push({ kind: 'polyline', layer: '0', points: [{ x: 0, y: 0 }, { x: width, y: 0 }, { x: width, y: -height }, { x: 0, y: -height }], closed: true, color: 256 });
+  prims.push({
+    kind: 'polyline',
+    layer: '0',
+    points: [
+      { x: 0, y: 0 },
+      { x: width, y: 0 },
+      { x: width, y: -height },
+      { x: 0, y: -height },
+    ],
+    closed: true,
+    color: 256,
+  });
   return prims;
 }
 
@@ -148,7 +203,10 @@ function wrap(text: string, width: number): string[] {
   const out: string[] = [];
   let line = '';
   for (const word of text.split(/\s+/)) {
-    if ((line + ' ' + word).trim().length > width) { out.push(line.trim()); line = word; } else line += ` ${word}`;
+    if (`${line} ${word}`.trim().length > width) {
+      out.push(line.trim());
+      line = word;
+    } else line += ` ${word}`;
   }
   if (line.trim()) out.push(line.trim());
   return out;

@@ -4,5 +4,7 @@ import { EDITION } from '../basis/limits.js';
 
 export const CAUTION =
   'headcheck is a screening aid for plan reviewers and designers, not a substitute for a licensed fire-protection ' +
-  'engineer or the authority having jurisdiction. Its limits follow ' + EDITION + '; the locally adopted code, ' +
+  'engineer or the authority having jurisdiction. Its limits follow ' +
+  EDITION +
+  '; the locally adopted code, ' +
   "the heads' listings and the insurer's rules prevail and must be checked.";

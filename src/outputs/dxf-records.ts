@@ -42,11 +42,33 @@ function head(ctx: RecordContext, type: string, layer: string, subclass: string,
   return out;
 }
 
-export const line = (ctx: RecordContext, layer: string, a: Point, b: Point, color?: number): Pairs =>
-  [...head(ctx, 'LINE', layer, 'AcDbLine', color), 10, a.x, 20, a.y, 30, 0, 11, b.x, 21, b.y, 31, 0];
+export const line = (ctx: RecordContext, layer: string, a: Point, b: Point, color?: number): Pairs => [
+  ...head(ctx, 'LINE', layer, 'AcDbLine', color),
+  10,
+  a.x,
+  20,
+  a.y,
+  30,
+  0,
+  11,
+  b.x,
+  21,
+  b.y,
+  31,
+  0,
+];
 
-export const circle = (ctx: RecordContext, layer: string, c: Point, r: number, color?: number): Pairs =>
-  [...head(ctx, 'CIRCLE', layer, 'AcDbCircle', color), 10, c.x, 20, c.y, 30, 0, 40, r];
+export const circle = (ctx: RecordContext, layer: string, c: Point, r: number, color?: number): Pairs => [
+  ...head(ctx, 'CIRCLE', layer, 'AcDbCircle', color),
+  10,
+  c.x,
+  20,
+  c.y,
+  30,
+  0,
+  40,
+  r,
+];
 
 export function text(ctx: RecordContext, layer: string, at: Point, height: number, value: string, color?: number): Pairs {
   const out = [...head(ctx, 'TEXT', layer, 'AcDbText', color), 10, at.x, 20, at.y, 30, 0, 40, height, 1, value];
@@ -67,7 +89,10 @@ export function polyline(ctx: RecordContext, layer: string, pts: Point[], closed
 }
 
 export interface InsertOptions {
-  rotation?: number; sx?: number; sy?: number; attribs?: { tag: string; value: string }[];
+  rotation?: number;
+  sx?: number;
+  sy?: number;
+  attribs?: { tag: string; value: string }[];
   /** A MINSERT array: columns and rows, and their spacing. */
   grid?: { columns: number; rows: number; columnSpacing: number; rowSpacing: number };
 }
@@ -102,14 +127,28 @@ export function layerRecord(ctx: RecordContext, name: string, color: number, tab
 
 /** A block definition: its BLOCK_RECORD entry (modern drawings) and its BLOCK … ENDBLK groups. */
 export function blockDefinition(
-  ctx: RecordContext, name: string, base: Point, recordTable: string | null, body: (inner: RecordContext) => Pairs,
+  ctx: RecordContext,
+  name: string,
+  base: Point,
+  recordTable: string | null,
+  body: (inner: RecordContext) => Pairs,
 ): { record: Pairs | null; block: Pairs } {
   let record: Pairs | null = null;
   let recordHandle: string | null = null;
   if (ctx.modern) {
     recordHandle = ctx.handles ? ctx.handles.next() : null;
-    record = [0, 'BLOCK_RECORD', ...(recordHandle ? [5, recordHandle] : []), ...(recordTable ? [330, recordTable] : []),
-      100, 'AcDbSymbolTableRecord', 100, 'AcDbBlockTableRecord', 2, name];
+    record = [
+      0,
+      'BLOCK_RECORD',
+      ...(recordHandle ? [5, recordHandle] : []),
+      ...(recordTable ? [330, recordTable] : []),
+      100,
+      'AcDbSymbolTableRecord',
+      100,
+      'AcDbBlockTableRecord',
+      2,
+      name,
+    ];
   }
   const inner: RecordContext = { ...ctx, owner: recordHandle };
   const begin: Pairs = [0, 'BLOCK'];

@@ -14,17 +14,64 @@ const dxf = (...pairs: (string | number)[]) => {
 
 const header = (seed: string) => [0, 'SECTION', 2, 'HEADER', 9, '$ACADVER', 1, 'AC1015', 9, '$HANDSEED', 5, seed, 0, 'ENDSEC'];
 const tables = [
-  0, 'SECTION', 2, 'TABLES',
-  0, 'TABLE', 2, 'LAYER', 5, '2', 70, 2,
-  0, 'LAYER', 5, '10', 2, '0', 70, 0, 390, 'F',
-  0, 'LAYER', 5, '11', 2, 'fp-pipe', 70, 0,
-  0, 'ENDTAB', 0, 'ENDSEC',
+  0,
+  'SECTION',
+  2,
+  'TABLES',
+  0,
+  'TABLE',
+  2,
+  'LAYER',
+  5,
+  '2',
+  70,
+  2,
+  0,
+  'LAYER',
+  5,
+  '10',
+  2,
+  '0',
+  70,
+  0,
+  390,
+  'F',
+  0,
+  'LAYER',
+  5,
+  '11',
+  2,
+  'fp-pipe',
+  70,
+  0,
+  0,
+  'ENDTAB',
+  0,
+  'ENDSEC',
 ];
 const blocks = [0, 'SECTION', 2, 'BLOCKS', 0, 'BLOCK', 5, '20', 8, '0', 2, 'Head', 70, 0, 0, 'ENDBLK', 5, '21', 0, 'ENDSEC'];
 
 describe('dxfStructure', () => {
   it('finds the sections, the LAYER table with its count and entries, and the block names', () => {
-    const bytes = dxf(...header('30'), ...tables, ...blocks, 0, 'SECTION', 2, 'ENTITIES', 0, 'LINE', 5, '22', 8, 'FP-PIPE', 0, 'ENDSEC', 0, 'EOF');
+    const bytes = dxf(
+      ...header('30'),
+      ...tables,
+      ...blocks,
+      0,
+      'SECTION',
+      2,
+      'ENTITIES',
+      0,
+      'LINE',
+      5,
+      '22',
+      8,
+      'FP-PIPE',
+      0,
+      'ENDSEC',
+      0,
+      'EOF',
+    );
     const s = dxfStructure(bytes);
     expect([...s.sections.keys()]).toEqual(['HEADER', 'TABLES', 'BLOCKS', 'ENTITIES']);
     const text = new TextDecoder().decode(bytes);

@@ -75,19 +75,33 @@ export function dxfStructure(bytes: Uint8Array): DxfStructure {
     if (awaited === 'section-name') section = code === 2 ? c.latin1().toUpperCase() : null;
     if (awaited === 'seed' && code === 5) out.handseed = field();
     if (awaited === 'table-name' && code === 2) {
-      table = { name: c.latin1().toUpperCase(), info: { handle: null, count: null, endTab: -1, names: new Set(), entries: [] }, entry: null };
+      table = {
+        name: c.latin1().toUpperCase(),
+        info: { handle: null, count: null, endTab: -1, names: new Set(), entries: [] },
+        entry: null,
+      };
       continue;
     }
     if (code === 0) {
       inBlockRecord = false;
-      if (c.valueIs('SECTION')) { sectionBegin = c.start; section = null; table = null; expect = 'section-name'; continue; }
+      if (c.valueIs('SECTION')) {
+        sectionBegin = c.start;
+        section = null;
+        table = null;
+        expect = 'section-name';
+        continue;
+      }
       if (c.valueIs('ENDSEC')) {
         if (section !== null) out.sections.set(section, { begin: sectionBegin, endsec: c.start });
         section = null;
         table = null;
         continue;
       }
-      if (section === 'TABLES' && c.valueIs('TABLE')) { table = null; expect = 'table-name'; continue; }
+      if (section === 'TABLES' && c.valueIs('TABLE')) {
+        table = null;
+        expect = 'table-name';
+        continue;
+      }
       if (table && c.valueIs('ENDTAB')) {
         table.info.endTab = c.start;
         for (const e of table.info.entries) table.info.names.add((e.find((g) => g.code === 2)?.value ?? '').toUpperCase());

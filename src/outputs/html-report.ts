@@ -13,7 +13,12 @@ import { supplyGraph } from './supply-graph.js';
 import { pushAll } from '../arrays.js';
 
 const ROLE_COLOR: Record<PipeRole, string> = {
-  branch: '#1f6fd1', 'cross-main': '#7a3fc4', 'feed-main': '#b3261e', riser: '#b3261e', drop: '#2e7d32', unknown: '#888',
+  branch: '#1f6fd1',
+  'cross-main': '#7a3fc4',
+  'feed-main': '#b3261e',
+  riser: '#b3261e',
+  drop: '#2e7d32',
+  unknown: '#888',
 };
 
 export function htmlReport(result: Reviewed): string {
@@ -29,7 +34,9 @@ export function htmlReport(result: Reviewed): string {
     ` Limits: ${esc(r.limits.edition)}, hazard ${esc(r.design.hazard)}. Units: ${esc(u.length)}, ${esc(u.flow)}, ${esc(u.pressure)}.</p>`,
     `<p class="caution">${esc(CAUTION)}</p></header>`,
     '<section><h2>Plan</h2><div class="tools"><button type="button" id="fit">Fit</button> <span>wheel or pinch to zoom, drag to pan</span></div>',
-    planSvg(result), legendHtml(), '</section>',
+    planSvg(result),
+    legendHtml(),
+    '</section>',
     findingsTable(r.findings),
     designAreasHtml(result, fmt),
     supplyHtml(result, c, u),
@@ -46,7 +53,11 @@ export function htmlReport(result: Reviewed): string {
 function planSvg(result: Reviewed): string {
   const { plan, network, design, findings } = result;
   const said = result.report.findings;
-  const pts: Point[] = [...plan.heads.map((h) => h.position), ...network.nodes.map((n) => n.position), ...plan.rooms.flatMap((x) => x.points)];
+  const pts: Point[] = [
+    ...plan.heads.map((h) => h.position),
+    ...network.nodes.map((n) => n.position),
+    ...plan.rooms.flatMap((x) => x.points),
+  ];
   const b = boundsOf(pts.length ? pts : [{ x: 0, y: 0 }]);
   const pad = Math.max(b.maxX - b.minX, b.maxY - b.minY, 1) * 0.04;
   const w = b.maxX - b.minX + 2 * pad;
@@ -56,24 +67,45 @@ function planSvg(result: Reviewed): string {
   const path = (ps: Point[], close: boolean) => `M${ps.map((p) => `${X(p)} ${Y(p)}`).join(' L')}${close ? ' Z' : ''}`;
   const unit = Math.max(w, h) / 250;
   const parts: string[] = [];
-  pushAll(parts, plan.rooms.map((room) => `<path class="room" d="${path(room.points, true)}"/>`));
-  pushAll(parts, plan.walls.map((s) => `<path class="wall" d="${path([s.a, ...s.via, s.b], false)}"/>`));
+  pushAll(
+    parts,
+    plan.rooms.map((room) => `<path class="room" d="${path(room.points, true)}"/>`),
+  );
+  pushAll(
+    parts,
+    plan.walls.map((s) => `<path class="wall" d="${path([s.a, ...s.via, s.b], false)}"/>`),
+  );
   for (const a of design.areas) {
     if (a.outline.length < 3) continue;
-    parts.push(`<path class="area area-${a.rank ?? 'drawn'}" d="${path(a.outline, true)}"><title>${esc(a.rank ?? 'drawn')} design area: ${a.headIds.length} heads</title></path>`);
+    parts.push(
+      `<path class="area area-${a.rank ?? 'drawn'}" d="${path(a.outline, true)}"><title>${esc(a.rank ?? 'drawn')} design area: ${a.headIds.length} heads</title></path>`,
+    );
   }
   // Few large paths, not one element per pipe or head: a plan of 20,000 heads stays smooth to zoom and pan.
   for (const role of Object.keys(ROLE_COLOR) as PipeRole[]) {
     const mine = network.pipes.filter((p) => p.role === role);
-    if (mine.length) parts.push(`<path class="pipe" data-role="${role}" data-count="${mine.length}" stroke="${ROLE_COLOR[role]}" d="${mine.map((p) => path(p.points, false)).join(' ')}"/>`);
+    if (mine.length)
+      parts.push(
+        `<path class="pipe" data-role="${role}" data-count="${mine.length}" stroke="${ROLE_COLOR[role]}" d="${mine.map((p) => path(p.points, false)).join(' ')}"/>`,
+      );
   }
   const flowing = new Set(design.areas.find((a) => a.rank === 'most-demanding')?.headIds ?? []);
   const r = unit * 1.1;
-  const ring = (p: Point) => `M${(Number(X(p)) - r).toFixed(3)} ${Y(p)}a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(2 * r).toFixed(3)} 0a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(-2 * r).toFixed(3)} 0`;
-  for (const [cls, heads] of [['head', plan.heads.filter((h) => !flowing.has(h.id))], ['head flowing', plan.heads.filter((h) => flowing.has(h.id))]] as const) {
+  const ring = (p: Point) =>
+    `M${(Number(X(p)) - r).toFixed(3)} ${Y(p)}a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(2 * r).toFixed(3)} 0a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(-2 * r).toFixed(3)} 0`;
+  for (const [cls, heads] of [
+    ['head', plan.heads.filter((h) => !flowing.has(h.id))],
+    ['head flowing', plan.heads.filter((h) => flowing.has(h.id))],
+  ] as const) {
     if (heads.length) parts.push(`<path class="${cls}" data-count="${heads.length}" d="${heads.map((h) => ring(h.position)).join('')}"/>`);
   }
-  pushAll(parts, findings.map((f, i) => `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(said[i]!.message)}</title></circle>`));
+  pushAll(
+    parts,
+    findings.map(
+      (f, i) =>
+        `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(said[i]!.message)}</title></circle>`,
+    ),
+  );
   return `<div class="planbox"><svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg></div>`;
 }
 
@@ -85,38 +117,73 @@ function legendHtml(): string {
 
 function findingsTable(findings: Reviewed['report']['findings']): string {
   if (!findings.length) return '<section><h2>Findings</h2><p>None.</p></section>';
-  const rows = findings.map((f, i) => `<tr class="${f.severity}" data-finding="${i}" tabindex="0"><td>${esc(f.severity)}</td><td><code>${esc(f.rule)}</code></td><td>${esc(f.message)}</td><td>${f.measured ?? ''}</td><td>${f.limit ?? ''}</td><td>${esc(f.handles.join(' '))}</td><td class="ref">${esc(f.reference)}</td></tr>`);
+  const rows = findings.map(
+    (f, i) =>
+      `<tr class="${f.severity}" data-finding="${i}" tabindex="0"><td>${esc(f.severity)}</td><td><code>${esc(f.rule)}</code></td><td>${esc(f.message)}</td><td>${f.measured ?? ''}</td><td>${f.limit ?? ''}</td><td>${esc(f.handles.join(' '))}</td><td class="ref">${esc(f.reference)}</td></tr>`,
+  );
   return `<section><h2>Findings (${findings.length})</h2><div class="scroll"><table id="findings"><thead><tr><th>severity</th><th>rule</th><th>message</th><th>measured</th><th>limit</th><th>handles</th><th>reference</th></tr></thead><tbody>${rows.join('')}</tbody></table></div></section>`;
 }
 
 function designAreasHtml(result: Reviewed, fmt: ReturnType<typeof formatterFor>): string {
   const { design } = result;
   const basis = design.basis;
-  const head = `<p>Design basis: ${esc(fmt.density(basis.density))} over ${esc(fmt.area(basis.area))} (${esc(basis.source)})` +
+  const head =
+    `<p>Design basis: ${esc(fmt.density(basis.density))} over ${esc(fmt.area(basis.area))} (${esc(basis.source)})` +
     `${basis.adjustments.length ? `; ${basis.adjustments.map(esc).join('; ')}` : ''}; hose allowance ${esc(fmt.flow(basis.hoseAllowance))}, ${basis.durationMinutes} min.` +
     `${design.shape ? ` Shape: length ≥ 1.2·√A = ${esc(fmt.length(design.shape.minLength))}, ${design.shape.headsAlong} heads along a line, ${design.shape.totalHeads} heads.` : ''}` +
     `${design.search ? ` Search: ${design.search.candidates} candidate areas, ${design.search.evaluated} calculated, ${design.search.screened} ruled out by one solve${design.search.pruned ? ', the rest by a proven bound' : ''}.` : ''}</p>`;
   const rows = design.areas.map((a) => {
     const hy = a.hydraulics;
-    return `<tr><td>${esc(a.rank ?? 'drawn')}</td><td>${a.headIds.length}</td><td>${esc(fmt.length(a.length))}</td><td>${esc(fmt.length(a.width))}</td><td>${esc(fmt.area(a.actualArea))}</td>` +
+    return (
+      `<tr><td>${esc(a.rank ?? 'drawn')}</td><td>${a.headIds.length}</td><td>${esc(fmt.length(a.length))}</td><td>${esc(fmt.length(a.width))}</td><td>${esc(fmt.area(a.actualArea))}</td>` +
       `<td>${hy ? esc(fmt.pressure(hy.sourcePressure)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.sourceFlow)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.totalDemand)) : '-'}</td>` +
       `<td>${hy?.supplyAvailable != null ? esc(fmt.pressure(hy.supplyAvailable)) : '-'}</td><td>${hy?.margin != null ? esc(fmt.pressure(hy.margin)) : '-'}</td>` +
-      `<td>${hy?.handMethod ? esc(fmt.pressure(hy.handMethod.sourcePressure)) : '-'}</td></tr>`;
+      `<td>${hy?.handMethod ? esc(fmt.pressure(hy.handMethod.sourcePressure)) : '-'}</td></tr>`
+    );
   });
   const best = design.areas.find((a) => a.rank === 'most-demanding')?.hydraulics ?? design.areas.find((a) => a.hydraulics)?.hydraulics;
-  const nodeRows = best ? best.nodes.map((n) => `<tr><td>${esc(n.id)}</td><td>${esc(fmt.pressure(n.pressure))}</td><td>${n.flow > 0 ? esc(fmt.flow(n.flow)) : ''}</td><td>${esc(fmt.length(n.elevation))}</td></tr>`).join('') : '';
+  const nodeRows = best
+    ? best.nodes
+        .map(
+          (n) =>
+            `<tr><td>${esc(n.id)}</td><td>${esc(fmt.pressure(n.pressure))}</td><td>${n.flow > 0 ? esc(fmt.flow(n.flow)) : ''}</td><td>${esc(fmt.length(n.elevation))}</td></tr>`,
+        )
+        .join('')
+    : '';
   const c = converterFor(fmt.system);
-  const pipeRows = best ? best.pipes.map((p) => `<tr><td>${esc(p.id)}</td><td>${esc(fmt.flow(Math.abs(p.flow)))}</td><td>${c.velocity(p.velocity).toFixed(2)}</td><td>${esc(fmt.pressure(p.frictionLoss))}</td><td>${esc(fmt.length(p.length))}</td><td>${esc(p.fittings.join(', '))}</td></tr>`).join('') : '';
+  const pipeRows = best
+    ? best.pipes
+        .map(
+          (p) =>
+            `<tr><td>${esc(p.id)}</td><td>${esc(fmt.flow(Math.abs(p.flow)))}</td><td>${c.velocity(p.velocity).toFixed(2)}</td><td>${esc(fmt.pressure(p.frictionLoss))}</td><td>${esc(fmt.length(p.length))}</td><td>${esc(p.fittings.join(', '))}</td></tr>`,
+        )
+        .join('')
+    : '';
   return `<section><h2>Design areas</h2>${head}
 <div class="scroll"><table id="areas"><thead><tr><th>area</th><th>heads</th><th>length</th><th>width</th><th>actual area</th><th>source pressure</th><th>source flow</th><th>with hose</th><th>supply</th><th>margin</th><th>hand method</th></tr></thead><tbody>${rows.join('')}</tbody></table></div>
-${best ? `<h3>Hydraulics of the most demanding area${best.riser.modelled === 'virtual' ? ` (riser modelled as a vertical ${esc(best.riser.nominalSize)}" pipe of ${esc(fmt.length(best.riser.length))}: static head and friction)` : ''}</h3>
+${
+  best
+    ? `<h3>Hydraulics of the most demanding area${best.riser.modelled === 'virtual' ? ` (riser modelled as a vertical ${esc(best.riser.nominalSize)}" pipe of ${esc(fmt.length(best.riser.length))}: static head and friction)` : ''}</h3>
 <details open><summary>Nodes (${best.nodes.length})</summary><div class="scroll"><table><thead><tr><th>node</th><th>pressure</th><th>flow</th><th>elevation</th></tr></thead><tbody>${nodeRows}</tbody></table></div></details>
-<details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>` : ''}</section>`;
+<details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>`
+    : ''
+}</section>`;
 }
 
 function supplyHtml(result: Reviewed, c: ReturnType<typeof converterFor>, u: (typeof REPORT_UNITS)['us']): string {
   const supply = result.settings.supply;
-  const demands = result.design.areas.flatMap((a) => (a.hydraulics ? [{ label: a.rank ?? 'drawn', flow: a.hydraulics.sourceFlow, withHose: a.hydraulics.totalDemand, pressure: a.hydraulics.sourcePressure }] : []));
+  const demands = result.design.areas.flatMap((a) =>
+    a.hydraulics
+      ? [
+          {
+            label: a.rank ?? 'drawn',
+            flow: a.hydraulics.sourceFlow,
+            withHose: a.hydraulics.totalDemand,
+            pressure: a.hydraulics.sourcePressure,
+          },
+        ]
+      : [],
+  );
   if (!supply && !demands.length) return '';
   return `<section><h2>Water supply</h2>${supply ? '' : '<p>No flow test given: demand points only.</p>'}${supplyGraph(supply, demands, c, u)}</section>`;
 }

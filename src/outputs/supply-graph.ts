@@ -5,7 +5,12 @@ import { availablePressure, flowAtZeroPressure, type FlowTest } from '../hydraul
 import type { Converter, ReportUnits } from '../quantities/convert.js';
 import { escapeHtml as esc } from './html-escape.js';
 
-export interface DemandPoint { label: string; flow: number; withHose: number; pressure: number }
+export interface DemandPoint {
+  label: string;
+  flow: number;
+  withHose: number;
+  pressure: number;
+}
 
 /** A round step near `raw` (1, 2 or 5 times a power of ten). */
 function niceStep(raw: number): number {
@@ -15,8 +20,14 @@ function niceStep(raw: number): number {
 }
 
 export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[], c: Converter, u: ReportUnits): string {
-  const W = 720, H = 380, L = 60, R = 20, T = 20, B = 50;
-  const pw = W - L - R, ph = H - T - B;
+  const W = 720,
+    H = 380,
+    L = 60,
+    R = 20,
+    T = 20,
+    B = 50;
+  const pw = W - L - R,
+    ph = H - T - B;
   const qMax = Math.max(supply ? supply.flow * 1.5 : 0, ...demands.map((d) => d.withHose * 1.25), 1);
   const pMax = Math.max(supply?.static ?? 0, ...demands.map((d) => d.pressure), 1) * 1.1;
   const x = (q: number) => L + (Math.max(0, q) / qMax) ** 1.85 * pw;
@@ -25,25 +36,37 @@ export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[]
   const qStep = niceStep(c.flow(qMax) / 8);
   for (let q = qStep; q <= c.flow(qMax) + 1e-9; q += qStep) {
     const X = x(q / c.flow(1));
-    parts.push(`<line class="grid" x1="${X.toFixed(1)}" y1="${T}" x2="${X.toFixed(1)}" y2="${T + ph}"/><text x="${X.toFixed(1)}" y="${T + ph + 14}" text-anchor="middle">${+q.toPrecision(6)}</text>`);
+    parts.push(
+      `<line class="grid" x1="${X.toFixed(1)}" y1="${T}" x2="${X.toFixed(1)}" y2="${T + ph}"/><text x="${X.toFixed(1)}" y="${T + ph + 14}" text-anchor="middle">${+q.toPrecision(6)}</text>`,
+    );
   }
   const pStep = niceStep(c.pressure(pMax) / 6);
   for (let p = 0; p <= c.pressure(pMax) + 1e-9; p += pStep) {
     const Y = y(p / c.pressure(1));
-    parts.push(`<line class="grid" x1="${L}" y1="${Y.toFixed(1)}" x2="${L + pw}" y2="${Y.toFixed(1)}"/><text x="${L - 6}" y="${(Y + 4).toFixed(1)}" text-anchor="end">${+p.toPrecision(6)}</text>`);
+    parts.push(
+      `<line class="grid" x1="${L}" y1="${Y.toFixed(1)}" x2="${L + pw}" y2="${Y.toFixed(1)}"/><text x="${L - 6}" y="${(Y + 4).toFixed(1)}" text-anchor="end">${+p.toPrecision(6)}</text>`,
+    );
   }
-  parts.push(`<line class="axis" x1="${L}" y1="${T + ph}" x2="${L + pw}" y2="${T + ph}"/><line class="axis" x1="${L}" y1="${T}" x2="${L}" y2="${T + ph}"/>`);
+  parts.push(
+    `<line class="axis" x1="${L}" y1="${T + ph}" x2="${L + pw}" y2="${T + ph}"/><line class="axis" x1="${L}" y1="${T}" x2="${L}" y2="${T + ph}"/>`,
+  );
   parts.push(`<text x="${L + pw / 2}" y="${H - 8}" text-anchor="middle">flow (${esc(u.flow)}), scale Q^1.85</text>`);
   parts.push(`<text transform="translate(14 ${T + ph / 2}) rotate(-90)" text-anchor="middle">pressure (${esc(u.pressure)})</text>`);
   if (supply) {
     // Straight on this abscissa: from the static pressure at no flow to where the line meets zero or the edge.
     const qEnd = Math.min(qMax, flowAtZeroPressure(supply));
-    parts.push(`<line class="supply" x1="${x(0).toFixed(1)}" y1="${y(supply.static).toFixed(1)}" x2="${x(qEnd).toFixed(1)}" y2="${y(availablePressure(supply, qEnd)).toFixed(1)}"><title>supply: ${c.pressure(supply.static).toFixed(2)} static, ${c.pressure(supply.residual).toFixed(2)} at ${c.flow(supply.flow).toFixed(0)}</title></line>`);
+    parts.push(
+      `<line class="supply" x1="${x(0).toFixed(1)}" y1="${y(supply.static).toFixed(1)}" x2="${x(qEnd).toFixed(1)}" y2="${y(availablePressure(supply, qEnd)).toFixed(1)}"><title>supply: ${c.pressure(supply.static).toFixed(2)} static, ${c.pressure(supply.residual).toFixed(2)} at ${c.flow(supply.flow).toFixed(0)}</title></line>`,
+    );
     parts.push(`<circle class="test" cx="${x(supply.flow).toFixed(1)}" cy="${y(supply.residual).toFixed(1)}" r="3.5" fill="#1f6fd1"/>`);
   }
   demands.forEach((d, i) => {
-    parts.push(`<line class="hose" x1="${x(d.flow).toFixed(1)}" y1="${y(d.pressure).toFixed(1)}" x2="${x(d.withHose).toFixed(1)}" y2="${y(d.pressure).toFixed(1)}"/>`);
-    parts.push(`<circle class="demand" cx="${x(d.flow).toFixed(1)}" cy="${y(d.pressure).toFixed(1)}" r="4"><title>${esc(d.label)}: ${c.pressure(d.pressure).toFixed(2)} at ${c.flow(d.flow).toFixed(1)}</title></circle>`);
+    parts.push(
+      `<line class="hose" x1="${x(d.flow).toFixed(1)}" y1="${y(d.pressure).toFixed(1)}" x2="${x(d.withHose).toFixed(1)}" y2="${y(d.pressure).toFixed(1)}"/>`,
+    );
+    parts.push(
+      `<circle class="demand" cx="${x(d.flow).toFixed(1)}" cy="${y(d.pressure).toFixed(1)}" r="4"><title>${esc(d.label)}: ${c.pressure(d.pressure).toFixed(2)} at ${c.flow(d.flow).toFixed(1)}</title></circle>`,
+    );
     parts.push(`<circle class="demand" cx="${x(d.withHose).toFixed(1)}" cy="${y(d.pressure).toFixed(1)}" r="3" fill-opacity="0.5"/>`);
     parts.push(`<text x="${(x(d.withHose) + 6).toFixed(1)}" y="${(y(d.pressure) - 6 - 12 * i).toFixed(1)}">${esc(d.label)}</text>`);
   });

@@ -57,7 +57,10 @@ export function gatherEvidence(source: DrawingSource): Evidence {
     let b = decodedBlocks.get(entry);
     if (!b) {
       const entities: EntityBase[] = [];
-      for (let row = entry.rows.first; row < entry.rows.end; row++) { const e = source.entity(row); if (e) entities.push(e); }
+      for (let row = entry.rows.first; row < entry.rows.end; row++) {
+        const e = source.entity(row);
+        if (e) entities.push(e);
+      }
       decodedBlocks.set(entry, (b = { name: entry.name, base: source.blockBase(entry), entities }));
     }
     return b;
@@ -85,7 +88,8 @@ export function gatherEvidence(source: DrawingSource): Evidence {
       const tags = new Set<string>();
       for (const e of raw?.entities ?? []) if (e.type === 'ATTDEF' && (e as AttDef).tag) tags.add((e as AttDef).tag.toUpperCase());
       const entry = lookup.find(name);
-      for (const row of (entry && referencesOf().get(entry)) ?? []) for (const tag of Object.keys((source.entity(row) as Insert).attributes)) tags.add(tag);
+      for (const row of (entry && referencesOf().get(entry)) ?? [])
+        for (const tag of Object.keys((source.entity(row) as Insert).attributes)) tags.add(tag);
       facts = { name, size: raw ? sizeOf(raw) : null, tags: [...tags].sort() };
       blockFacts.set(name, facts);
       return facts;
@@ -93,22 +97,35 @@ export function gatherEvidence(source: DrawingSource): Evidence {
     circles(layer) {
       let facts = circleFacts.get(layer);
       if (facts) return facts;
-      const radii = rowsOf(layer, (row) => typeOf(row) === 'CIRCLE', SAMPLE).map((row) => (source.entity(row) as Circle).radius).sort((a, b) => a - b);
+      const radii = rowsOf(layer, (row) => typeOf(row) === 'CIRCLE', SAMPLE)
+        .map((row) => (source.entity(row) as Circle).radius)
+        .sort((a, b) => a - b);
       facts = { sampled: radii.length, radius: radii.length ? radii[Math.floor(radii.length / 2)]! : null };
       circleFacts.set(layer, facts);
       return facts;
     },
     onLinework(layer, block, lineLayers, reach) {
-      const at: Point[] = block === null
-        ? rowsOf(layer, (row) => typeOf(row) === 'CIRCLE' || typeOf(row) === 'POINT', SAMPLE).map((row) => {
-          const e = source.entity(row) as Circle & { at?: Point };
-          return e.at ?? e.center;
-        })
-        : rowsOf(layer, (row) => { const b = lookup.of(row); return b !== null && named(b.name) === block; }, SAMPLE).map((row) => (source.entity(row) as Insert).at);
+      const at: Point[] =
+        block === null
+          ? rowsOf(layer, (row) => typeOf(row) === 'CIRCLE' || typeOf(row) === 'POINT', SAMPLE).map((row) => {
+              const e = source.entity(row) as Circle & { at?: Point };
+              return e.at ?? e.center;
+            })
+          : rowsOf(
+              layer,
+              (row) => {
+                const b = lookup.of(row);
+                return b !== null && named(b.name) === block;
+              },
+              SAMPLE,
+            ).map((row) => (source.entity(row) as Insert).at);
       if (at.length === 0 || lineLayers.length === 0) return null;
       const index = lineworkOf(lineLayers);
-      const near = at.filter((p) => index.search({ minX: p.x - reach, minY: p.y - reach, maxX: p.x + reach, maxY: p.y + reach })
-        .some((s) => distanceToSegment(p, s.a, s.b) <= reach)).length;
+      const near = at.filter((p) =>
+        index
+          .search({ minX: p.x - reach, minY: p.y - reach, maxX: p.x + reach, maxY: p.y + reach })
+          .some((s) => distanceToSegment(p, s.a, s.b) <= reach),
+      ).length;
       return near / at.length;
     },
   };
@@ -136,7 +153,11 @@ export function gatherEvidence(source: DrawingSource): Evidence {
   function sizeOf(raw: RawBlock): number | null {
     try {
       const flat = flatten({ entities: raw.entities, block: rawBlock }, 1, { blockDepth: 16, blockReferences: SIZE_REFERENCES }, all);
-      const pts = [...flat.strokes.flatMap((s) => [s.a, s.b, ...s.via]), ...flat.outlines.flatMap((o) => o.points), ...flat.points.map((p) => p.position)];
+      const pts = [
+        ...flat.strokes.flatMap((s) => [s.a, s.b, ...s.via]),
+        ...flat.outlines.flatMap((o) => o.points),
+        ...flat.points.map((p) => p.position),
+      ];
       if (!pts.length) return null;
       const xs = pts.map((p) => p.x);
       const ys = pts.map((p) => p.y);
@@ -173,6 +194,20 @@ export function gatherEvidence(source: DrawingSource): Evidence {
   return evidence;
 }
 
-interface Seg { minX: number; minY: number; maxX: number; maxY: number; a: Point; b: Point }
+interface Seg {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+  a: Point;
+  b: Point;
+}
 
-const segment = (a: Point, b: Point): Seg => ({ minX: Math.min(a.x, b.x), minY: Math.min(a.y, b.y), maxX: Math.max(a.x, b.x), maxY: Math.max(a.y, b.y), a, b });
+const segment = (a: Point, b: Point): Seg => ({
+  minX: Math.min(a.x, b.x),
+  minY: Math.min(a.y, b.y),
+  maxX: Math.max(a.x, b.x),
+  maxY: Math.max(a.y, b.y),
+  a,
+  b,
+});

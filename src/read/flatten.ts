@@ -35,7 +35,12 @@ interface Context {
 /** The entity's own coordinate system: an extrusion of (0, 0, −1) reverses x; other tilts are taken as plan. */
 const ocsOf = (e: EntityBase): Affine | null => (e.extrusionZ < 0 ? scaling(-1, 1) : null);
 
-export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<InputLimits, 'blockDepth' | 'blockReferences'>, keep: FlattenKeep): Flattened {
+export function flatten(
+  raw: RawDrawing,
+  feetPerUnit: number,
+  limits: Pick<InputLimits, 'blockDepth' | 'blockReferences'>,
+  keep: FlattenKeep,
+): Flattened {
   const out: Flattened = { refs: [], strokes: [], outlines: [], texts: [], points: [], symbols: [] };
   let refCount = 0;
 
@@ -54,19 +59,30 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
     if (!block) return;
     const name = e.block;
     if (ctx.parents.includes(name)) fail(`block "${name}" contains a reference to itself`);
-    if (ctx.parents.length + 1 > limits.blockDepth) fail(`block nesting deeper than ${limits.blockDepth} levels at "${name}" (inputLimits.blockDepth)`);
+    if (ctx.parents.length + 1 > limits.blockDepth)
+      fail(`block nesting deeper than ${limits.blockDepth} levels at "${name}" (inputLimits.blockDepth)`);
     const attributes: Record<string, string> = {};
-    for (const def of block.entities) if (def.type === 'ATTDEF' && (def as AttDef).tag) attributes[(def as AttDef).tag.toUpperCase()] = (def as AttDef).value;
+    for (const def of block.entities)
+      if (def.type === 'ATTDEF' && (def as AttDef).tag) attributes[(def as AttDef).tag.toUpperCase()] = (def as AttDef).value;
     Object.assign(attributes, e.attributes);
-    if (refCount + e.columns * e.rows > limits.blockReferences) fail(`more than ${limits.blockReferences} block references after expansion (inputLimits.blockReferences)`);
+    if (refCount + e.columns * e.rows > limits.blockReferences)
+      fail(`more than ${limits.blockReferences} block references after expansion (inputLimits.blockReferences)`);
     const hasNestedRefs = block.entities.some((x) => x.type === 'INSERT');
     for (const placement of placements(e, block.base)) {
       const m = compose(ctx.m, placement);
       refCount++;
-      if (keep.refs(layer)) out.refs.push({
-        handle, layer, block: name, position: apply(m, block.base), rotationDeg: (rotationOf(m) * 180) / Math.PI,
-        mirrored: determinant(m) < 0, attributes, parents: ctx.parents, hasNestedRefs,
-      });
+      if (keep.refs(layer))
+        out.refs.push({
+          handle,
+          layer,
+          block: name,
+          position: apply(m, block.base),
+          rotationDeg: (rotationOf(m) * 180) / Math.PI,
+          mirrored: determinant(m) < 0,
+          attributes,
+          parents: ctx.parents,
+          hasNestedRefs,
+        });
       walk(block.entities, { m, layer, handle, parents: [...ctx.parents, name] });
     }
   };
@@ -74,7 +90,8 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
   const geometryContext = (e: EntityBase, layer: string, handle: string, m: Affine, topLevel: boolean): ExpandContext => {
     const ocs = ocsOf(e);
     return {
-      m, ocs: ocs ? compose(m, ocs) : m,
+      m,
+      ocs: ocs ? compose(m, ocs) : m,
       stroke(points, t, localLength) {
         if (!keep.strokes(layer)) return;
         const world = points.map((p) => apply(t, p));
@@ -83,7 +100,12 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
         // The true length scales with a similarity; a stretched curve is measured along its samples.
         const similar = Math.abs(Math.abs(t.a * t.a + t.b * t.b) - Math.abs(determinant(t))) < 1e-9 * Math.abs(determinant(t));
         out.strokes.push({
-          handle, layer, type: e.type, a: world[0]!, b: world[world.length - 1]!, via: world.slice(1, -1),
+          handle,
+          layer,
+          type: e.type,
+          a: world[0]!,
+          b: world[world.length - 1]!,
+          via: world.slice(1, -1),
           length: similar ? localLength * meanScale(t) : len,
         });
       },
@@ -98,7 +120,8 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
         if (topLevel && keep.symbols(layer)) out.symbols.push({ handle, layer, position: apply(t, at), type: 'POINT', radius: 0 });
       },
       symbol(center, t, localRadius) {
-        if (topLevel && keep.symbols(layer)) out.symbols.push({ handle, layer, position: apply(t, center), type: 'CIRCLE', radius: localRadius * meanScale(t) });
+        if (topLevel && keep.symbols(layer))
+          out.symbols.push({ handle, layer, position: apply(t, center), type: 'CIRCLE', radius: localRadius * meanScale(t) });
       },
     };
   };
@@ -106,4 +129,3 @@ export function flatten(raw: RawDrawing, feetPerUnit: number, limits: Pick<Input
   walk(raw.entities, { m: scaling(feetPerUnit, feetPerUnit), layer: null, handle: null, parents: [] });
   return out;
 }
-

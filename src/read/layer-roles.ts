@@ -40,9 +40,23 @@ const NAME_HINTS: Record<LayerRole, RegExp> = {
 
 /** Words of our own choosing that name a sprinkler head (block names) and its attributes (tags). */
 const HEAD_BLOCK_WORDS = /spk|sprink|sprnk|head|pendent|pendant|upright|sidewall|nozzle|kopf|t[eê]te/i;
-const HEAD_TAGS = new Set(['K', 'KFACTOR', 'K-FACTOR', 'K_FACTOR', 'SPRINKLER', 'SPK', 'TEMP', 'TEMPERATURE', 'RESPONSE', 'SIN', 'HEADTYPE', 'ORIFICE']);
+const HEAD_TAGS = new Set([
+  'K',
+  'KFACTOR',
+  'K-FACTOR',
+  'K_FACTOR',
+  'SPRINKLER',
+  'SPK',
+  'TEMP',
+  'TEMPERATURE',
+  'RESPONSE',
+  'SIN',
+  'HEADTYPE',
+  'ORIFICE',
+]);
 /** Words that name something else drawn as many small alike symbols: furniture, fixtures, devices, drafting marks. */
-const OTHER_WORDS = /furn|chair|desk|table|sofa|bed\b|door|window|wc\b|toilet|sink|lav\b|tree|plant|car\b|vehicle|dim|arrow|tick|grid|column|bubble|title|north|light|lum|fixture|elec|outlet|switch|socket|speaker|detector|smoke|alarm|text|tag\b/i;
+const OTHER_WORDS =
+  /furn|chair|desk|table|sofa|bed\b|door|window|wc\b|toilet|sink|lav\b|tree|plant|car\b|vehicle|dim|arrow|tick|grid|column|bubble|title|north|light|lum|fixture|elec|outlet|switch|socket|speaker|detector|smoke|alarm|text|tag\b/i;
 /**
  * A head symbol's extent across, feet (common practice, no source: symbols are drawn a few inches to about two feet
  * across at full scale); under it a tick or a marker, over it furniture, over BUILDING_FT a building part.
@@ -75,8 +89,13 @@ export function assignLayerRoles(input: RoleGuessInput): { roles: LayerRoles; he
   const taken = new Set(Object.values(out).flatMap((c) => c.layers));
   let headCandidates: HeadCandidate[] = [];
   if (!out.heads) {
-    const pipeLayers = out.pipes?.layers ?? layers.filter((l) => !taken.has(l.name) && NAME_HINTS.pipes.test(l.name) && l.strokes > 0).map((l) => l.name);
-    const guess = guessHeads(input, layers.filter((l) => !taken.has(l.name)), pipeLayers);
+    const pipeLayers =
+      out.pipes?.layers ?? layers.filter((l) => !taken.has(l.name) && NAME_HINTS.pipes.test(l.name) && l.strokes > 0).map((l) => l.name);
+    const guess = guessHeads(
+      input,
+      layers.filter((l) => !taken.has(l.name)),
+      pipeLayers,
+    );
     out.heads = guess.choice;
     headCandidates = guess.candidates;
     for (const l of out.heads.layers) taken.add(l);
@@ -103,25 +122,39 @@ function guessByName(layers: LayerSummary[], role: NamedRole, taken: Set<string>
 /** Geometry signatures: pipes are linework; walls and areas are outlines or linework; a source is a symbol or point. */
 function looksLike(layer: LayerSummary, role: NamedRole): boolean {
   switch (role) {
-    case 'pipes': return layer.strokes > 0;
+    case 'pipes':
+      return layer.strokes > 0;
     case 'walls':
-    case 'designArea': return layer.outlines > 0 || layer.strokes > 0;
-    case 'source': return layer.refs > 0 || layer.points > 0;
+    case 'designArea':
+      return layer.outlines > 0 || layer.strokes > 0;
+    case 'source':
+      return layer.refs > 0 || layer.points > 0;
   }
 }
 
-interface Weighed extends HeadCandidate { score: number; blocks: string[] }
+interface Weighed extends HeadCandidate {
+  score: number;
+  blocks: string[];
+}
 
 /**
  * Heads: each layer's symbols (blocks of which it holds several, or its plain circles) weighed: sized like a
  * head, and named, tagged or placed on pipe linework like one. The layers whose best symbol scores highest win.
  */
-function guessHeads(input: RoleGuessInput, free: LayerSummary[], pipeLayers: string[]): { choice: RoleChoice; candidates: HeadCandidate[] } {
+function guessHeads(
+  input: RoleGuessInput,
+  free: LayerSummary[],
+  pipeLayers: string[],
+): { choice: RoleChoice; candidates: HeadCandidate[] } {
   const weighed: Weighed[] = [];
   for (const layer of free) {
-    const symbols = Object.entries(layer.symbolRefs).filter(([, n]) => n >= MIN_SYMBOLS).sort((a, b) => b[1] - a[1]).slice(0, 5);
+    const symbols = Object.entries(layer.symbolRefs)
+      .filter(([, n]) => n >= MIN_SYMBOLS)
+      .sort((a, b) => b[1] - a[1])
+      .slice(0, 5);
     const options = symbols.map(([block, count]) => weigh(input, layer.name, block, count, pipeLayers));
-    if ((layer.counts['CIRCLE'] ?? 0) >= MIN_SYMBOLS && !options.some((o) => o.score >= 2)) options.push(weigh(input, layer.name, null, layer.counts['CIRCLE']!, pipeLayers));
+    if ((layer.counts['CIRCLE'] ?? 0) >= MIN_SYMBOLS && !options.some((o) => o.score >= 2))
+      options.push(weigh(input, layer.name, null, layer.counts['CIRCLE']!, pipeLayers));
     if (!options.length) continue;
     options.sort((a, b) => b.score - a.score || b.count - a.count);
     const best = options[0]!;
@@ -135,12 +168,15 @@ function guessHeads(input: RoleGuessInput, free: LayerSummary[], pipeLayers: str
     if (!w.taken && w.score >= 2) w.why += `; a layer with more evidence was taken`;
   }
   const chosen = weighed.filter((w) => w.taken);
-  const candidates = weighed.sort((a, b) => Number(b.taken) - Number(a.taken) || b.score - a.score || b.count - a.count)
+  const candidates = weighed
+    .sort((a, b) => Number(b.taken) - Number(a.taken) || b.score - a.score || b.count - a.count)
     .map(({ layer, block, count, size, taken, why }) => ({ layer, block, count, size, taken, why }));
-  if (!chosen.length) return { choice: { layers: [], from: 'guess', reason: 'no layer holds symbols that look like heads', blocks: [] }, candidates };
+  if (!chosen.length)
+    return { choice: { layers: [], from: 'guess', reason: 'no layer holds symbols that look like heads', blocks: [] }, candidates };
   return {
     choice: {
-      layers: chosen.map((w) => w.layer), from: 'guess',
+      layers: chosen.map((w) => w.layer),
+      from: 'guess',
       reason: chosen.map((w) => `${w.layer}: ${w.block === null ? 'circles' : `block ${w.block}`} ×${w.count} (${w.why})`).join('; '),
       blocks: chosen.flatMap((w) => w.blocks),
     },
@@ -155,24 +191,41 @@ function weigh(input: RoleGuessInput, layer: string, block: string | null, count
   const size = block !== null ? (facts?.size ?? null) : circles?.radius != null ? 2 * circles.radius : null;
   const candidate: Weighed = { layer, block, count, size, taken: false, why: '', score: 0, blocks: [] };
   const sizeFt = size !== null && feetPerUnit !== null ? size * feetPerUnit : null;
-  if (sizeFt !== null && sizeFt < HEAD_MIN_FT) return { ...candidate, score: -10, why: `${inches(sizeFt)} across: too small for a head symbol (a tick or a marker)` };
-  if (sizeFt !== null && sizeFt > BUILDING_FT) return { ...candidate, score: -10, why: `${feet(sizeFt)} across: building-sized, not a head` };
-  if (sizeFt !== null && sizeFt > HEAD_MAX_FT) return { ...candidate, score: -10, why: `${feet(sizeFt)} across: furniture-sized, not a head` };
+  if (sizeFt !== null && sizeFt < HEAD_MIN_FT)
+    return { ...candidate, score: -10, why: `${inches(sizeFt)} across: too small for a head symbol (a tick or a marker)` };
+  if (sizeFt !== null && sizeFt > BUILDING_FT)
+    return { ...candidate, score: -10, why: `${feet(sizeFt)} across: building-sized, not a head` };
+  if (sizeFt !== null && sizeFt > HEAD_MAX_FT)
+    return { ...candidate, score: -10, why: `${feet(sizeFt)} across: furniture-sized, not a head` };
   const said: string[] = [];
   if (sizeFt !== null) said.push(`${inches(sizeFt)} across`);
   else if (feetPerUnit === null) said.push('size not judged: the drawing states no unit');
   let score = 0;
-  if (NAME_HINTS.heads.test(layer)) { score += 2; said.push('layer name'); }
-  if (block !== null && HEAD_BLOCK_WORDS.test(block)) { score += 2; said.push('block name'); }
+  if (NAME_HINTS.heads.test(layer)) {
+    score += 2;
+    said.push('layer name');
+  }
+  if (block !== null && HEAD_BLOCK_WORDS.test(block)) {
+    score += 2;
+    said.push('block name');
+  }
   const tags = (facts?.tags ?? []).filter((t) => HEAD_TAGS.has(t));
-  if (tags.length) { score += 2; said.push(`${tags.join(', ')} attribute`); }
-  if (OTHER_WORDS.test(layer) || (block !== null && OTHER_WORDS.test(block))) { score -= 3; said.push('name says something else'); }
+  if (tags.length) {
+    score += 2;
+    said.push(`${tags.join(', ')} attribute`);
+  }
+  if (OTHER_WORDS.test(layer) || (block !== null && OTHER_WORDS.test(block))) {
+    score -= 3;
+    said.push('name says something else');
+  }
   if (score < 2 && evidence && pipeLayers.length && feetPerUnit !== null) {
     // Heads sit on their pipes: within the symbol's size, or half a foot.
     const reach = Math.max(size ?? 0, 0.5 / feetPerUnit);
     const share = evidence.onLinework(layer, block, pipeLayers, reach);
-    if (share !== null && share >= 0.5) { score += 2; said.push(`${Math.round(share * 100)}% on pipe linework`); }
-    else if (share !== null) said.push(`${Math.round(share * 100)}% on pipe linework`);
+    if (share !== null && share >= 0.5) {
+      score += 2;
+      said.push(`${Math.round(share * 100)}% on pipe linework`);
+    } else if (share !== null) said.push(`${Math.round(share * 100)}% on pipe linework`);
   }
   if (score < 2) said.push('nothing says head');
   return { ...candidate, score, why: said.join(', ') };

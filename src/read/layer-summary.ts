@@ -2,13 +2,32 @@
 // counts by type, references to each symbol block, linework, outlines and points. Layer roles are guessed from it.
 
 import { fail } from '../input-error.js';
-import { blockLookup, CLOSED, effectiveLayer, nameDecoder, PAPER_SPACE, rowLayers, type BlockEntry, type DrawingSource, type Rows } from './source.js';
+import {
+  blockLookup,
+  CLOSED,
+  effectiveLayer,
+  nameDecoder,
+  PAPER_SPACE,
+  rowLayers,
+  type BlockEntry,
+  type DrawingSource,
+  type Rows,
+} from './source.js';
 import { kindOf } from './entities/registry.js';
 import type { LayerSummary } from './types.js';
 
 type Tally = Map<string, LayerSummary>;
 
-const emptySummary = (name: string): LayerSummary => ({ name, counts: {}, blockRefs: {}, symbolRefs: {}, refs: 0, strokes: 0, outlines: 0, points: 0 });
+const emptySummary = (name: string): LayerSummary => ({
+  name,
+  counts: {},
+  blockRefs: {},
+  symbolRefs: {},
+  refs: 0,
+  strokes: 0,
+  outlines: 0,
+  points: 0,
+});
 
 /** Adds `times` × `from` into `into`. */
 function addTally(into: Tally, from: Tally, times: number): void {
@@ -30,7 +49,10 @@ function addTally(into: Tally, from: Tally, times: number): void {
  * contents count once per placed copy (MINSERT arrays and nesting multiply). A block that contains itself, or
  * nesting deeper than `maxDepth`, is an error.
  */
-export function summarizeLayers(scan: Pick<DrawingSource, 'blocks' | 'names' | 'table' | 'modelSpace' | 'layerNames'>, maxDepth: number): LayerSummary[] {
+export function summarizeLayers(
+  scan: Pick<DrawingSource, 'blocks' | 'names' | 'table' | 'modelSpace' | 'layerNames'>,
+  maxDepth: number,
+): LayerSummary[] {
   const blocks = blockLookup(scan);
   const named = nameDecoder();
   const layerOf = rowLayers(scan);
@@ -58,28 +80,29 @@ export function summarizeLayers(scan: Pick<DrawingSource, 'blocks' | 'names' | '
       return t;
     };
     let height = 0;
-    for (const run of runs) for (let row = run.first; row < run.end; row++) {
-      const type = names[table.type[row]!]!;
-      if ((inherited === null && (table.flags[row]! & PAPER_SPACE)) || type === 'ATTDEF') continue;
-      const layer = effectiveLayer(layerOf(row), inherited);
-      const s = on(layer);
-      s.counts[type] = (s.counts[type] ?? 0) + 1;
-      const kind = kindOf(type);
-      if (kind?.shape === 'stroke') s.strokes++;
-      if ((kind?.closedOutline && (table.flags[row]! & CLOSED)) || kind?.shape === 'outline') s.outlines++;
-      if (kind?.shape === 'point') s.points++;
-      if (type !== 'INSERT' || table.block[row]! < 0) continue;
-      const block = blocks.find(named(names[table.block[row]!]!));
-      if (!block) continue;
-      const copies = table.copies[row]!;
-      s.refs += copies;
-      const name = named(block.name);
-      s.blockRefs[name] = (s.blockRefs[name] ?? 0) + copies;
-      if (!blocks.hasNestedRefs(block)) s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + copies;
-      const inner = placement(block, layer);
-      addTally(tally, inner.tally, copies);
-      height = Math.max(height, inner.height + 1);
-    }
+    for (const run of runs)
+      for (let row = run.first; row < run.end; row++) {
+        const type = names[table.type[row]!]!;
+        if ((inherited === null && table.flags[row]! & PAPER_SPACE) || type === 'ATTDEF') continue;
+        const layer = effectiveLayer(layerOf(row), inherited);
+        const s = on(layer);
+        s.counts[type] = (s.counts[type] ?? 0) + 1;
+        const kind = kindOf(type);
+        if (kind?.shape === 'stroke') s.strokes++;
+        if ((kind?.closedOutline && table.flags[row]! & CLOSED) || kind?.shape === 'outline') s.outlines++;
+        if (kind?.shape === 'point') s.points++;
+        if (type !== 'INSERT' || table.block[row]! < 0) continue;
+        const block = blocks.find(named(names[table.block[row]!]!));
+        if (!block) continue;
+        const copies = table.copies[row]!;
+        s.refs += copies;
+        const name = named(block.name);
+        s.blockRefs[name] = (s.blockRefs[name] ?? 0) + copies;
+        if (!blocks.hasNestedRefs(block)) s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + copies;
+        const inner = placement(block, layer);
+        addTally(tally, inner.tally, copies);
+        height = Math.max(height, inner.height + 1);
+      }
     return { tally, height };
   };
   const top = walk(scan.modelSpace, null);

@@ -53,7 +53,7 @@ export interface Plan {
  * head layers were guessed, the blocks the guess took as head symbols.
  */
 function headBlocksOf(drawing: Drawing, settings: Settings): string[] {
-  const guessed = drawing.roles.heads.from === 'guess' ? drawing.roles.heads.blocks ?? [] : [];
+  const guessed = drawing.roles.heads.from === 'guess' ? (drawing.roles.heads.blocks ?? []) : [];
   const isDefault = settings.headBlocks.length === 1 && settings.headBlocks[0] === '*';
   return isDefault && guessed.length ? guessed : settings.headBlocks;
 }
@@ -87,33 +87,45 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
   const candidates = drawing.refs.filter((r) => onHeads(r.layer) && headBlock(r.block));
   // A head layer without a matching head block holds heads drawn as plain circles or points (an exploded drawing).
   const withBlocks = new Set(candidates.map((r) => r.layer));
-  const drawnPlain = drawing.symbols.filter((s) => onHeads(s.layer) && !withBlocks.has(s.layer)).map((s): BlockRef => ({
-    handle: s.handle, layer: s.layer, block: `(${s.type.toLowerCase()})`, position: s.position, rotationDeg: 0, mirrored: false,
-    attributes: {}, parents: [], hasNestedRefs: false,
-  }));
+  const drawnPlain = drawing.symbols
+    .filter((s) => onHeads(s.layer) && !withBlocks.has(s.layer))
+    .map(
+      (s): BlockRef => ({
+        handle: s.handle,
+        layer: s.layer,
+        block: `(${s.type.toLowerCase()})`,
+        position: s.position,
+        rotationDeg: 0,
+        mirrored: false,
+        attributes: {},
+        parents: [],
+        hasNestedRefs: false,
+      }),
+    );
   // A matching reference whose block holds further matching references is a group of heads, not a head.
   const containers = new Set(candidates.filter((r) => r.hasNestedRefs).map((r) => r.block));
   const isLeaf = (block: string) => !containers.has(block) || !candidates.some((c) => c.parents.at(-1) === block);
   const { kept, duplicates } = withoutDuplicates([...candidates.filter((r) => isLeaf(r.block)), ...drawnPlain]);
-  const heads: Head[] = kept
-    .map((r, i) => {
-      const k = attributeNumber(r.attributes, 'K');
-      const elev = attributeNumber(r.attributes, 'ELEV');
-      return {
-        id: `H${i + 1}`,
-        handle: r.handle,
-        layer: r.layer,
-        block: r.block,
-        position: r.position,
-        kFactor: k === undefined ? settings.defaults.kFactor : si ? k / KSI_PER_KUS : k,
-        elevation: elev === undefined ? settings.defaults.headElevation : si ? elev / M_PER_FT : elev,
-        kind: headKind(r.attributes),
-        attributes: r.attributes,
-      };
-    });
+  const heads: Head[] = kept.map((r, i) => {
+    const k = attributeNumber(r.attributes, 'K');
+    const elev = attributeNumber(r.attributes, 'ELEV');
+    return {
+      id: `H${i + 1}`,
+      handle: r.handle,
+      layer: r.layer,
+      block: r.block,
+      position: r.position,
+      kFactor: k === undefined ? settings.defaults.kFactor : si ? k / KSI_PER_KUS : k,
+      elevation: elev === undefined ? settings.defaults.headElevation : si ? elev / M_PER_FT : elev,
+      kind: headKind(r.attributes),
+      attributes: r.attributes,
+    };
+  });
 
   const sources: Source[] = [
-    ...drawing.refs.filter((r) => onSource(r.layer) && r.parents.length === 0).map((r) => ({ handle: r.handle, layer: r.layer, position: r.position })),
+    ...drawing.refs
+      .filter((r) => onSource(r.layer) && r.parents.length === 0)
+      .map((r) => ({ handle: r.handle, layer: r.layer, position: r.position })),
     ...drawing.points.filter((p) => onSource(p.layer)).map((p) => ({ handle: p.handle, layer: p.layer, position: p.position })),
   ];
   // Linework inside head and riser symbols is never pipe, even where they share the pipe layer.

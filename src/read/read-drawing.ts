@@ -31,8 +31,12 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
     fail('the drawing does not state its length unit ($INSUNITS is missing or unitless); set "units" in the config (in, ft, mm, cm or m)');
   }
   const flat = flatten(raw, FEET_PER_UNIT[units!], limits, {
-    refs: onRoles(roles, 'heads', 'source'), strokes: onRoles(roles, 'pipes', 'walls'), outlines: onRoles(roles, 'walls', 'designArea'),
-    texts: (layer) => isLabelLayer(layer, roles), points: onRoles(roles, 'source'), symbols: onRoles(roles, 'heads'),
+    refs: onRoles(roles, 'heads', 'source'),
+    strokes: onRoles(roles, 'pipes', 'walls'),
+    outlines: onRoles(roles, 'walls', 'designArea'),
+    texts: (layer) => isLabelLayer(layer, roles),
+    points: onRoles(roles, 'source'),
+    symbols: onRoles(roles, 'heads'),
   });
   return {
     version: header.version,
@@ -59,10 +63,14 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
  */
 function decodeByRole(bytes: Uint8Array, options: ReadOptions, limits: InputLimits) {
   const { source, layers, roles, headCandidates } = inspectSource(dxfSource(bytes, limits), options, limits);
-  const raw = decodeSelected(source, {
-    layer: onRoles(roles, ...LAYER_ROLES),
-    label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
-  }, limits.expandedEntities);
+  const raw = decodeSelected(
+    source,
+    {
+      layer: onRoles(roles, ...LAYER_ROLES),
+      label: (l, text) => isLabelLayer(l, roles) && couldBeSizeLabel(text),
+    },
+    limits.expandedEntities,
+  );
   return { raw, layers, roles, headCandidates, header: source.header, encoding: source.encoding };
 }
 
@@ -87,7 +95,12 @@ function inspectSource(source: DrawingSource, options: ReadOptions, limits: Inpu
   const layers = summarizeLayers(source, limits.blockDepth);
   const units = options.units ?? unitFromInsunits(source.header.insunits);
   const evidence = gatherEvidence(source);
-  const { roles, headCandidates } = assignLayerRoles({ layers, patterns: options.layers ?? {}, evidence, feetPerUnit: units ? FEET_PER_UNIT[units] : null });
+  const { roles, headCandidates } = assignLayerRoles({
+    layers,
+    patterns: options.layers ?? {},
+    evidence,
+    feetPerUnit: units ? FEET_PER_UNIT[units] : null,
+  });
   checkHeadCount(layers, roles, limits.heads);
   return { source, layers, roles, headCandidates, evidence, units };
 }
@@ -97,7 +110,8 @@ function checkHeadCount(layers: LayerSummary[], roles: LayerRoles, limit: number
   for (const l of layers) {
     if (!roles.heads.layers.includes(l.name)) continue;
     for (const [block, count] of Object.entries(l.symbolRefs)) {
-      if (count > limit) fail(`layer "${l.name}" places block "${block}" ${count} times, over the limit of ${limit} heads (inputLimits.heads)`);
+      if (count > limit)
+        fail(`layer "${l.name}" places block "${block}" ${count} times, over the limit of ${limit} heads (inputLimits.heads)`);
     }
   }
 }

@@ -14,7 +14,11 @@ export interface Wanted {
   label(layer: string, text: string): boolean;
 }
 
-export interface RawBlock { name: string; base: Point; entities: EntityBase[] }
+export interface RawBlock {
+  name: string;
+  base: Point;
+  entities: EntityBase[];
+}
 
 /** The decoded part of a drawing: the wanted model-space entities in their order, and the blocks they use. */
 export interface RawDrawing {
@@ -54,7 +58,8 @@ export function decodeSelected(source: DrawingSource, wanted: Wanted, budget = I
     return result;
   };
   const chosen: number[] = [];
-  for (const run of source.modelSpace) for (let row = run.first; row < run.end; row++) if (!(table.flags[row]! & PAPER_SPACE) && wants(row, null)) chosen.push(row);
+  for (const run of source.modelSpace)
+    for (let row = run.first; row < run.end; row++) if (!(table.flags[row]! & PAPER_SPACE) && wants(row, null)) chosen.push(row);
   checkExpansion(source, chosen, budget);
   const entities: EntityBase[] = [];
   const used = new Set<BlockEntry>();
@@ -80,7 +85,13 @@ export function decodeSelected(source: DrawingSource, wanted: Wanted, budget = I
     }
     decoded.set(b, { name: b.name, base: source.blockBase(b), entities: inner });
   }
-  return { entities, block: (name) => { const b = blocks.find(name); return b ? (decoded.get(b) ?? null) : null; } };
+  return {
+    entities,
+    block: (name) => {
+      const b = blocks.find(name);
+      return b ? (decoded.get(b) ?? null) : null;
+    },
+  };
 }
 
 /**
@@ -116,6 +127,8 @@ function checkExpansion(source: DrawingSource, rows: number[], budget: number): 
   if (total <= budget) return;
   const block = blocks.of(worst.row);
   const copies = table.copies[worst.row]!;
-  const where = block ? `block "${block.name}"${copies > 1 ? ` placed ${copies} times by one array` : ''} on layer "${layerOf(worst.row)}" expands to ${worst.count} entities` : `${total} entities`;
+  const where = block
+    ? `block "${block.name}"${copies > 1 ? ` placed ${copies} times by one array` : ''} on layer "${layerOf(worst.row)}" expands to ${worst.count} entities`
+    : `${total} entities`;
   fail(`the drawing's read layers expand to ${total} entities, over the limit of ${budget} (inputLimits.expandedEntities): ${where}`);
 }

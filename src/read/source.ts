@@ -95,10 +95,12 @@ export function blockLookup(source: Pick<DrawingSource, 'blocks' | 'names' | 'ta
   }
   const { names, table } = source;
   const isInsert = (row: number) => names[table.type[row]!] === 'INSERT';
-  const nesting = new Set(source.blocks.filter((b) => {
-    for (let i = b.rows.first; i < b.rows.end; i++) if (isInsert(i)) return true;
-    return false;
-  }));
+  const nesting = new Set(
+    source.blocks.filter((b) => {
+      for (let i = b.rows.first; i < b.rows.end; i++) if (isInsert(i)) return true;
+      return false;
+    }),
+  );
   const named = nameDecoder();
   const find = (name: string) => exact.get(name) ?? upper.get(name.toUpperCase()) ?? null;
   return {
@@ -121,7 +123,10 @@ export function nameDecoder(): (raw: string) => string {
 /** Each row's layer name, \U+ escapes decoded (each distinct name once). */
 export function rowLayers(source: Pick<DrawingSource, 'names' | 'table'>): (row: number) => string {
   const decoded = source.names.map(decodeUnicodeEscapes);
-  return (row) => { const k = source.table.layer[row]!; return k < 0 ? '0' : decoded[k]!; };
+  return (row) => {
+    const k = source.table.layer[row]!;
+    return k < 0 ? '0' : decoded[k]!;
+  };
 }
 
 /** The layer an entity counts on: its own, or the reference's for an entity on layer 0 inside a block. */

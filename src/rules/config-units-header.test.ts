@@ -13,8 +13,15 @@ ruleTester(configUnitsHeader, {
     { name: 'no units in the config', layout },
     { name: 'the config agrees with the header (in)', layout, config: { units: 'in' } },
   ],
-  invalid: [{
-    name: 'a config in feet on a drawing whose header says inches: lengths read in feet', layout, config: { units: 'ft' }, count: 1, severity: 'warning',
-    params: { config: 'ft', header: 'in' }, also: () => expect(checkLayout(layout, { units: 'ft' }).report.input.drawingUnits).toBe('ft'),
-  }],
+  invalid: [
+    {
+      name: 'a config in feet on a drawing whose header says inches: lengths read in feet',
+      layout,
+      config: { units: 'ft' },
+      count: 1,
+      severity: 'warning',
+      params: { config: 'ft', header: 'in' },
+      also: () => expect(checkLayout(layout, { units: 'ft' }).report.input.drawingUnits).toBe('ft'),
+    },
+  ],
 });

@@ -5,11 +5,19 @@ import { finding, type Rule } from './types.js';
 
 export const configUnitsHeader: Rule<'config-units-header'> = {
   meta: {
-    id: 'config-units-header', title: "Config unit contradicts the drawing's header", severity: 'warning',
+    id: 'config-units-header',
+    title: "Config unit contradicts the drawing's header",
+    severity: 'warning',
     reference: 'DXF reference, HEADER section: $INSUNITS is the drawing unit (from memory); common practice to trust the drawing',
   },
   check({ drawing, plan }) {
     if (drawing.unitsFrom !== 'config' || drawing.headerUnits === null || drawing.headerUnits === drawing.units) return [];
-    return [finding(this.meta, { params: { config: drawing.units, header: drawing.headerUnits }, handles: [], at: plan.heads[0]?.position ?? { x: 0, y: 0 } })];
+    return [
+      finding(this.meta, {
+        params: { config: drawing.units, header: drawing.headerUnits },
+        handles: [],
+        at: plan.heads[0]?.position ?? { x: 0, y: 0 },
+      }),
+    ];
   },
 };

@@ -19,7 +19,9 @@ const USUAL: { key: string; kind: QuantityKind; value: (s: Settings) => number |
 
 export const configUnitsMixed: Rule<'config-units-mixed'> = {
   meta: {
-    id: 'config-units-mixed', title: 'Config value that looks like the other unit system', severity: 'error',
+    id: 'config-units-mixed',
+    title: 'Config value that looks like the other unit system',
+    severity: 'error',
     reference: 'common practice, no source: the values designs use in either unit system',
   },
   check({ settings, plan }) {
@@ -35,10 +37,16 @@ export const configUnitsMixed: Rule<'config-units-mixed'> = {
       const meant = other === 'us' ? written : written / siPerUs;
       if (meant < low || meant > high) return [];
       const unit = QUANTITIES[kind];
-      return [finding(this.meta, {
-        params: { key, written, unit: unit[system], otherUnit: unit[other], otherSystem: other },
-        handles: [], at, measured: us, limit: us < low ? low : high, quantity: kind === 'number' ? 'none' : kind,
-      })];
+      return [
+        finding(this.meta, {
+          params: { key, written, unit: unit[system], otherUnit: unit[other], otherSystem: other },
+          handles: [],
+          at,
+          measured: us,
+          limit: us < low ? low : high,
+          quantity: kind === 'number' ? 'none' : kind,
+        }),
+      ];
     });
   },
 };

@@ -8,9 +8,38 @@ const layout = { s: 12, l: 10, heads: 8, lines: 6 };
 const config = { design: { density: 0.2, area: 1500 } };
 
 ruleTester(designAreaLength, {
-  valid: [{ name: '48 ft along the lines', config, layout: { ...layout, drawnArea: [{ x: 0, y: 20 }, { x: 48, y: 20 }, { x: 48, y: 50 }, { x: 0, y: 50 }] } }],
-  invalid: [{
-    name: '46 ft along the lines, under 46.48', config, layout: { ...layout, drawnArea: [{ x: 50, y: 20 }, { x: 96, y: 20 }, { x: 96, y: 60 }, { x: 50, y: 60 }] },
-    count: 1, severity: 'error', measured: 46, limit: 1.2 * Math.sqrt(1500),
-  }],
+  valid: [
+    {
+      name: '48 ft along the lines',
+      config,
+      layout: {
+        ...layout,
+        drawnArea: [
+          { x: 0, y: 20 },
+          { x: 48, y: 20 },
+          { x: 48, y: 50 },
+          { x: 0, y: 50 },
+        ],
+      },
+    },
+  ],
+  invalid: [
+    {
+      name: '46 ft along the lines, under 46.48',
+      config,
+      layout: {
+        ...layout,
+        drawnArea: [
+          { x: 50, y: 20 },
+          { x: 96, y: 20 },
+          { x: 96, y: 60 },
+          { x: 50, y: 60 },
+        ],
+      },
+      count: 1,
+      severity: 'error',
+      measured: 46,
+      limit: 1.2 * Math.sqrt(1500),
+    },
+  ],
 });

@@ -5,7 +5,9 @@ import { finding, type Rule } from './types.js';
 
 export const designAreaLength: Rule<'design-area-length'> = {
   meta: {
-    id: 'design-area-length', title: 'Length of the design area along the branch lines', severity: 'error',
+    id: 'design-area-length',
+    title: 'Length of the design area along the branch lines',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), 28.2.4.2.1: length parallel to the branch lines ≥ 1.2·√A (confirmed in the handbook)',
   },
   check({ design }) {
@@ -13,8 +15,15 @@ export const designAreaLength: Rule<'design-area-length'> = {
     if (min === undefined) return [];
     return design.areas
       .filter((a) => a.source === 'drawn' && a.length < min - 1e-6)
-      .map((a) => finding(this.meta, {
-        params: { length: a.length, min }, handles: a.handle ? [a.handle] : [], at: a.outline[0]!, measured: a.length, limit: min, quantity: 'length',
-      }));
+      .map((a) =>
+        finding(this.meta, {
+          params: { length: a.length, min },
+          handles: a.handle ? [a.handle] : [],
+          at: a.outline[0]!,
+          measured: a.length,
+          limit: min,
+          quantity: 'length',
+        }),
+      );
   },
 };

@@ -11,6 +11,12 @@ ruleTester(designAreaMissing, {
   invalid: [
     { name: 'no drawn area (mode both): said as information', layout, count: 1, severity: 'info', params: { kind: 'not-drawn' } },
     { name: 'no drawn area in drawn mode: a warning', layout, config: { design: { areaMode: 'drawn' } }, count: 1, severity: 'warning' },
-    { name: 'velocity pressure asked for: not modelled, said', layout, config: { design: { areaMode: 'search', velocityPressure: true } }, count: 1, params: { kind: 'velocity-pressure' } },
+    {
+      name: 'velocity pressure asked for: not modelled, said',
+      layout,
+      config: { design: { areaMode: 'search', velocityPressure: true } },
+      count: 1,
+      params: { kind: 'velocity-pressure' },
+    },
   ],
 });

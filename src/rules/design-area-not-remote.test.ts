@@ -16,15 +16,28 @@ ruleTester(designAreaNotRemote, {
     { name: 'the drawn area is the searched one', layout: { ...layout, drawnArea: searched.outline }, config },
     { name: 'no drawn area', layout, config },
   ],
-  invalid: [{
-    // the drawn area takes the 12 heads on the riser side (x ≤ 48, y = 25..45)
-    name: 'a drawn area near the riser: the more demanding area and the difference at the source', config,
-    layout: { ...layout, drawnArea: [{ x: 0, y: 20 }, { x: 48, y: 20 }, { x: 48, y: 50 }, { x: 0, y: 50 }] }, count: 1, severity: 'error',
-    also: (f) => {
-      expect(f[0]!.params.bestPressure).toBeGreaterThan(f[0]!.params.drawnPressure + 0.5);
-      expect(f[0]!.measured).toBeCloseTo(f[0]!.params.drawnPressure, 9);
-      expect(f[0]!.limit).toBeCloseTo(f[0]!.params.bestPressure, 9);
-      expect(f[0]!.params.heads).toHaveLength(13);
+  invalid: [
+    {
+      // the drawn area takes the 12 heads on the riser side (x ≤ 48, y = 25..45)
+      name: 'a drawn area near the riser: the more demanding area and the difference at the source',
+      config,
+      layout: {
+        ...layout,
+        drawnArea: [
+          { x: 0, y: 20 },
+          { x: 48, y: 20 },
+          { x: 48, y: 50 },
+          { x: 0, y: 50 },
+        ],
+      },
+      count: 1,
+      severity: 'error',
+      also: (f) => {
+        expect(f[0]!.params.bestPressure).toBeGreaterThan(f[0]!.params.drawnPressure + 0.5);
+        expect(f[0]!.measured).toBeCloseTo(f[0]!.params.drawnPressure, 9);
+        expect(f[0]!.limit).toBeCloseTo(f[0]!.params.bestPressure, 9);
+        expect(f[0]!.params.heads).toHaveLength(13);
+      },
     },
-  }],
+  ],
 });

@@ -8,21 +8,39 @@ const PRESSURE_TOLERANCE_PSI = 0.5;
 
 export const designAreaNotRemote: Rule<'design-area-not-remote'> = {
   meta: {
-    id: 'design-area-not-remote', title: 'Drawn design area is not the most demanding', severity: 'error',
+    id: 'design-area-not-remote',
+    title: 'Drawn design area is not the most demanding',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), 28.2.4.1: the hydraulically most demanding design area (from memory)',
   },
   check({ design, settings }) {
     const best = design.areas.find((a) => a.rank === 'most-demanding');
     if (!best?.hydraulics) return [];
     const bh = best.hydraulics;
-    return design.areas.filter((a) => a.source === 'drawn' && a.hydraulics).flatMap((a) => {
-      const h = a.hydraulics!;
-      const worse = settings.supply ? h.margin! - bh.margin! > PRESSURE_TOLERANCE_PSI : bh.sourcePressure - h.sourcePressure > PRESSURE_TOLERANCE_PSI;
-      if (!worse) return [];
-      return [finding(this.meta, {
-        params: { heads: best.headIds, bestPressure: bh.sourcePressure, bestFlow: bh.sourceFlow, drawnPressure: h.sourcePressure, drawnFlow: h.sourceFlow },
-        handles: a.handle ? [a.handle] : [], at: best.outline[0]!, measured: h.sourcePressure, limit: bh.sourcePressure, quantity: 'pressure',
-      })];
-    });
+    return design.areas
+      .filter((a) => a.source === 'drawn' && a.hydraulics)
+      .flatMap((a) => {
+        const h = a.hydraulics!;
+        const worse = settings.supply
+          ? h.margin! - bh.margin! > PRESSURE_TOLERANCE_PSI
+          : bh.sourcePressure - h.sourcePressure > PRESSURE_TOLERANCE_PSI;
+        if (!worse) return [];
+        return [
+          finding(this.meta, {
+            params: {
+              heads: best.headIds,
+              bestPressure: bh.sourcePressure,
+              bestFlow: bh.sourceFlow,
+              drawnPressure: h.sourcePressure,
+              drawnFlow: h.sourceFlow,
+            },
+            handles: a.handle ? [a.handle] : [],
+            at: best.outline[0]!,
+            measured: h.sourcePressure,
+            limit: bh.sourcePressure,
+            quantity: 'pressure',
+          }),
+        ];
+      });
   },
 };

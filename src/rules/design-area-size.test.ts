@@ -11,8 +11,24 @@ const searched = checkLayout(layout, config).design.areas.find((a) => a.rank ===
 
 ruleTester(designAreaSize, {
   valid: [{ name: 'the searched area drawn: 13 heads, 1560 ft²', layout: { ...layout, drawnArea: searched.outline }, config }],
-  invalid: [{
-    name: '12 heads × 120 ft² = 1440 ft², under 1500', config, layout: { ...layout, drawnArea: [{ x: 0, y: 20 }, { x: 48, y: 20 }, { x: 48, y: 50 }, { x: 0, y: 50 }] },
-    count: 1, severity: 'error', measured: 1440, limit: 1500, params: { kind: 'area', heads: 12 },
-  }],
+  invalid: [
+    {
+      name: '12 heads × 120 ft² = 1440 ft², under 1500',
+      config,
+      layout: {
+        ...layout,
+        drawnArea: [
+          { x: 0, y: 20 },
+          { x: 48, y: 20 },
+          { x: 48, y: 50 },
+          { x: 0, y: 50 },
+        ],
+      },
+      count: 1,
+      severity: 'error',
+      measured: 1440,
+      limit: 1500,
+      params: { kind: 'area', heads: 12 },
+    },
+  ],
 });

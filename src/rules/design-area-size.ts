@@ -5,24 +5,43 @@ import { finding, type Rule } from './types.js';
 
 export const designAreaSize: Rule<'design-area-size'> = {
   meta: {
-    id: 'design-area-size', title: 'Size of the drawn design area', severity: 'error',
+    id: 'design-area-size',
+    title: 'Size of the drawn design area',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), 19.3.3: the design area (confirmed); whole heads, rounded up (common practice)',
   },
   check({ design }) {
     const need = design.shape?.totalHeads ?? 0;
-    return design.areas.filter((a) => a.source === 'drawn').flatMap((a) => {
-      const at = a.outline[0]!;
-      const handles = a.handle ? [a.handle] : [];
-      if (a.actualArea < design.basis.area - 1e-6) {
-        return [finding(this.meta, {
-          params: { kind: 'area', area: a.actualArea, heads: a.headIds.length, required: design.basis.area },
-          handles, at, measured: a.actualArea, limit: design.basis.area, quantity: 'area',
-        })];
-      }
-      if (a.headIds.length < need) {
-        return [finding(this.meta, { params: { kind: 'count', heads: a.headIds.length, required: need }, handles, at, measured: a.headIds.length, limit: need, quantity: 'count' })];
-      }
-      return [];
-    });
+    return design.areas
+      .filter((a) => a.source === 'drawn')
+      .flatMap((a) => {
+        const at = a.outline[0]!;
+        const handles = a.handle ? [a.handle] : [];
+        if (a.actualArea < design.basis.area - 1e-6) {
+          return [
+            finding(this.meta, {
+              params: { kind: 'area', area: a.actualArea, heads: a.headIds.length, required: design.basis.area },
+              handles,
+              at,
+              measured: a.actualArea,
+              limit: design.basis.area,
+              quantity: 'area',
+            }),
+          ];
+        }
+        if (a.headIds.length < need) {
+          return [
+            finding(this.meta, {
+              params: { kind: 'count', heads: a.headIds.length, required: need },
+              handles,
+              at,
+              measured: a.headIds.length,
+              limit: need,
+              quantity: 'count',
+            }),
+          ];
+        }
+        return [];
+      });
   },
 };

@@ -8,7 +8,12 @@ import { finding, type Rule } from './types.js';
 const DENSITY_TOLERANCE = 1e-6;
 
 export const designBasisBelowCurve: Rule<'design-basis-below-curve'> = {
-  meta: { id: 'design-basis-below-curve', title: "Design basis below the hazard's density/area curve", severity: 'error', reference: CURVE_SOURCE },
+  meta: {
+    id: 'design-basis-below-curve',
+    title: "Design basis below the hazard's density/area curve",
+    severity: 'error',
+    reference: CURVE_SOURCE,
+  },
   check({ design, settings, plan }) {
     const given = settings.design;
     if (given.density === undefined && given.area === undefined) return [];
@@ -17,17 +22,29 @@ export const designBasisBelowCurve: Rule<'design-basis-below-curve'> = {
     const [endArea] = CURVES[hazard].end;
     const at = plan.heads[0]?.position ?? { x: 0, y: 0 };
     if (baseArea < startArea - 1e-6) {
-      return [finding(this.meta, {
-        params: { kind: 'area', hazard, area: baseArea, minArea: startArea, startDensity },
-        handles: [], at, measured: baseArea, limit: startArea, quantity: 'area',
-      })];
+      return [
+        finding(this.meta, {
+          params: { kind: 'area', hazard, area: baseArea, minArea: startArea, startDensity },
+          handles: [],
+          at,
+          measured: baseArea,
+          limit: startArea,
+          quantity: 'area',
+        }),
+      ];
     }
     const onCurve = Math.min(baseArea, endArea);
     const need = curveDensity(hazard, onCurve)!;
     if (density >= need - DENSITY_TOLERANCE) return [];
-    return [finding(this.meta, {
-      params: { kind: 'density', hazard, density, area: baseArea, need, atArea: onCurve },
-      handles: [], at, measured: density, limit: need, quantity: 'density',
-    })];
+    return [
+      finding(this.meta, {
+        params: { kind: 'density', hazard, density, area: baseArea, need, atArea: onCurve },
+        handles: [],
+        at,
+        measured: density,
+        limit: need,
+        quantity: 'density',
+      }),
+    ];
   },
 };

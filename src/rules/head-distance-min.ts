@@ -8,11 +8,19 @@ import type { Head } from '../read/plan.js';
 import { isStandardSpray } from './standard-heads.js';
 import { finding, type Rule } from './types.js';
 
-interface Box { minX: number; minY: number; maxX: number; maxY: number; i: number }
+interface Box {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+  i: number;
+}
 
 export const headDistanceMin: Rule<'head-distance-min'> = {
   meta: {
-    id: 'head-distance-min', title: 'Distance between heads (minimum)', severity: 'error',
+    id: 'head-distance-min',
+    title: 'Distance between heads (minimum)',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), 10.2.5.3.1: 6 ft between heads unless baffles separate them (from memory)',
   },
   check({ plan, limits }) {
@@ -22,7 +30,12 @@ export const headDistanceMin: Rule<'head-distance-min'> = {
     return clusters.map(({ members, least }) => {
       const first = heads[members[0]!]!;
       return finding(this.meta, {
-        params: { heads: members.map((i) => heads[i]!.id), least, limit: r }, handles: [...new Set(members.map((i) => heads[i]!.handle))], at: first.position, measured: least, limit: r, quantity: 'length',
+        params: { heads: members.map((i) => heads[i]!.id), least, limit: r },
+        handles: [...new Set(members.map((i) => heads[i]!.handle))],
+        at: first.position,
+        measured: least,
+        limit: r,
+        quantity: 'length',
         reference: limits.sources.minHeadDistance,
       });
     });
@@ -34,7 +47,10 @@ function tooClose(heads: Head[], r: number): { members: number[]; least: number 
   const tree = new RBush<Box>();
   tree.load(heads.map((h, i) => ({ minX: h.position.x, minY: h.position.y, maxX: h.position.x, maxY: h.position.y, i })));
   const parent = heads.map((_, i) => i);
-  const root = (i: number) => { while (parent[i] !== i) i = parent[i] = parent[parent[i]!]!; return i; };
+  const root = (i: number) => {
+    while (parent[i] !== i) i = parent[i] = parent[parent[i]!]!;
+    return i;
+  };
   const least = new Map<number, number>();
   heads.forEach((h, i) => {
     for (const b of tree.search({ minX: h.position.x - r, minY: h.position.y - r, maxX: h.position.x + r, maxY: h.position.y + r })) {

@@ -11,7 +11,11 @@ export const headDuplicate: Rule<'head-duplicate'> = {
       const head = byId.get(d.headId)!;
       return finding(this.meta, {
         params: { head: head.id, drawn: d.handles.length + 1 },
-        handles: [head.handle, ...d.handles], at: head.position, measured: d.handles.length + 1, limit: 1, quantity: 'count',
+        handles: [head.handle, ...d.handles],
+        at: head.position,
+        measured: d.handles.length + 1,
+        limit: 1,
+        quantity: 'count',
       });
     });
   },

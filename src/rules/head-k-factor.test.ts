@@ -15,10 +15,23 @@ ruleTester(headKFactor, {
   ],
   invalid: [
     {
-      name: 'a US drawing checked with an SI config: K "5.6" read as L/min/bar½, all six heads in one finding', layout: withK('5.6'), config: { unitSystem: 'si' },
-      count: 1, measured: 5.6 / (3.785411784 / Math.sqrt(0.0689475729)), limit: 1.3,
-      also: (f) => { expect(f[0]!.params).toMatchObject({ attribute: '5.6', system: 'si', looksLike: 'gpm/psi½' }); expect(f[0]!.handles).toHaveLength(6); },
+      name: 'a US drawing checked with an SI config: K "5.6" read as L/min/bar½, all six heads in one finding',
+      layout: withK('5.6'),
+      config: { unitSystem: 'si' },
+      count: 1,
+      measured: 5.6 / (3.785411784 / Math.sqrt(0.0689475729)),
+      limit: 1.3,
+      also: (f) => {
+        expect(f[0]!.params).toMatchObject({ attribute: '5.6', system: 'si', looksLike: 'gpm/psi½' });
+        expect(f[0]!.handles).toHaveLength(6);
+      },
     },
-    { name: 'K "80" in a US drawing: above every listed head, looks like L/min/bar½', layout: withK('80'), count: 1, limit: 34.8, params: { looksLike: 'L/min/bar½' } },
+    {
+      name: 'K "80" in a US drawing: above every listed head, looks like L/min/bar½',
+      layout: withK('80'),
+      count: 1,
+      limit: 34.8,
+      params: { looksLike: 'L/min/bar½' },
+    },
   ],
 });

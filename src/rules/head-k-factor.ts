@@ -14,7 +14,9 @@ export const LISTED_K_RANGE = { min: 1.3, max: 34.8 } as const;
 
 export const headKFactor: Rule<'head-k-factor'> = {
   meta: {
-    id: 'head-k-factor', title: 'Head K-factor outside the range of listed sprinklers', severity: 'error',
+    id: 'head-k-factor',
+    title: 'Head K-factor outside the range of listed sprinklers',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), Table 7.2.2.1: K-factors 1.3 to 34.8 gpm/psi½, nominal K 1.4 to 33.6 (from memory)',
   },
   check({ plan, settings }) {
@@ -33,8 +35,20 @@ export const headKFactor: Rule<'head-k-factor'> = {
       // Read in the other unit system, would the value be a listed K? Then that is the likely mix-up.
       const other = si ? k * KSI_PER_KUS : k / KSI_PER_KUS;
       return finding(this.meta, {
-        params: { heads: heads.map((h) => h.id), k, attribute, system: settings.unitSystem, min, max, looksLike: inRange(other) ? (si ? 'gpm/psi½' : 'L/min/bar½') : null },
-        handles: heads.map((h) => h.handle), at: heads[0]!.position, measured: k, limit: k < min ? min : max, quantity: 'kFactor',
+        params: {
+          heads: heads.map((h) => h.id),
+          k,
+          attribute,
+          system: settings.unitSystem,
+          min,
+          max,
+          looksLike: inRange(other) ? (si ? 'gpm/psi½' : 'L/min/bar½') : null,
+        },
+        handles: heads.map((h) => h.handle),
+        at: heads[0]!.position,
+        measured: k,
+        limit: k < min ? min : max,
+        quantity: 'kFactor',
       });
     });
   },

@@ -8,7 +8,14 @@ export const headOutsideRoom: Rule<'head-outside-room'> = {
   check({ plan, walls }) {
     if (plan.rooms.length === 0) {
       if (plan.heads.length === 0) return [];
-      return [finding(this.meta, { severity: 'info', params: { kind: 'no-rooms', walls: walls.count > 0 }, handles: [], at: plan.heads[0]!.position })];
+      return [
+        finding(this.meta, {
+          severity: 'info',
+          params: { kind: 'no-rooms', walls: walls.count > 0 },
+          handles: [],
+          at: plan.heads[0]!.position,
+        }),
+      ];
     }
     return plan.heads
       .filter((h) => walls.roomOf(h.position) === null)

@@ -12,9 +12,22 @@ ruleTester(headSpacingMax, {
   ],
   invalid: [
     {
-      name: 'ordinary hazard: 15.05 ft, once per gap, both heads named', layout: { s: 15.05, l: 8, heads: 3, lines: 2 }, count: 4, measured: 15.05, limit: 15,
-      also: (f) => { expect(f[0]!.handles).toHaveLength(2); expect(f[0]!.params.next).not.toBe(f[0]!.params.head); },
+      name: 'ordinary hazard: 15.05 ft, once per gap, both heads named',
+      layout: { s: 15.05, l: 8, heads: 3, lines: 2 },
+      count: 4,
+      measured: 15.05,
+      limit: 15,
+      also: (f) => {
+        expect(f[0]!.handles).toHaveLength(2);
+        expect(f[0]!.params.next).not.toBe(f[0]!.params.head);
+      },
     },
-    { name: 'extra hazard: 12.1 ft', layout: { s: 12.1, l: 8, heads: 3, lines: 2 }, config: { design: { hazard: 'EH2' } }, count: 4, limit: 12 },
+    {
+      name: 'extra hazard: 12.1 ft',
+      layout: { s: 12.1, l: 8, heads: 3, lines: 2 },
+      config: { design: { hazard: 'EH2' } },
+      count: 4,
+      limit: 12,
+    },
   ],
 });

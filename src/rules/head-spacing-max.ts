@@ -6,7 +6,9 @@ import { finding, type Rule } from './types.js';
 
 export const headSpacingMax: Rule<'head-spacing-max'> = {
   meta: {
-    id: 'head-spacing-max', title: 'Spacing between heads on a branch line', severity: 'error',
+    id: 'head-spacing-max',
+    title: 'Spacing between heads on a branch line',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), Table 10.2.4.2.1(a)-(c): 15 ft LH/OH, 12 ft EH (from memory)',
   },
   check({ plan, coverage, limits }) {
@@ -16,11 +18,17 @@ export const headSpacingMax: Rule<'head-spacing-max'> = {
       const after = c?.headAlong[1];
       const next = c?.neighbours[1];
       if (after === null || after === undefined || !next || after <= limits.maxSpacing + 1e-6) return [];
-      return [finding(this.meta, {
-        params: { head: h.id, next, distance: after, limit: limits.maxSpacing },
-        handles: [...new Set([h.handle, handleOf.get(next)!])], at: h.position, measured: after, limit: limits.maxSpacing, quantity: 'length',
-        reference: limits.sources.maxSpacing,
-      })];
+      return [
+        finding(this.meta, {
+          params: { head: h.id, next, distance: after, limit: limits.maxSpacing },
+          handles: [...new Set([h.handle, handleOf.get(next)!])],
+          at: h.position,
+          measured: after,
+          limit: limits.maxSpacing,
+          quantity: 'length',
+          reference: limits.sources.maxSpacing,
+        }),
+      ];
     });
   },
 };

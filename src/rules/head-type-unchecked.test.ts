@@ -15,13 +15,22 @@ ruleTester(headTypeUnchecked, {
   ],
   invalid: [
     {
-      name: 'sidewall heads 20 ft apart: named, not checked for spacing or area', layout: sidewalls, count: 4, severity: 'info', params: { kind: 'sidewall' },
+      name: 'sidewall heads 20 ft apart: named, not checked for spacing or area',
+      layout: sidewalls,
+      count: 4,
+      severity: 'info',
+      params: { kind: 'sidewall' },
       also: () => {
         const r = checkLayout(sidewalls);
         expect(findingsOf(r, 'protection-area')).toEqual([]);
         expect(findingsOf(r, 'head-spacing-max')).toEqual([]);
       },
     },
-    { name: 'an unknown TYPE is quoted', layout: { s: 12, l: 10, heads: 3, lines: 1, headAttribs: [{ tag: 'TYPE', value: 'ESFR-25' }] }, count: 3, params: { kind: 'other', type: 'ESFR-25' } },
+    {
+      name: 'an unknown TYPE is quoted',
+      layout: { s: 12, l: 10, heads: 3, lines: 1, headAttribs: [{ tag: 'TYPE', value: 'ESFR-25' }] },
+      count: 3,
+      params: { kind: 'other', type: 'ESFR-25' },
+    },
   ],
 });

@@ -5,7 +5,9 @@ import { finding, type Rule } from './types.js';
 
 export const headUnattached: Rule<'head-unattached'> = {
   meta: {
-    id: 'head-unattached', title: 'Head on no pipe', severity: 'error',
+    id: 'head-unattached',
+    title: 'Head on no pipe',
+    severity: 'error',
     reference: 'common practice, no source: every head must be piped to be fed',
   },
   check({ plan, network, settings }) {

@@ -6,7 +6,9 @@ import { finding, type Rule } from './types.js';
 
 export const lineSpacingMax: Rule<'line-spacing-max'> = {
   meta: {
-    id: 'line-spacing-max', title: 'Spacing between branch lines', severity: 'error',
+    id: 'line-spacing-max',
+    title: 'Spacing between branch lines',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), Table 10.2.4.2.1(a)-(c): 15 ft LH/OH, 12 ft EH (from memory)',
   },
   check({ plan, coverage, limits }) {
@@ -18,9 +20,16 @@ export const lineSpacingMax: Rule<'line-spacing-max'> = {
       const prev = worst.get(c.branchLine);
       if (!prev || left > prev.d) worst.set(c.branchLine, { d: left, handle: h.handle, at: h.position });
     }
-    return [...worst.entries()].map(([line, w]) => finding(this.meta, {
-      params: { line, distance: w.d, limit: limits.maxSpacing },
-      handles: [w.handle], at: w.at, measured: w.d, limit: limits.maxSpacing, quantity: 'length', reference: limits.sources.maxSpacing,
-    }));
+    return [...worst.entries()].map(([line, w]) =>
+      finding(this.meta, {
+        params: { line, distance: w.d, limit: limits.maxSpacing },
+        handles: [w.handle],
+        at: w.at,
+        measured: w.d,
+        limit: limits.maxSpacing,
+        quantity: 'length',
+        reference: limits.sources.maxSpacing,
+      }),
+    );
   },
 };

@@ -5,14 +5,22 @@ import { finding, type Rule } from './types.js';
 
 export const networkDisconnected: Rule<'network-disconnected'> = {
   meta: {
-    id: 'network-disconnected', title: 'Piping not connected to the source', severity: 'warning',
+    id: 'network-disconnected',
+    title: 'Piping not connected to the source',
+    severity: 'warning',
     reference: 'common practice, no source: every head must have a path to the water source',
   },
   check({ network }) {
     if (!network.sourceNodeId) return [];
-    return network.disconnected.map((part) => finding(this.meta, {
-      severity: part.headIds.length ? 'error' : 'warning', params: { pipes: part.pipeIds.length, heads: part.headIds },
-      handles: part.handles, at: part.at, measured: part.headIds.length, quantity: 'count',
-    }));
+    return network.disconnected.map((part) =>
+      finding(this.meta, {
+        severity: part.headIds.length ? 'error' : 'warning',
+        params: { pipes: part.pipeIds.length, heads: part.headIds },
+        handles: part.handles,
+        at: part.at,
+        measured: part.headIds.length,
+        quantity: 'count',
+      }),
+    );
   },
 };

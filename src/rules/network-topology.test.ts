@@ -5,10 +5,23 @@ import { ruleTester } from '../../test/support/rule-tester.js';
 import { networkTopology } from './network-topology.js';
 
 ruleTester(networkTopology, {
-  valid: [{ name: 'nothing said without a source on the piping', layout: { s: 12, l: 10, heads: 3, lines: 2, sourceOffset: { x: 0, y: -4 } } }],
+  valid: [
+    { name: 'nothing said without a source on the piping', layout: { s: 12, l: 10, heads: 3, lines: 2, sourceOffset: { x: 0, y: -4 } } },
+  ],
   invalid: [
-    { name: 'a tree: three lines, no loop', layout: { s: 12, l: 10, heads: 3, lines: 3 }, count: 1, severity: 'info', params: { topology: 'tree', loops: 0, lines: 3 } },
+    {
+      name: 'a tree: three lines, no loop',
+      layout: { s: 12, l: 10, heads: 3, lines: 3 },
+      count: 1,
+      severity: 'info',
+      params: { topology: 'tree', loops: 0, lines: 3 },
+    },
     // three lines joined at both ends by two cross mains: two independent loops
-    { name: 'a grid of three lines: two loops', layout: { s: 12, l: 10, heads: 3, lines: 3, gridded: true }, count: 1, params: { topology: 'grid', loops: 2 } },
+    {
+      name: 'a grid of three lines: two loops',
+      layout: { s: 12, l: 10, heads: 3, lines: 3, gridded: true },
+      count: 1,
+      params: { topology: 'grid', loops: 2 },
+    },
   ],
 });

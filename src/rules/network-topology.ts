@@ -8,9 +8,14 @@ export const networkTopology: Rule<'network-topology'> = {
   check({ network, plan }) {
     if (!network.sourceNodeId) return [];
     const source = network.nodes.find((n) => n.id === network.sourceNodeId)!;
-    return [finding(this.meta, {
-      params: { topology: network.topology, loops: network.loops, lines: network.branchLines.length, pipes: network.pipes.length },
-      handles: plan.sources.slice(0, 1).map((s) => s.handle), at: source.position, measured: network.loops, quantity: 'count',
-    })];
+    return [
+      finding(this.meta, {
+        params: { topology: network.topology, loops: network.loops, lines: network.branchLines.length, pipes: network.pipes.length },
+        handles: plan.sources.slice(0, 1).map((s) => s.handle),
+        at: source.position,
+        measured: network.loops,
+        quantity: 'count',
+      }),
+    ];
   },
 };

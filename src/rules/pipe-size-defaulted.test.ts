@@ -13,9 +13,17 @@ const stub = lineGroups('FP-PIPE', 1, 15, 1, 20);
 ruleTester(pipeSizeDefaulted, {
   valid: [{ name: 'every pipe labelled', layout }],
   invalid: [
-    { name: 'an unlabelled stub: 1" assumed', dxf: layoutWith(layout, stub), count: 1, severity: 'warning', params: { size: '1', unreadLabels: [] } },
     {
-      name: 'a stub labelled 99": quoted, 1" assumed', dxf: layoutWith(layout, stub + textGroups('FP-PIPE', 1.3, 18, '99"')), count: 1,
+      name: 'an unlabelled stub: 1" assumed',
+      dxf: layoutWith(layout, stub),
+      count: 1,
+      severity: 'warning',
+      params: { size: '1', unreadLabels: [] },
+    },
+    {
+      name: 'a stub labelled 99": quoted, 1" assumed',
+      dxf: layoutWith(layout, stub + textGroups('FP-PIPE', 1.3, 18, '99"')),
+      count: 1,
       also: (f) => expect(f[0]!.params.unreadLabels).toEqual(['99"']),
     },
   ],

@@ -7,7 +7,9 @@ import { finding, type Rule } from './types.js';
 
 export const pipeSizeDefaulted: Rule<'pipe-size-defaulted'> = {
   meta: {
-    id: 'pipe-size-defaulted', title: 'Pipe size assumed', severity: 'warning',
+    id: 'pipe-size-defaulted',
+    title: 'Pipe size assumed',
+    severity: 'warning',
     reference: 'common practice, no source: pipe sizes are labelled on sprinkler working plans',
   },
   check({ network, settings }) {
@@ -19,8 +21,16 @@ export const pipeSizeDefaulted: Rule<'pipe-size-defaulted'> = {
     return [...byEntity.values()].map((pipes) => {
       const first = pipes[0]!;
       return finding(this.meta, {
-        params: { pipes: pipes.map((p) => p.id), size: first.nominalSize, reach: settings.tolerances.sizeLabel, unreadLabels: [...new Set(pipes.flatMap((p) => p.unreadLabels))] },
-        handles: [...new Set(pipes.flatMap((p) => p.handles))], at: first.points[Math.floor(first.points.length / 2)]!, measured: pipes.length, quantity: 'count',
+        params: {
+          pipes: pipes.map((p) => p.id),
+          size: first.nominalSize,
+          reach: settings.tolerances.sizeLabel,
+          unreadLabels: [...new Set(pipes.flatMap((p) => p.unreadLabels))],
+        },
+        handles: [...new Set(pipes.flatMap((p) => p.handles))],
+        at: first.points[Math.floor(first.points.length / 2)]!,
+        measured: pipes.length,
+        quantity: 'count',
       });
     });
   },

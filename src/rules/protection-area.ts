@@ -6,17 +6,26 @@ import { finding, type Rule } from './types.js';
 
 export const protectionArea: Rule<'protection-area'> = {
   meta: {
-    id: 'protection-area', title: 'Protection area per head', severity: 'error',
+    id: 'protection-area',
+    title: 'Protection area per head',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), Table 10.2.4.2.1(a)-(c): 225 ft² LH, 130 ft² OH, 100 ft² EH (confirmed)',
   },
   check({ plan, coverage, limits }) {
     return plan.heads.filter(isStandardSpray).flatMap((h) => {
       const c = coverage.get(h.id);
       if (!c || c.area === null || c.area <= limits.maxArea + 1e-6) return [];
-      return [finding(this.meta, {
-        params: { head: h.id, area: c.area, s: c.s!, l: c.l!, limit: limits.maxArea },
-        handles: [h.handle], at: h.position, measured: c.area, limit: limits.maxArea, quantity: 'area', reference: limits.sources.maxArea,
-      })];
+      return [
+        finding(this.meta, {
+          params: { head: h.id, area: c.area, s: c.s!, l: c.l!, limit: limits.maxArea },
+          handles: [h.handle],
+          at: h.position,
+          measured: c.area,
+          limit: limits.maxArea,
+          quantity: 'area',
+          reference: limits.sources.maxArea,
+        }),
+      ];
     });
   },
 };

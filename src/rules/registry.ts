@@ -27,9 +27,29 @@ import { wallDistanceMax } from './wall-distance-max.js';
 import { wallDistanceMin } from './wall-distance-min.js';
 
 export const RULES: readonly Rule[] = [
-  configUnitsHeader, configUnitsMixed, designBasisBelowCurve, sourceUnattached, headUnattached, networkDisconnected, protectionArea, headSpacingMax, lineSpacingMax,
-  wallDistanceMax, wallDistanceMin, headDistanceMin, headDuplicate, headOutsideRoom, headTypeUnchecked, headKFactor, designAreaSize, designAreaLength,
-  designAreaNotRemote, supplyShort, designAreaMissing, pipeSizeDefaulted, networkTopology,
+  configUnitsHeader,
+  configUnitsMixed,
+  designBasisBelowCurve,
+  sourceUnattached,
+  headUnattached,
+  networkDisconnected,
+  protectionArea,
+  headSpacingMax,
+  lineSpacingMax,
+  wallDistanceMax,
+  wallDistanceMin,
+  headDistanceMin,
+  headDuplicate,
+  headOutsideRoom,
+  headTypeUnchecked,
+  headKFactor,
+  designAreaSize,
+  designAreaLength,
+  designAreaNotRemote,
+  supplyShort,
+  designAreaMissing,
+  pipeSizeDefaulted,
+  networkTopology,
 ];
 
 /**
@@ -39,7 +59,12 @@ export const RULES: readonly Rule[] = [
 export const FINDINGS_PER_RULE = 200;
 
 /** The note that closes a rule's list past FINDINGS_PER_RULE (its severity the worst of what it counts). */
-const FINDINGS_NOT_LISTED = { id: 'findings-not-listed', title: 'Findings not listed', severity: 'info', reference: 'common practice, no source' } as const;
+const FINDINGS_NOT_LISTED = {
+  id: 'findings-not-listed',
+  title: 'Findings not listed',
+  severity: 'info',
+  reference: 'common practice, no source',
+} as const;
 
 export function runRules(ctx: RuleContext, rules: readonly Rule[] = RULES): Finding[] {
   return rules.flatMap((r): Finding[] => {
@@ -48,8 +73,16 @@ export function runRules(ctx: RuleContext, rules: readonly Rule[] = RULES): Find
     const shown = found.slice(0, FINDINGS_PER_RULE);
     const rest = found.slice(FINDINGS_PER_RULE);
     const worst = rest.some((f) => f.severity === 'error') ? 'error' : rest.some((f) => f.severity === 'warning') ? 'warning' : 'info';
-    return [...shown, finding(FINDINGS_NOT_LISTED, {
-      severity: worst, params: { rule: r.meta.id, more: rest.length, shown: FINDINGS_PER_RULE }, handles: [], at: rest[0]!.at, measured: rest.length, quantity: 'count',
-    })];
+    return [
+      ...shown,
+      finding(FINDINGS_NOT_LISTED, {
+        severity: worst,
+        params: { rule: r.meta.id, more: rest.length, shown: FINDINGS_PER_RULE },
+        handles: [],
+        at: rest[0]!.at,
+        measured: rest.length,
+        quantity: 'count',
+      }),
+    ];
   });
 }

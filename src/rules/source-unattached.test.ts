@@ -10,5 +10,13 @@ ruleTester(sourceUnattached, {
     { name: 'the riser at the end of the feed main', layout },
     { name: 'the riser 1.5 ft off it (within 2 ft)', layout: { ...layout, sourceOffset: { x: 0, y: -1.5 } } },
   ],
-  invalid: [{ name: 'the riser 4 ft off its pipe', layout: { ...layout, sourceOffset: { x: 0, y: -4 } }, count: 1, severity: 'error', params: { reach: 2 } }],
+  invalid: [
+    {
+      name: 'the riser 4 ft off its pipe',
+      layout: { ...layout, sourceOffset: { x: 0, y: -4 } },
+      count: 1,
+      severity: 'error',
+      params: { reach: 2 },
+    },
+  ],
 });

@@ -6,7 +6,9 @@ import { finding, type Rule } from './types.js';
 
 export const sourceUnattached: Rule<'source-unattached'> = {
   meta: {
-    id: 'source-unattached', title: 'Water source on no pipe', severity: 'error',
+    id: 'source-unattached',
+    title: 'Water source on no pipe',
+    severity: 'error',
     reference: 'common practice, no source: the system is fed from its riser',
   },
   check({ plan, network }) {

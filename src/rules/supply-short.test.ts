@@ -10,15 +10,31 @@ const layout = { s: 12, l: 10, heads: 8, lines: 6 };
 const design = { hazard: 'OH2', density: 0.2, area: 1500 };
 
 ruleTester(supplyShort, {
-  valid: [{ name: 'an ample supply: 120 psi static, 100 at 1500 gpm', layout, config: { design, supply: { static: 120, residual: 100, flow: 1500 } } }],
+  valid: [
+    {
+      name: 'an ample supply: 120 psi static, 100 at 1500 gpm',
+      layout,
+      config: { design, supply: { static: 120, residual: 100, flow: 1500 } },
+    },
+  ],
   invalid: [
     { name: 'no flow test: said, not checked', layout, config: { design }, count: 1, severity: 'info', params: { kind: 'no-supply' } },
     {
-      name: 'a weak supply: both searched areas short', layout, config: { design, supply: { static: 40, residual: 30, flow: 500 } }, count: 2, severity: 'error',
-      also: (f) => { expect(f[0]!.params).toMatchObject({ kind: 'short', area: 'most-demanding' }); expect((f[0]!.params as { demand: number; pressure: number }).demand).toBeGreaterThan(250); },
+      name: 'a weak supply: both searched areas short',
+      layout,
+      config: { design, supply: { static: 40, residual: 30, flow: 500 } },
+      count: 2,
+      severity: 'error',
+      also: (f) => {
+        expect(f[0]!.params).toMatchObject({ kind: 'short', area: 'most-demanding' });
+        expect((f[0]!.params as { demand: number; pressure: number }).demand).toBeGreaterThan(250);
+      },
     },
     {
-      name: 'a supply that runs dry before the demand gives 0 and says where it runs dry', layout, config: { design, supply: { static: 40, residual: 30, flow: 100 } }, count: 2,
+      name: 'a supply that runs dry before the demand gives 0 and says where it runs dry',
+      layout,
+      config: { design, supply: { static: 40, residual: 30, flow: 100 } },
+      count: 2,
       also: (f) => {
         const p = f[0]!.params as { available: number; dryAt: number };
         expect(p.available).toBe(0);
@@ -26,6 +42,14 @@ ruleTester(supplyShort, {
       },
     },
     // the area needs 90.7 psi at 610 gpm with hose; 100 psi static, 96 at 1000 gpm gives 98.4 psi there
-    { name: 'a margin of a few psi: a warning', layout, config: { design, supply: { static: 100, residual: 96, flow: 1000 } }, count: 2, severity: 'warning', params: { kind: 'low-margin' }, limit: 10 },
+    {
+      name: 'a margin of a few psi: a warning',
+      layout,
+      config: { design, supply: { static: 100, residual: 96, flow: 1000 } },
+      count: 2,
+      severity: 'warning',
+      params: { kind: 'low-margin' },
+      limit: 10,
+    },
   ],
 });

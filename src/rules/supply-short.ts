@@ -9,8 +9,11 @@ export const SAFETY_MARGIN_PSI = 10;
 
 export const supplyShort: Rule<'supply-short'> = {
   meta: {
-    id: 'supply-short', title: 'Water supply against the demand', severity: 'error',
-    reference: 'NFPA 13 (2019 edition), 28.2.1: supply at the demand point with hose allowance (from memory); NFPA 291 supply curve (confirmed)',
+    id: 'supply-short',
+    title: 'Water supply against the demand',
+    severity: 'error',
+    reference:
+      'NFPA 13 (2019 edition), 28.2.1: supply at the demand point with hose allowance (from memory); NFPA 291 supply curve (confirmed)',
   },
   check({ design, settings }) {
     if (!settings.supply) {
@@ -18,21 +21,43 @@ export const supplyShort: Rule<'supply-short'> = {
       return any ? [finding(this.meta, { severity: 'info', params: { kind: 'no-supply' }, handles: [], at: any.outline[0]! })] : [];
     }
     const supply = settings.supply;
-    return design.areas.filter((a) => a.hydraulics && a.hydraulics.margin !== null).flatMap((a) => {
-      const h = a.hydraulics!;
-      const margin = h.margin!;
-      if (margin >= SAFETY_MARGIN_PSI) return [];
-      const params = {
-        kind: margin < 0 ? ('short' as const) : ('low-margin' as const), area: a.rank ?? ('drawn' as const), pressure: h.sourcePressure, demand: h.totalDemand,
-        available: h.supplyAvailable!, dryAt: h.supplyAvailable === 0 ? flowAtZeroPressure(supply) : null, margin,
-      };
-      const handles = a.handle ? [a.handle] : [];
-      return [margin < 0
-        ? finding(this.meta, { params, handles, at: a.outline[0]!, measured: h.sourcePressure, limit: h.supplyAvailable, quantity: 'pressure' })
-        : finding(this.meta, {
-          severity: 'warning', params, handles, at: a.outline[0]!, measured: margin, limit: SAFETY_MARGIN_PSI, quantity: 'pressure',
-          reference: 'common practice, no source: a safety margin of several psi, often 10',
-        })];
-    });
+    return design.areas
+      .filter((a) => a.hydraulics && a.hydraulics.margin !== null)
+      .flatMap((a) => {
+        const h = a.hydraulics!;
+        const margin = h.margin!;
+        if (margin >= SAFETY_MARGIN_PSI) return [];
+        const params = {
+          kind: margin < 0 ? ('short' as const) : ('low-margin' as const),
+          area: a.rank ?? ('drawn' as const),
+          pressure: h.sourcePressure,
+          demand: h.totalDemand,
+          available: h.supplyAvailable!,
+          dryAt: h.supplyAvailable === 0 ? flowAtZeroPressure(supply) : null,
+          margin,
+        };
+        const handles = a.handle ? [a.handle] : [];
+        return [
+          margin < 0
+            ? finding(this.meta, {
+                params,
+                handles,
+                at: a.outline[0]!,
+                measured: h.sourcePressure,
+                limit: h.supplyAvailable,
+                quantity: 'pressure',
+              })
+            : finding(this.meta, {
+                severity: 'warning',
+                params,
+                handles,
+                at: a.outline[0]!,
+                measured: margin,
+                limit: SAFETY_MARGIN_PSI,
+                quantity: 'pressure',
+                reference: 'common practice, no source: a safety margin of several psi, often 10',
+              }),
+        ];
+      });
   },
 };

@@ -62,11 +62,18 @@ export interface Rule<K extends FindingKind = FindingKind> {
 /** A finding of the rule `meta` describes, its metadata filled in. */
 export function finding<K extends FindingKind>(
   meta: RuleMeta<K>,
-  fields: Pick<Finding<K>, 'params' | 'handles' | 'at'> & Partial<Pick<Finding<K>, 'severity' | 'measured' | 'limit' | 'quantity' | 'reference'>>,
+  fields: Pick<Finding<K>, 'params' | 'handles' | 'at'> &
+    Partial<Pick<Finding<K>, 'severity' | 'measured' | 'limit' | 'quantity' | 'reference'>>,
 ): Finding<K> {
   return {
-    rule: meta.id, severity: fields.severity ?? meta.severity, reference: fields.reference ?? meta.reference,
-    params: fields.params, handles: fields.handles, at: fields.at,
-    measured: fields.measured ?? null, limit: fields.limit ?? null, quantity: fields.quantity ?? 'none',
+    rule: meta.id,
+    severity: fields.severity ?? meta.severity,
+    reference: fields.reference ?? meta.reference,
+    params: fields.params,
+    handles: fields.handles,
+    at: fields.at,
+    measured: fields.measured ?? null,
+    limit: fields.limit ?? null,
+    quantity: fields.quantity ?? 'none',
   };
 }

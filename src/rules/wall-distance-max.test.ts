@@ -9,9 +9,24 @@ import { wallDistanceMax } from './wall-distance-max.js';
 /** Room: 0..40 × 0..10 plus 0..10 × 10..30 (an L); one line at y = 5, heads at x = 5, 15, 25, 35. */
 function lRoom(): string {
   const w = new DxfWriter(2);
-  w.block('H', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.2, b); });
-  w.block('R', { x: 0, y: 0 }, (b) => { w.circle('0', { x: 0, y: 0 }, 0.5, b); });
-  w.polyline('A-WALL', [{ x: 0, y: 0 }, { x: 40, y: 0 }, { x: 40, y: 10 }, { x: 10, y: 10 }, { x: 10, y: 30 }, { x: 0, y: 30 }], true);
+  w.block('H', { x: 0, y: 0 }, (b) => {
+    w.circle('0', { x: 0, y: 0 }, 0.2, b);
+  });
+  w.block('R', { x: 0, y: 0 }, (b) => {
+    w.circle('0', { x: 0, y: 0 }, 0.5, b);
+  });
+  w.polyline(
+    'A-WALL',
+    [
+      { x: 0, y: 0 },
+      { x: 40, y: 0 },
+      { x: 40, y: 10 },
+      { x: 10, y: 10 },
+      { x: 10, y: 30 },
+      { x: 0, y: 30 },
+    ],
+    true,
+  );
   w.insert('FP-SOURCE', 'R', { x: -5, y: 5 });
   w.line('FP-PIPE', { x: -5, y: 5 }, { x: 35, y: 5 });
   for (const x of [5, 15, 25, 35]) w.insert('FP-HEAD', 'H', { x, y: 5 });
@@ -24,13 +39,27 @@ ruleTester(wallDistanceMax, {
     { name: 'and 7.5 ft from the side walls', layout: { s: 10, l: 10, heads: 3, lines: 2, wallAcross: 7.5 } },
   ],
   invalid: [
-    { name: '7.6 ft from the end walls: each end head', layout: { s: 10, l: 10, heads: 3, lines: 2, wallAlong: 7.6 }, count: 4, measured: 7.6, limit: 7.5 },
-    { name: 'outer lines 7.6 ft from the side walls: every head of them', layout: { s: 10, l: 10, heads: 3, lines: 2, wallAcross: 7.6 }, count: 6 },
+    {
+      name: '7.6 ft from the end walls: each end head',
+      layout: { s: 10, l: 10, heads: 3, lines: 2, wallAlong: 7.6 },
+      count: 4,
+      measured: 7.6,
+      limit: 7.5,
+    },
+    {
+      name: 'outer lines 7.6 ft from the side walls: every head of them',
+      layout: { s: 10, l: 10, heads: 3, lines: 2, wallAcross: 7.6 },
+      count: 6,
+    },
     {
       // Across the line the heads at x = 15, 25, 35 are 5 ft from the wall at y = 10; the head at x = 5 stands under
       // the L's leg, 25 ft from the wall at y = 30. A bounding box (0..40 × 0..30) would say 25 for all.
-      name: 'an L-shaped room: the wall in that direction, not the bounding box', dxf: lRoom(), config: { defaults: { pipeSize: '1-1/4' } },
-      count: 1, measured: 25, also: (f) => expect(f[0]!.params.head).toBe('H1'),
+      name: 'an L-shaped room: the wall in that direction, not the bounding box',
+      dxf: lRoom(),
+      config: { defaults: { pipeSize: '1-1/4' } },
+      count: 1,
+      measured: 25,
+      also: (f) => expect(f[0]!.params.head).toBe('H1'),
     },
   ],
 });

@@ -7,7 +7,9 @@ import { finding, type Rule } from './types.js';
 
 export const wallDistanceMax: Rule<'wall-distance-max'> = {
   meta: {
-    id: 'wall-distance-max', title: 'Distance from head to wall (maximum)', severity: 'error',
+    id: 'wall-distance-max',
+    title: 'Distance from head to wall (maximum)',
+    severity: 'error',
     reference: 'NFPA 13 (2019 edition), 10.2.5.2.1: half the allowed maximum spacing (confirmed)',
   },
   check({ plan, coverage, limits }) {
@@ -16,10 +18,17 @@ export const wallDistanceMax: Rule<'wall-distance-max'> = {
       if (!c) return [];
       const d = maxOf([...c.wallAlong, ...c.wallAcross].filter((x): x is number => x !== null));
       if (!(d > limits.maxWallDistance + 1e-6)) return [];
-      return [finding(this.meta, {
-        params: { head: h.id, distance: d, limit: limits.maxWallDistance },
-        handles: [h.handle], at: h.position, measured: d, limit: limits.maxWallDistance, quantity: 'length', reference: limits.sources.maxWallDistance,
-      })];
+      return [
+        finding(this.meta, {
+          params: { head: h.id, distance: d, limit: limits.maxWallDistance },
+          handles: [h.handle],
+          at: h.position,
+          measured: d,
+          limit: limits.maxWallDistance,
+          quantity: 'length',
+          reference: limits.sources.maxWallDistance,
+        }),
+      ];
     });
   },
 };

@@ -8,15 +8,28 @@ import { REPORT_SCRIPT_HASH } from '../outputs/html-report.js';
 import { InputError } from '../input-error.js';
 
 const TYPES: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8', '.js': 'text/javascript; charset=utf-8', '.css': 'text/css; charset=utf-8',
-  '.svg': 'image/svg+xml', '.png': 'image/png', '.json': 'application/json', '.ico': 'image/x-icon',
+  '.html': 'text/html; charset=utf-8',
+  '.js': 'text/javascript; charset=utf-8',
+  '.css': 'text/css; charset=utf-8',
+  '.svg': 'image/svg+xml',
+  '.png': 'image/png',
+  '.json': 'application/json',
+  '.ico': 'image/x-icon',
 };
 
 /** Scripts only from the page itself, plus the report's one inline script (shown in an iframe) by its hash. */
 export function contentSecurityPolicy(): string {
   return [
-    "default-src 'none'", `script-src 'self' '${REPORT_SCRIPT_HASH}'`, "style-src 'self' 'unsafe-inline'", "img-src 'self' data: blob:",
-    "worker-src 'self'", "connect-src 'self'", "frame-src 'self' blob:", "base-uri 'none'", "form-action 'none'", "frame-ancestors 'self'",
+    "default-src 'none'",
+    `script-src 'self' '${REPORT_SCRIPT_HASH}'`,
+    "style-src 'self' 'unsafe-inline'",
+    "img-src 'self' data: blob:",
+    "worker-src 'self'",
+    "connect-src 'self'",
+    "frame-src 'self' blob:",
+    "base-uri 'none'",
+    "form-action 'none'",
+    "frame-ancestors 'self'",
   ].join('; ');
 }
 
@@ -33,7 +46,11 @@ function filesOf(root: string): Map<string, string> {
   return table;
 }
 
-export interface Serving { url: string; server: Server; close(): Promise<void> }
+export interface Serving {
+  url: string;
+  server: Server;
+  close(): Promise<void>;
+}
 
 /** Whether `host` is a loopback address (the page is meant for this machine only). */
 export const isLoopback = (host: string): boolean => host === 'localhost' || /^127\./.test(host) || host === '::1' || host === '[::1]';
@@ -55,8 +72,11 @@ export function serve(root: string, port: number, host = '127.0.0.1'): Promise<S
   let hosts = allowedHosts(host, port);
   const server = createServer((req, res) => {
     const headers = {
-      'Content-Security-Policy': csp, 'X-Content-Type-Options': 'nosniff', 'Referrer-Policy': 'no-referrer',
-      'Cache-Control': 'no-store', 'Cross-Origin-Opener-Policy': 'same-origin',
+      'Content-Security-Policy': csp,
+      'X-Content-Type-Options': 'nosniff',
+      'Referrer-Policy': 'no-referrer',
+      'Cache-Control': 'no-store',
+      'Cross-Origin-Opener-Policy': 'same-origin',
     };
     if (!hosts.has((req.headers.host ?? '').toLowerCase())) {
       res.writeHead(421, { ...headers, 'Content-Type': 'text/plain; charset=utf-8' });

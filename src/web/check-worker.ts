@@ -8,15 +8,28 @@ import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
 
 /** One output of the check as the page offers it for download. */
-export interface PageOutput { format: FormatName; description: string; extension: string; blob: Blob }
+export interface PageOutput {
+  format: FormatName;
+  description: string;
+  extension: string;
+  blob: Blob;
+}
 
-export interface CheckRequest { bytes: ArrayBuffer; fileName: string; config: unknown; units: UnitSystem }
+export interface CheckRequest {
+  bytes: ArrayBuffer;
+  fileName: string;
+  config: unknown;
+  units: UnitSystem;
+}
 export type CheckReply =
   | { type: 'progress'; stage: string }
   | { type: 'done'; outputs: PageOutput[]; layers: { name: string; counts: Record<string, number> }[]; summary: unknown }
   | { type: 'error'; message: string };
 
-const worker = self as unknown as { onmessage: ((e: MessageEvent<CheckRequest>) => void) | null; postMessage(m: CheckReply, t?: Transferable[]): void };
+const worker = self as unknown as {
+  onmessage: ((e: MessageEvent<CheckRequest>) => void) | null;
+  postMessage(m: CheckReply, t?: Transferable[]): void;
+};
 
 const hex = (buf: ArrayBuffer) => [...new Uint8Array(buf)].map((b) => b.toString(16).padStart(2, '0')).join('');
 
@@ -35,6 +48,10 @@ worker.onmessage = async (e) => {
     });
     worker.postMessage({ type: 'done', outputs, layers: result.drawing.layers, summary: result.report.summary });
   } catch (err) {
-    worker.postMessage({ type: 'error', message: err instanceof InputError ? `${fileName}: ${err.message}` : `internal error: ${err instanceof Error ? err.message : String(err)}` });
+    worker.postMessage({
+      type: 'error',
+      message:
+        err instanceof InputError ? `${fileName}: ${err.message}` : `internal error: ${err instanceof Error ? err.message : String(err)}`,
+    });
   }
 };

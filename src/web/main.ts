@@ -75,7 +75,10 @@ function showLayers(layers: { name: string; counts: Record<string, number> }[], 
   for (const layer of layers) {
     const guessed = LAYER_ROLES.find((r) => used[r]?.includes(layer.name)) ?? '';
     const label = document.createElement('label');
-    const counts = Object.entries(layer.counts).map(([t, n]) => `${t} ${n}`).join(', ') || 'empty';
+    const counts =
+      Object.entries(layer.counts)
+        .map(([t, n]) => `${t} ${n}`)
+        .join(', ') || 'empty';
     label.append(`${layer.name} (${counts}) `);
     const select = document.createElement('select');
     select.dataset['layer'] = layer.name;
@@ -118,12 +121,15 @@ function check(): void {
       return;
     }
     const text = (format: string) => m.outputs.find((o) => o.format === format)!.blob.text();
-    const report = JSON.parse(await text('json')) as { summary: { pass: boolean; errors: number; warnings: number; heads: number }; input: { layersUsed: Record<LayerRole, string[]> } };
+    const report = JSON.parse(await text('json')) as {
+      summary: { pass: boolean; errors: number; warnings: number; heads: number };
+      input: { layersUsed: Record<LayerRole, string[]> };
+    };
     status.textContent = `Checked ${drawing!.name} in ${((performance.now() - started) / 1000).toFixed(1)} s.`;
     const verdict = $('verdict');
     verdict.className = report.summary.pass ? 'pass' : 'fail';
     verdict.textContent = `${report.summary.pass ? 'PASS' : 'FAIL'}: ${report.summary.heads} heads, ${report.summary.errors} errors, ${report.summary.warnings} warnings`;
-    urls.splice(0).forEach((u) => URL.revokeObjectURL(u));
+    for (const u of urls.splice(0)) URL.revokeObjectURL(u);
     const base = drawing!.name.replace(/\.dxf$/i, '');
     const links = m.outputs.map((o) => {
       const a = document.createElement('a');
@@ -133,7 +139,11 @@ function check(): void {
       return a;
     });
     $('downloads').replaceChildren('Download: ', ...links.flatMap((a) => [a, ' · ']), $('dl-config'));
-    download($<HTMLAnchorElement>('dl-config'), `${base}.config.json`, new Blob([`${JSON.stringify(config, null, 2)}\n`], { type: 'application/json' }));
+    download(
+      $<HTMLAnchorElement>('dl-config'),
+      `${base}.config.json`,
+      new Blob([`${JSON.stringify(config, null, 2)}\n`], { type: 'application/json' }),
+    );
     $<HTMLIFrameElement>('report').srcdoc = await text('html');
     $('results').hidden = false;
     showLayers(m.layers, report.input.layersUsed);
@@ -149,7 +159,10 @@ async function take(file: File): Promise<void> {
 }
 
 const drop = $('drop');
-drop.addEventListener('dragover', (e) => { e.preventDefault(); drop.classList.add('over'); });
+drop.addEventListener('dragover', (e) => {
+  e.preventDefault();
+  drop.classList.add('over');
+});
 drop.addEventListener('dragleave', () => drop.classList.remove('over'));
 drop.addEventListener('drop', (e) => {
   e.preventDefault();
@@ -161,5 +174,7 @@ $<HTMLInputElement>('file').addEventListener('change', (e) => {
   const file = (e.target as HTMLInputElement).files?.[0];
   if (file) void take(file);
 });
-form.addEventListener('change', (e) => { if (!(e.target as HTMLElement).closest('#layers')) check(); });
+form.addEventListener('change', (e) => {
+  if (!(e.target as HTMLElement).closest('#layers')) check();
+});
 restore();

@@ -18,11 +18,13 @@ export async function solveWithEpanet(model: HydraulicModel, sourcePressure: num
   const name = (i: number) => `J${i}`;
   const src = model.source;
   const lines = ['[TITLE]', 'headcheck reference network', '', '[JUNCTIONS]'];
-  model.nodes.forEach((n, i) => { if (i !== src) lines.push(`${name(i)} ${n.elevation} 0`); });
+  model.nodes.forEach((n, i) => {
+    if (i !== src) lines.push(`${name(i)} ${n.elevation} 0`);
+  });
   lines.push('', '[RESERVOIRS]', `${name(src)} ${model.nodes[src]!.elevation + sourcePressure / EPANET_PSI_PER_FT}`, '', '[PIPES]');
-  model.pipes.forEach((p) => lines.push(`${p.id} ${name(p.from)} ${name(p.to)} ${p.length} ${p.diameter} ${p.c} 0 Open`));
+  for (const p of model.pipes) lines.push(`${p.id} ${name(p.from)} ${name(p.to)} ${p.length} ${p.diameter} ${p.c} 0 Open`);
   lines.push('', '[EMITTERS]');
-  model.emitters.forEach((e) => lines.push(`${name(e.node)} ${e.k}`));
+  for (const e of model.emitters) lines.push(`${name(e.node)} ${e.k}`);
   lines.push('', '[OPTIONS]', 'Units GPM', 'Headloss H-W', 'Accuracy 0.000001', 'Trials 500', 'Emitter Exponent 0.5', '', '[END]', '');
   const ws = new Workspace();
   await ws.loadModule();
@@ -41,7 +43,7 @@ export async function solveWithEpanet(model: HydraulicModel, sourcePressure: num
     emitterFlow.set(e.headId, project.getNodeValue(idx, NodeProperty.Demand));
   });
   const flow = new Map<string, number>();
-  model.pipes.forEach((p) => flow.set(p.id, project.getLinkValue(project.getLinkIndex(p.id), LinkProperty.Flow)));
+  for (const p of model.pipes) flow.set(p.id, project.getLinkValue(project.getLinkIndex(p.id), LinkProperty.Flow));
   const sourceFlow = -project.getNodeValue(project.getNodeIndex(name(src)), NodeProperty.Demand);
   project.close();
   return { pressure, flow, emitterFlow, sourceFlow };

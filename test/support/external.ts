@@ -39,8 +39,17 @@ export function hasCommand(cmd: string): boolean {
 export async function launchChromium(profileDir: string, options: { width: number; height: number; downloads?: boolean }) {
   const { chromium } = await import('playwright-core');
   return chromium.launchPersistentContext(profileDir, {
-    executablePath: '/usr/bin/chromium', headless: true, viewport: { width: options.width, height: options.height },
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    viewport: { width: options.width, height: options.height },
     acceptDownloads: options.downloads ?? false,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+    ],
   });
 }

@@ -20,7 +20,9 @@ export class GuardedPipeline {
 
   /** Checks `bytes` with the raw `config`; a run over the time limit is stopped and reported as a hang. */
   run(bytes: Uint8Array, config: unknown): Promise<Outcome> {
-    const worker = (this.worker ??= new Worker(new URL('./pipeline-worker.mjs', import.meta.url), { resourceLimits: { maxOldGenerationSizeMb: GuardedPipeline.MEMORY_LIMIT_MB } }));
+    const worker = (this.worker ??= new Worker(new URL('./pipeline-worker.mjs', import.meta.url), {
+      resourceLimits: { maxOldGenerationSizeMb: GuardedPipeline.MEMORY_LIMIT_MB },
+    }));
     return new Promise((resolve) => {
       const settle = (outcome: Outcome, stopWorker: boolean) => {
         clearTimeout(timer);
@@ -31,7 +33,10 @@ export class GuardedPipeline {
         }
         resolve(outcome);
       };
-      const timer = setTimeout(() => settle({ outcome: 'hang', message: `no result within ${this.timeLimitMs} ms` }, true), this.timeLimitMs);
+      const timer = setTimeout(
+        () => settle({ outcome: 'hang', message: `no result within ${this.timeLimitMs} ms` }, true),
+        this.timeLimitMs,
+      );
       worker.once('message', (m: Outcome) => settle(m, false));
       worker.once('error', (err) => settle({ outcome: 'crash', message: `the worker died: ${err.message}` }, true));
       worker.postMessage({ bytes, config });

@@ -14,6 +14,10 @@ parentPort.on('message', ({ bytes, config }) => {
     parentPort.postMessage({ outcome: 'report' });
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);
-    parentPort.postMessage(err instanceof InputError ? { outcome: 'input-error', message } : { outcome: 'crash', message: err instanceof Error ? err.stack : message });
+    parentPort.postMessage(
+      err instanceof InputError
+        ? { outcome: 'input-error', message }
+        : { outcome: 'crash', message: err instanceof Error ? err.stack : message },
+    );
   }
 });

@@ -35,7 +35,9 @@ describe('drawingEncoding and textDecoder', () => {
   });
   it('refuses a file cut inside a section as truncated, naming the section', () => {
     const cut = `  0\nSECTION\n  2\nENTITIES\n  0\nLINE\n  8\nP\n 10\n0\n`;
-    expect(() => readDrawing(bytes(cut), { units: 'ft' })).toThrow(/the ENTITIES section is not closed by ENDSEC \(the file is truncated or damaged\)/);
+    expect(() => readDrawing(bytes(cut), { units: 'ft' })).toThrow(
+      /the ENTITIES section is not closed by ENDSEC \(the file is truncated or damaged\)/,
+    );
   });
   it('decodes windows-1252 bytes 0x80-0x9F as browsers do (WHATWG index: 0x96 → U+2013, 0x80 → U+20AC)', () => {
     const head = bytes(minimal('AC1015', 'ANSI_1252', '999\nX'));
@@ -64,17 +66,28 @@ describe('drawingEncoding and textDecoder', () => {
     expect(decodeDrawing(bytes(minimal('AC1015', 'ansi_1250'))).encoding).toBe('windows-1250');
   });
   it("a drawing naming no code page: Shift_JIS when its non-ASCII bytes are (配管 = 94 7A 8A C7, Python's codec), else windows-1252", () => {
-    const r12 = (...extra: number[]) => new Uint8Array([...bytes('  0\nSECTION\n  2\nHEADER\n  9\n$ACADVER\n  1\nAC1009\n  0\nENDSEC\n999\n'), ...extra, ...bytes('\n  0\nEOF\n')]);
+    const r12 = (...extra: number[]) =>
+      new Uint8Array([
+        ...bytes('  0\nSECTION\n  2\nHEADER\n  9\n$ACADVER\n  1\nAC1009\n  0\nENDSEC\n999\n'),
+        ...extra,
+        ...bytes('\n  0\nEOF\n'),
+      ]);
     expect(decodeDrawing(r12(0x94, 0x7a, 0x8a, 0xc7)).encoding).toBe('shift_jis');
     // "Größe" in windows-1252 (47 72 F6 DF 65): 0xF6 leads no JIS X 0208 character (those lead with 0x81-0x9F, 0xE0-0xEF)
     expect(decodeDrawing(r12(0x47, 0x72, 0xf6, 0xdf, 0x65)).encoding).toBe('windows-1252');
     expect(decodeDrawing(r12(0x41)).encoding).toBe('windows-1252');
   });
   it('reads the group order of AC1003 drawings (x codes before y codes), as ezdxf does', () => {
-    const old = '  0\nSECTION\n  2\nHEADER\n  9\n$ACADVER\n  1\nAC1003\n  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n' +
+    const old =
+      '  0\nSECTION\n  2\nHEADER\n  9\n$ACADVER\n  1\nAC1003\n  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n' +
       '  0\nLINE\n  8\nP\n  6\nCONTINUOUS\n 10\n1.5\n 11\n2.0\n 20\n0.5\n 21\n0.75\n  0\nENDSEC\n  0\nEOF\n';
     const d = readDrawing(bytes(old), { units: 'ft', layers: { pipes: ['P'] } });
     expect(d.version).toBe('AC1003');
-    expect(d.strokes.map((x) => [x.a, x.b])).toEqual([[{ x: 1.5, y: 0.5 }, { x: 2, y: 0.75 }]]);
+    expect(d.strokes.map((x) => [x.a, x.b])).toEqual([
+      [
+        { x: 1.5, y: 0.5 },
+        { x: 2, y: 0.75 },
+      ],
+    ]);
   });
 });

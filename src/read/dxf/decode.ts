@@ -13,21 +13,56 @@ const BINARY_SENTINEL = 'AutoCAD Binary DXF';
  * values found in the real-drawing corpus (ANSI_1250, ANSI_1252, dos850, dos932).
  */
 const CODE_PAGES: Record<string, string> = {
-  ASCII: 'windows-1252', ANSI_874: 'windows-874', ANSI_932: 'shift_jis', ANSI_936: 'gbk', ANSI_949: 'euc-kr', ANSI_950: 'big5',
-  ANSI_1250: 'windows-1250', ANSI_1251: 'windows-1251', ANSI_1252: 'windows-1252', ANSI_1253: 'windows-1253',
-  ANSI_1254: 'windows-1254', ANSI_1255: 'windows-1255', ANSI_1256: 'windows-1256', ANSI_1257: 'windows-1257',
-  ANSI_1258: 'windows-1258', ISO8859_1: 'iso-8859-1', ISO8859_2: 'iso-8859-2', ISO8859_3: 'iso-8859-3', ISO8859_4: 'iso-8859-4',
-  ISO8859_5: 'iso-8859-5', ISO8859_6: 'iso-8859-6', ISO8859_7: 'iso-8859-7', ISO8859_8: 'iso-8859-8', ISO8859_9: 'windows-1254',
-  ISO8859_10: 'iso-8859-10', DOS437: 'cp437', DOS850: 'cp850', DOS852: 'cp852', DOS855: 'cp855', DOS857: 'cp857', DOS860: 'cp860',
-  DOS861: 'cp861', DOS863: 'cp863', DOS864: 'cp864', DOS865: 'cp865', DOS866: 'ibm866', DOS869: 'cp869', DOS932: 'shift_jis',
-  MAC_ROMAN: 'macintosh', BIG5: 'big5', KSC5601: 'euc-kr', GB2312: 'gbk',
+  ASCII: 'windows-1252',
+  ANSI_874: 'windows-874',
+  ANSI_932: 'shift_jis',
+  ANSI_936: 'gbk',
+  ANSI_949: 'euc-kr',
+  ANSI_950: 'big5',
+  ANSI_1250: 'windows-1250',
+  ANSI_1251: 'windows-1251',
+  ANSI_1252: 'windows-1252',
+  ANSI_1253: 'windows-1253',
+  ANSI_1254: 'windows-1254',
+  ANSI_1255: 'windows-1255',
+  ANSI_1256: 'windows-1256',
+  ANSI_1257: 'windows-1257',
+  ANSI_1258: 'windows-1258',
+  ISO8859_1: 'iso-8859-1',
+  ISO8859_2: 'iso-8859-2',
+  ISO8859_3: 'iso-8859-3',
+  ISO8859_4: 'iso-8859-4',
+  ISO8859_5: 'iso-8859-5',
+  ISO8859_6: 'iso-8859-6',
+  ISO8859_7: 'iso-8859-7',
+  ISO8859_8: 'iso-8859-8',
+  ISO8859_9: 'windows-1254',
+  ISO8859_10: 'iso-8859-10',
+  DOS437: 'cp437',
+  DOS850: 'cp850',
+  DOS852: 'cp852',
+  DOS855: 'cp855',
+  DOS857: 'cp857',
+  DOS860: 'cp860',
+  DOS861: 'cp861',
+  DOS863: 'cp863',
+  DOS864: 'cp864',
+  DOS865: 'cp865',
+  DOS866: 'ibm866',
+  DOS869: 'cp869',
+  DOS932: 'shift_jis',
+  MAC_ROMAN: 'macintosh',
+  BIG5: 'big5',
+  KSC5601: 'euc-kr',
+  GB2312: 'gbk',
 };
 
 /**
  * Windows-1252 characters at bytes 0x80-0x9F (WHATWG Encoding Standard, index windows-1252). Node's
  * TextDecoder decodes this label as ISO-8859-1 there, browsers do not; remapping keeps both identical.
  */
-const CP1252_HIGH = '\u20AC\u0081\u201A\u0192\u201E\u2026\u2020\u2021\u02C6\u2030\u0160\u2039\u0152\u008D\u017D\u008F' +
+const CP1252_HIGH =
+  '\u20AC\u0081\u201A\u0192\u201E\u2026\u2020\u2021\u02C6\u2030\u0160\u2039\u0152\u008D\u017D\u008F' +
   '\u0090\u2018\u2019\u201C\u201D\u2022\u2013\u2014\u02DC\u2122\u0161\u203A\u0153\u009D\u017E\u0178';
 
 /** Decodes byte ranges of a drawing written in `label` (a WHATWG label or a DOS code page); a UTF-8 byte order mark is dropped. */
@@ -67,7 +102,8 @@ export function drawingEncoding(bytes: Uint8Array): DrawingEncoding {
   const first = new GroupCursor(bytes);
   let more = first.next();
   while (more && first.code === 999) more = first.next();
-  if (!more || first.code !== 0 || first.latin1().toUpperCase() !== 'SECTION') fail('not a DXF file (it does not start with a DXF section)');
+  if (!more || first.code !== 0 || first.latin1().toUpperCase() !== 'SECTION')
+    fail('not a DXF file (it does not start with a DXF section)');
   const version = headerValue(start, 'ACADVER') ?? 'AC1009';
   if (version >= 'AC1021' || bytes[0] === 0xef) return { encoding: 'utf-8', version };
   const codePage = headerValue(start, 'DWGCODEPAGE');
@@ -104,14 +140,20 @@ function nonAsciiLines(bytes: Uint8Array, limit: number): Uint8Array {
   let high = false;
   for (let i = 0; i <= bytes.length && size < limit; i++) {
     if (i === bytes.length || bytes[i] === 10) {
-      if (high) { parts.push(bytes.subarray(lineStart, i + 1)); size += i + 1 - lineStart; }
+      if (high) {
+        parts.push(bytes.subarray(lineStart, i + 1));
+        size += i + 1 - lineStart;
+      }
       lineStart = i + 1;
       high = false;
     } else if (bytes[i]! >= 0x80) high = true;
   }
   const out = new Uint8Array(size);
   let at = 0;
-  for (const p of parts) { out.set(p, at); at += p.length; }
+  for (const p of parts) {
+    out.set(p, at);
+    at += p.length;
+  }
   return out;
 }
 
@@ -120,7 +162,10 @@ function hasShiftJisPairs(b: Uint8Array): boolean {
   let pairs = 0;
   for (let i = 0; i + 1 < b.length; i++) {
     const lead = b[i]!;
-    if (((lead >= 0x81 && lead <= 0x9f) || (lead >= 0xe0 && lead <= 0xef)) && b[i + 1]! >= 0x40 && b[i + 1]! <= 0xfc) { pairs++; i++; }
+    if (((lead >= 0x81 && lead <= 0x9f) || (lead >= 0xe0 && lead <= 0xef)) && b[i + 1]! >= 0x40 && b[i + 1]! <= 0xfc) {
+      pairs++;
+      i++;
+    }
   }
   return pairs >= 2;
 }

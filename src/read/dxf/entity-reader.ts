@@ -9,7 +9,10 @@ export class EntityReader {
   private readonly c: GroupCursor;
   private end = 0;
 
-  constructor(readonly bytes: Uint8Array, private readonly decode: Decode) {
+  constructor(
+    readonly bytes: Uint8Array,
+    private readonly decode: Decode,
+  ) {
     this.c = new GroupCursor(bytes);
   }
 

@@ -29,7 +29,10 @@ export function groupCode(bytes: Uint8Array, start: number, end: number): number
   while (i < e && isBlank(bytes[i]!)) i++;
   while (e > i && isBlank(bytes[e - 1]!)) e--;
   let sign = 1;
-  if (i < e && (bytes[i] === 45 || bytes[i] === 43)) { sign = bytes[i] === 45 ? -1 : 1; i++; }
+  if (i < e && (bytes[i] === 45 || bytes[i] === 43)) {
+    sign = bytes[i] === 45 ? -1 : 1;
+    i++;
+  }
   if (i === e || e - i > 6) return Number.NaN;
   let v = 0;
   for (; i < e; i++) {

@@ -37,10 +37,15 @@ function tableWithRoom(capacity: number, from?: EntityTable): EntityTable {
   };
   return {
     count: from?.count ?? 0,
-    type: grow(Int32Array, from?.type), layer: grow(Int32Array, from?.layer), block: grow(Int32Array, from?.block),
-    copies: grow(Float64Array, from?.copies), flags: grow(Uint8Array, from?.flags),
-    start: grow(Float64Array, from?.start), end: grow(Float64Array, from?.end),
-    textStart: grow(Float64Array, from?.textStart), textEnd: grow(Float64Array, from?.textEnd),
+    type: grow(Int32Array, from?.type),
+    layer: grow(Int32Array, from?.layer),
+    block: grow(Int32Array, from?.block),
+    copies: grow(Float64Array, from?.copies),
+    flags: grow(Uint8Array, from?.flags),
+    start: grow(Float64Array, from?.start),
+    end: grow(Float64Array, from?.end),
+    textStart: grow(Float64Array, from?.textStart),
+    textEnd: grow(Float64Array, from?.textEnd),
   };
 }
 
@@ -56,7 +61,11 @@ export type Decode = (bytes: Uint8Array) => string;
  */
 export type { BlockEntry, EntityTable, Rows };
 
-export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLimits, 'entities' | 'textLength'> = DEFAULT_INPUT_LIMITS): ScannedDxf {
+export function scanDxf(
+  bytes: Uint8Array,
+  decode: Decode,
+  limits: Pick<InputLimits, 'entities' | 'textLength'> = DEFAULT_INPUT_LIMITS,
+): ScannedDxf {
   const c = new GroupCursor(bytes);
   const next = (): boolean => {
     if (!c.next()) return false;
@@ -65,7 +74,9 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
       throw new InputError(`line ${c.line()}: "${line.slice(0, 20)}" is not a group code (the file is damaged)`);
     }
     if (c.valueEnd - c.valueStart > limits.textLength) {
-      fail(`line ${c.line() + 1}: a value of ${c.valueEnd - c.valueStart} bytes, over the limit of ${limits.textLength} (inputLimits.textLength)`);
+      fail(
+        `line ${c.line() + 1}: a value of ${c.valueEnd - c.valueStart} bytes, over the limit of ${limits.textLength} (inputLimits.textLength)`,
+      );
     }
     return true;
   };
@@ -98,7 +109,14 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
   const valueIs = (word: string) => c.valueIs(word);
 
   let table = tableWithRoom(1024);
-  const out: Omit<ScannedDxf, 'names' | 'table'> = { sections: [], insunits: null, handseed: null, layerNames: [], blocks: [], modelSpace: [] };
+  const out: Omit<ScannedDxf, 'names' | 'table'> = {
+    sections: [],
+    insunits: null,
+    handseed: null,
+    layerNames: [],
+    blocks: [],
+    modelSpace: [],
+  };
   let more = next();
   /** Reads one entity whose "0 TYPE" group is current, with its trailing records, into the next row; leaves the next code 0 current. */
   const readEntity = (): void => {
@@ -126,7 +144,10 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
       else if (isInsert && c.code === 70) columns = Math.max(1, Math.floor(Number(value())) || 1);
       else if (isInsert && c.code === 71) rows = Math.max(1, Math.floor(Number(value())) || 1);
       else if (isPolyline && c.code === 70) flags = (Number(value()) & 1) === 1 ? flags | CLOSED : flags & ~CLOSED;
-      else if (isText && c.code === 1) { textStart = c.valueStart; textEnd = c.valueEnd; }
+      else if (isText && c.code === 1) {
+        textStart = c.valueStart;
+        textEnd = c.valueEnd;
+      }
     }
     // Trailing records (they continue the entity rather than start one) up to the next entity or the end of the section or block.
     while (more && c.code === 0 && (valueIs('ATTRIB') || valueIs('VERTEX') || valueIs('SEQEND'))) {
@@ -146,13 +167,17 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     if (!more) fail(`line ${c.line()}: the ${name} section is not closed by ENDSEC (the file is truncated or damaged)`);
     if (c.code !== 0) return true;
     if (valueIs('ENDSEC')) return false;
-    if (valueIs('SECTION') || valueIs('EOF')) fail(`line ${c.line()}: the ${name || 'unnamed'} section is not closed by ENDSEC before this ${c.latin1()} (the file is damaged)`);
+    if (valueIs('SECTION') || valueIs('EOF'))
+      fail(`line ${c.line()}: the ${name || 'unnamed'} section is not closed by ENDSEC before this ${c.latin1()} (the file is damaged)`);
     return true;
   };
 
   // Bytes after the EOF group (a DOS end-of-file byte, blank lines, trailing text) are no part of the drawing.
   while (more && !(c.code === 0 && valueIs('EOF'))) {
-    if (!(c.code === 0 && valueIs('SECTION'))) { more = next(); continue; }
+    if (!(c.code === 0 && valueIs('SECTION'))) {
+      more = next();
+      continue;
+    }
     const start = c.start;
     more = next();
     const name = codeIs(2) ? value().toUpperCase() : '';
@@ -160,7 +185,10 @@ export function scanDxf(bytes: Uint8Array, decode: Decode, limits: Pick<InputLim
     if (name === 'ENTITIES' || name === 'BLOCKS') {
       const model: Rows = { first: table.count, end: table.count };
       while (within(name)) {
-        if (c.code !== 0) { more = next(); continue; }
+        if (c.code !== 0) {
+          more = next();
+          continue;
+        }
         if (name === 'BLOCKS' && valueIs('BLOCK')) {
           const block: BlockEntry = { name: '', start: c.start, end: 0, rows: { first: table.count, end: table.count } };
           // Its name is group 2 (a block without one cannot be referenced, and is not decoded).

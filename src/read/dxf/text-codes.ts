@@ -40,7 +40,12 @@ export function plainMText(s: string): string {
       case '}':
         out += code;
         break;
-      case 'L': case 'l': case 'O': case 'o': case 'K': case 'k':
+      case 'L':
+      case 'l':
+      case 'O':
+      case 'o':
+      case 'K':
+      case 'k':
         break;
       case 'S': {
         // Stacked fraction: \S1/2; or \S1^2; or \S1#2;

@@ -6,7 +6,12 @@ import { ccwSweep, sampleArc } from '../arcs.js';
 import { origin, takeCommon } from './common.js';
 import type { EntityBase, EntityKind } from './types.js';
 
-export interface Arc extends EntityBase { center: Point; radius: number; startDeg: number; endDeg: number }
+export interface Arc extends EntityBase {
+  center: Point;
+  radius: number;
+  startDeg: number;
+  endDeg: number;
+}
 
 export const ARC: EntityKind<Arc> = {
   type: 'ARC',

@@ -5,7 +5,10 @@ import { plainText } from '../dxf/text-codes.js';
 import { takeCommon } from './common.js';
 import type { EntityBase, EntityKind } from './types.js';
 
-export interface AttDef extends EntityBase { tag: string; value: string }
+export interface AttDef extends EntityBase {
+  tag: string;
+  value: string;
+}
 
 export const ATTDEF: EntityKind<AttDef> = {
   type: 'ATTDEF',

@@ -5,7 +5,10 @@ import { sampleArc } from '../arcs.js';
 import { origin, takeCommon } from './common.js';
 import type { EntityBase, EntityKind } from './types.js';
 
-export interface Circle extends EntityBase { center: Point; radius: number }
+export interface Circle extends EntityBase {
+  center: Point;
+  radius: number;
+}
 
 /** Points a circle outline is sampled at. */
 const CIRCLE_STEPS = 32;

@@ -29,12 +29,24 @@ export const INSERT: EntityKind<Insert> = {
   decode(r, base) {
     const at = origin();
     const e: Insert = {
-      ...base, block: '', at, scaleX: 1, scaleY: 1, rotationDeg: 0, columns: 1, rows: 1, columnSpacing: 0, rowSpacing: 0, attributes: {},
+      ...base,
+      block: '',
+      at,
+      scaleX: 1,
+      scaleY: 1,
+      rotationDeg: 0,
+      columns: 1,
+      rows: 1,
+      columnSpacing: 0,
+      rowSpacing: 0,
+      attributes: {},
     };
     // After the first ATTRIB record, groups belong to attributes: a tag (2) and a value (1) each.
     let attribute: { tag: string; value: string } | null = null;
     let inAttributes = false;
-    const keep = () => { if (attribute?.tag) e.attributes[attribute.tag.toUpperCase()] = plainText(attribute.value); };
+    const keep = () => {
+      if (attribute?.tag) e.attributes[attribute.tag.toUpperCase()] = plainText(attribute.value);
+    };
     while (r.next()) {
       if (r.code === 0) {
         keep();
@@ -49,16 +61,36 @@ export const INSERT: EntityKind<Insert> = {
       }
       if (takeCommon(r, e)) continue;
       switch (r.code) {
-        case 2: e.block = r.name(); break;
-        case 10: at.x = r.number(); break;
-        case 20: at.y = r.number(); break;
-        case 41: e.scaleX = r.number(1); break;
-        case 42: e.scaleY = r.number(1); break;
-        case 50: e.rotationDeg = r.number(); break;
-        case 70: e.columns = Math.max(1, Math.floor(r.number(1))); break;
-        case 71: e.rows = Math.max(1, Math.floor(r.number(1))); break;
-        case 44: e.columnSpacing = r.number(); break;
-        case 45: e.rowSpacing = r.number(); break;
+        case 2:
+          e.block = r.name();
+          break;
+        case 10:
+          at.x = r.number();
+          break;
+        case 20:
+          at.y = r.number();
+          break;
+        case 41:
+          e.scaleX = r.number(1);
+          break;
+        case 42:
+          e.scaleY = r.number(1);
+          break;
+        case 50:
+          e.rotationDeg = r.number();
+          break;
+        case 70:
+          e.columns = Math.max(1, Math.floor(r.number(1)));
+          break;
+        case 71:
+          e.rows = Math.max(1, Math.floor(r.number(1)));
+          break;
+        case 44:
+          e.columnSpacing = r.number();
+          break;
+        case 45:
+          e.rowSpacing = r.number();
+          break;
       }
     }
     keep();
@@ -74,7 +106,14 @@ export function* placements(e: Insert, base: Point): Generator<Affine> {
       const dx = col * e.columnSpacing;
       const dy = row * e.rowSpacing;
       const insertion = { x: e.at.x + dx * Math.cos(rot) - dy * Math.sin(rot), y: e.at.y + dx * Math.sin(rot) + dy * Math.cos(rot) };
-      yield insertPlacement({ insertion, base, scaleX: e.scaleX, scaleY: e.scaleY, rotationDeg: e.rotationDeg, ocsMirror: e.extrusionZ < 0 });
+      yield insertPlacement({
+        insertion,
+        base,
+        scaleX: e.scaleX,
+        scaleY: e.scaleY,
+        rotationDeg: e.rotationDeg,
+        ocsMirror: e.extrusionZ < 0,
+      });
     }
   }
 }

@@ -4,7 +4,10 @@ import type { Point } from '../../geometry/point.js';
 import { origin, takeCommon } from './common.js';
 import type { EntityBase, EntityKind } from './types.js';
 
-export interface Line extends EntityBase { a: Point; b: Point }
+export interface Line extends EntityBase {
+  a: Point;
+  b: Point;
+}
 
 export const LINE: EntityKind<Line> = {
   type: 'LINE',

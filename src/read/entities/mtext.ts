@@ -6,7 +6,11 @@ import { plainMText } from '../dxf/text-codes.js';
 import { origin, takeCommon } from './common.js';
 import type { EntityBase, EntityKind } from './types.js';
 
-export interface MText extends EntityBase { at: Point; height: number; text: string }
+export interface MText extends EntityBase {
+  at: Point;
+  height: number;
+  text: string;
+}
 
 export const MTEXT: EntityKind<MText> = {
   type: 'MTEXT',

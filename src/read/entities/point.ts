@@ -4,7 +4,9 @@ import type { Point } from '../../geometry/point.js';
 import { origin, takeCommon } from './common.js';
 import type { EntityBase, EntityKind } from './types.js';
 
-export interface PointEntity extends EntityBase { at: Point }
+export interface PointEntity extends EntityBase {
+  at: Point;
+}
 
 export const POINT: EntityKind<PointEntity> = {
   type: 'POINT',

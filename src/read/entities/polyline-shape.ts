@@ -6,7 +6,11 @@ import { distance } from '../../geometry/point.js';
 import { sampleBulge } from '../arcs.js';
 import type { EntityBase, ExpandContext } from './types.js';
 
-export interface Vertex { x: number; y: number; bulge: number }
+export interface Vertex {
+  x: number;
+  y: number;
+  bulge: number;
+}
 
 export interface PolylineShape extends EntityBase {
   vertices: Vertex[];

@@ -5,7 +5,10 @@ import { takeCommon } from './common.js';
 import { expandPolyline, type PolylineShape, type Vertex } from './polyline-shape.js';
 import type { EntityKind } from './types.js';
 
-export interface Polyline extends PolylineShape { is3d: boolean; mesh: boolean }
+export interface Polyline extends PolylineShape {
+  is3d: boolean;
+  mesh: boolean;
+}
 
 /** POLYLINE flags (DXF reference): 1 closed, 8 3D polyline, 16 polygon mesh, 64 polyface mesh. */
 const CLOSED = 1;

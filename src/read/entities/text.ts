@@ -6,7 +6,13 @@ import { plainText } from '../dxf/text-codes.js';
 import { origin, takeCommon } from './common.js';
 import type { EntityBase, EntityKind } from './types.js';
 
-export interface Text extends EntityBase { at: Point; alignAt: Point | null; aligned: boolean; height: number; text: string }
+export interface Text extends EntityBase {
+  at: Point;
+  alignAt: Point | null;
+  aligned: boolean;
+  height: number;
+  text: string;
+}
 
 export const TEXT: EntityKind<Text> = {
   type: 'TEXT',
@@ -18,13 +24,28 @@ export const TEXT: EntityKind<Text> = {
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       switch (r.code) {
-        case 10: at.x = r.number(); break;
-        case 20: at.y = r.number(); break;
-        case 11: e.alignAt = { x: r.number(), y: e.alignAt?.y ?? 0 }; break;
-        case 21: e.alignAt = { x: e.alignAt?.x ?? 0, y: r.number() }; break;
-        case 40: e.height = r.number(); break;
-        case 1: e.text = plainText(r.text()); break;
-        case 72: case 73: e.aligned ||= r.number() !== 0; break;
+        case 10:
+          at.x = r.number();
+          break;
+        case 20:
+          at.y = r.number();
+          break;
+        case 11:
+          e.alignAt = { x: r.number(), y: e.alignAt?.y ?? 0 };
+          break;
+        case 21:
+          e.alignAt = { x: e.alignAt?.x ?? 0, y: r.number() };
+          break;
+        case 40:
+          e.height = r.number();
+          break;
+        case 1:
+          e.text = plainText(r.text());
+          break;
+        case 72:
+        case 73:
+          e.aligned ||= r.number() !== 0;
+          break;
       }
     }
     return e;

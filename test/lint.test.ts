@@ -1,0 +1,13 @@
+// The code is linted and formatted by Biome (biome.jsonc says which rules and why): `biome ci` must pass, so a
+// change that breaks the style fails the tests as a broken rule would.
+
+import { spawnSync } from 'node:child_process';
+import { expect, it } from 'vitest';
+
+it('biome ci: lint and format clean', () => {
+  const r = spawnSync(process.execPath, ['node_modules/@biomejs/biome/bin/biome', 'ci', '--colors=off'], {
+    encoding: 'utf8',
+    timeout: 120_000,
+  });
+  expect(r.status, `${r.stdout}\n${r.stderr}`).toBe(0);
+});
