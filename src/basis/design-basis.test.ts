@@ -1,5 +1,5 @@
 // Density/area curves and adjustments: OH2 at 0.20/1500, 0.17 at 3000 ft², about 0.15 at 3900 ft²
-// (check values consistent with the OH2 line, shared/TRADE.md, common practice); +30% for dry systems (confirmed).
+// (check values consistent with the OH2 line, common practice); +30% for dry systems (confirmed).
 
 import { describe, expect, it } from 'vitest';
 import { parseSettings } from '../config/settings.js';

@@ -91,6 +91,3 @@ export function resolveLimits(settings: Settings): Limits {
   }
   return limits;
 }
-
-/** Names of the keys `limits` in the config may set. */
-export const OVERRIDABLE_LIMITS = LIMIT_KEYS;

@@ -102,7 +102,7 @@ function walk(dir: string, o: { skip: string; root: string; visited: Set<string>
 const isBatchOutput = (dir: string) => existsSync(join(dir, '.results')) && existsSync(join(dir, 'summary.json'));
 
 /** `a/b/plan.dxf` → `a_b_plan-1f3e2a9c`: the relative path made safe for a file name, plus a hash of the full path. */
-export function outputName(rel: string, abs: string): string {
+function outputName(rel: string, abs: string): string {
   const readable =
     rel
       .replace(/\.dxf$/i, '')

@@ -10,7 +10,7 @@ import type { BatchRow } from './worker.js';
 const rankOf = { error: 0, fail: 1, pass: 2, skipped: 3 } as const;
 
 /** Worst first: unreadable, then failing (most errors first), then passing; ties by file. */
-export const worstFirst = (rows: BatchRow[]): BatchRow[] =>
+const worstFirst = (rows: BatchRow[]): BatchRow[] =>
   [...rows].sort((a, b) => rankOf[a.status] - rankOf[b.status] || (b.errors ?? 0) - (a.errors ?? 0) || a.file.localeCompare(b.file));
 
 const csvCell = (v: unknown) => {

@@ -5,11 +5,6 @@ import type { Point } from '../geometry/point.js';
 import { formatGroups } from '../outputs/dxf-format.js';
 import * as rec from '../outputs/dxf-records.js';
 
-export interface AttribValue {
-  tag: string;
-  value: string;
-}
-
 export class DxfWriter {
   private readonly ctx: rec.RecordContext = { modern: false, handles: new rec.HandleSource(0x100n), owner: null };
   private readonly layers = new Map<string, number>();

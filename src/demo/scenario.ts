@@ -7,12 +7,6 @@ import { DxfWriter } from './dxf-writer.js';
 const IN = 12; // drawn in inches
 const p = (x: number, y: number): Point => ({ x: x * IN, y: y * IN });
 
-/** Where the planted findings are, for the README and tests: the moved head and the extra head. */
-export const DEMO_PLANTED = {
-  movedHead: { from: p(78, 34), to: p(81, 34) },
-  extraHead: p(94, 54),
-} as const;
-
 /** The demo drawing as DXF text (R12, inches). */
 export function demoDrawing(): string {
   const w = new DxfWriter(1)

@@ -68,7 +68,7 @@ export function lineFamilies(network: Network, heads: Head[], coverage: Map<stri
  * The heads a window selects, in the order the rules add them: whole lines first, then on the next line the
  * heads nearest the cross main (its feed end). Keeps adding until `count` heads and `area` ft² are reached.
  */
-export function selectHeads(
+function selectHeads(
   fam: LineFamily,
   start: number,
   dir: 1 | -1,

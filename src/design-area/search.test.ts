@@ -1,6 +1,6 @@
 // The design-area search: pruning (the bound on trees, proving solves on any network) never drops the true
 // most demanding area or its runner-up (property test against brute force, trees and grids); the shape rules
-// place the remainder heads at the cross-main end of the next line (common practice, shared/TRADE.md).
+// place the remainder heads at the cross-main end of the next line (common practice).
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';

@@ -1,5 +1,5 @@
 // Design-area shape against the trade's worked values: 1.2·√1500 = 46.48 ft, and 46.48 / 12 = 3.87 → 4
-// heads along the line (common practice, shared/TRADE.md); 1500 / 120 = 12.5 → 13 heads (fractions round up).
+// heads along the line (common practice, a training source); 1500 / 120 = 12.5 → 13 heads (fractions round up).
 
 import { describe, expect, it } from 'vitest';
 import { areaShape } from './shape.js';

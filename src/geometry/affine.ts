@@ -12,8 +12,6 @@ export interface Affine {
   readonly f: number;
 }
 
-export const IDENTITY: Affine = { a: 1, b: 0, c: 0, d: 1, e: 0, f: 0 };
-
 /** The transform that applies `inner` first, then `outer`. */
 export function compose(outer: Affine, inner: Affine): Affine {
   return {
@@ -30,9 +28,6 @@ export const apply = (m: Affine, p: Point): Point => ({
   x: m.a * p.x + m.c * p.y + m.e,
   y: m.b * p.x + m.d * p.y + m.f,
 });
-
-/** Applies only the linear part (for direction vectors). */
-export const applyLinear = (m: Affine, p: Point): Point => ({ x: m.a * p.x + m.c * p.y, y: m.b * p.x + m.d * p.y });
 
 export const translation = (x: number, y: number): Affine => ({ a: 1, b: 0, c: 0, d: 1, e: x, f: y });
 export const scaling = (sx: number, sy: number): Affine => ({ a: sx, b: 0, c: 0, d: sy, e: 0, f: 0 });

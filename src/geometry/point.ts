@@ -52,9 +52,3 @@ export function boundsOf(points: Iterable<Point>): Bounds {
   }
   return { minX, minY, maxX, maxY };
 }
-
-/** Angle in radians between two direction vectors, folded to [0, π/2] (lines, not rays). */
-export function lineAngle(a: Point, b: Point): number {
-  const c = Math.abs(dot(unit(a), unit(b)));
-  return Math.acos(Math.min(1, c));
-}

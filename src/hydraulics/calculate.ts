@@ -34,7 +34,7 @@ const MAX_SOLVES = 80;
 const IDLE_SHARE = 1e-9;
 
 /** Velocity in ft/s of `q` gpm in a pipe of inside diameter `d` inches: 0.4085·q/d² (derived from 1 gpm = 0.002228 ft³/s). */
-export const velocityFtPerS = (q: number, d: number): number => (0.4085 * Math.abs(q)) / (d * d);
+const velocityFtPerS = (q: number, d: number): number => (0.4085 * Math.abs(q)) / (d * d);
 
 interface Trial {
   P: number;

@@ -32,7 +32,7 @@ export const EQUIVALENT_LENGTH_FT: Record<NominalSize, FittingLengths> = {
 };
 
 /**
- * Multiplier for a C-factor other than 120: (C/120)^1.85 (derived; shared/TRADE.md lists 0.713 at C 100,
+ * Multiplier for a C-factor other than 120: (C/120)^1.85 (derived; a European rulebook gives 0.714 at C 100,
  * 1.16 at 130, 1.33 at 140, 1.51 at 150), and for an inside diameter other than Schedule 40's:
  * (d / d_sch40)^4.87 (from memory: NFPA 13's note to the same table).
  */

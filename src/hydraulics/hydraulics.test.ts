@@ -45,14 +45,14 @@ describe('Hazen-Williams and the supply curve', () => {
 });
 
 describe('network solver', () => {
-  it('one 1 in pipe, 100 ft, C 120, K 5.6, source head 150 ft: 33.343 psi and 32.336 gpm (shared/TRADE.md, bisection with the NFPA formula)', () => {
+  it('one 1 in pipe, 100 ft, C 120, K 5.6, source head 150 ft: 33.343 psi and 32.336 gpm (bisection with the NFPA 13 Hazen-Williams formula, common practice)', () => {
     const solver = new NetworkSolver(onePipe());
     const s = solver.expand(solver.solve(150 * EPANET_PSI_PER_FT));
     expect(s.pressure[1]).toBeCloseTo(33.343, 2);
     expect(s.emitterFlow[0]).toBeCloseTo(32.336, 2);
   });
 
-  it('agrees with EPANET on the same pipe (EPANET measured 33.339 psi, 32.334 gpm; shared/TRADE.md)', async () => {
+  it('agrees with EPANET on the same pipe (EPANET 2.2 via epanet-js measured 33.339 psi, 32.334 gpm)', async () => {
     const e = await solveWithEpanet(onePipe(), 150 * EPANET_PSI_PER_FT);
     expect(e.pressure.get('H')).toBeCloseTo(33.339, 2);
     expect(e.emitterFlow.get('H1')).toBeCloseTo(32.334, 2);
@@ -122,7 +122,7 @@ describe('design-area hydraulics against EPANET', () => {
 describe('one solver for many design areas, against EPANET', () => {
   // The solver keeps one model with every head, opens an area's heads and works on the network reduced to
   // junctions and open heads (pipes in series added up). EPANET gets each area as a network of its own.
-  // Tolerance 1%: EPANET's Hazen-Williams exponent is 1.852, NFPA 13's 1.85 (shared/TRADE.md).
+  // Tolerance 1%: EPANET's Hazen-Williams exponent is 1.852, NFPA 13's 1.85 (EPANET 2.2 manual, from memory).
   const config = { defaults: { headElevation: 12, sourceElevation: 0 } };
   const settings = parseSettings(config);
   for (const gridded of [false, true]) {

@@ -19,8 +19,8 @@ export interface TreeBound {
  * pressure, so the source pressure and flow are bounded above. Static head between junctions would break the
  * elasticity argument, so the bound is given only where every node below the source is at one elevation.
  */
-export const BOUND_EXPONENT = 1 / HW_EXPONENT;
-/** The classic hand method scales the lower side's flow by √(p_high/p_low) (shared/TRADE.md, confirmed). */
+const BOUND_EXPONENT = 1 / HW_EXPONENT;
+/** The classic hand method scales the lower side's flow by √(p_high/p_low) (the K-factor balancing method of hand calculations, confirmed by a trade primer). */
 export const HAND_METHOD_EXPONENT = 0.5;
 
 export const treeBound = (model: HydraulicModel, skeleton?: Skeleton): TreeBound | null => kFactorWalk(model, BOUND_EXPONENT, skeleton);

@@ -45,8 +45,8 @@ export interface FlowingHead {
 }
 
 /** Id of the virtual supply node and riser pipe when the supply is below the piping. */
-export const SUPPLY_NODE_ID = 'SUPPLY';
-export const RISER_PIPE_ID = 'RISER';
+const SUPPLY_NODE_ID = 'SUPPLY';
+const RISER_PIPE_ID = 'RISER';
 
 export function buildModel(network: Network, flowing: FlowingHead[], settings: Settings): HydraulicModel {
   if (!network.sourceNodeId) throw new Error('the network has no source');

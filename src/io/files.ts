@@ -116,7 +116,7 @@ function isFolder(path: string): boolean {
 }
 
 /** Removes temporary files of ours older than an hour from `dir` (a killed run's); once per folder and process. */
-export function sweepStaleTemps(dir: string): void {
+function sweepStaleTemps(dir: string): void {
   if (outputFolders.has(dir)) return;
   outputFolders.add(dir);
   let names: string[];

@@ -22,7 +22,7 @@ export interface Annotations {
   legend: { block: string; layer: string; at: Point; primitives: Primitive[] };
 }
 
-export const LAYERS = {
+const LAYERS = {
   findings: { name: 'HC-FINDINGS', color: 1 },
   area: { name: 'HC-DESIGN-AREA', color: 6 },
   heads: { name: 'HC-HEAD-TAGS', color: 3 },
@@ -31,7 +31,7 @@ export const LAYERS = {
 } as const;
 
 /** AutoCAD colour index per severity: red, orange, cyan. */
-export const SEVERITY_COLOR = { error: 1, warning: 30, info: 4 } as const;
+const SEVERITY_COLOR = { error: 1, warning: 30, info: 4 } as const;
 
 export interface AnnotationInput {
   fileName: string;

@@ -11,5 +11,5 @@ export function formatGroups(pairs: readonly (string | number)[], eol = '\n'): s
 }
 
 /** Plain decimal notation with ten decimals at most (readers differ on exponents). */
-export const formatNumber = (v: number): string =>
+const formatNumber = (v: number): string =>
   Number.isInteger(v) ? String(v) : Math.abs(v) < 1e-10 ? '0' : v.toFixed(10).replace(/0+$/, '').replace(/\.$/, '');

@@ -8,6 +8,7 @@ import { converterFor, REPORT_UNITS } from '../quantities/convert.js';
 import { formatterFor } from '../quantities/format.js';
 import { CAUTION } from './caution.js';
 import { escapeHtml as esc } from './html-escape.js';
+import { REPORT_SCRIPT } from './report-script.generated.js';
 import { sha256Base64 } from './sha256.js';
 import { supplyGraph } from './supply-graph.js';
 import { pushAll } from '../arrays.js';
@@ -215,36 +216,6 @@ footer{font-size:.8rem;color:#666;margin-top:24px}
 @media (max-width:640px){.planbox{height:50vh}td.ref,th:last-child{display:none}}
 @media print{.tools{display:none}.planbox{height:auto;border:none}#plan{height:auto;max-height:60vh}details{display:block}details>*{display:block}
 section{break-inside:avoid-page}header{border-left-width:4px}a{color:inherit}}
-`;
-
-/**
- * Zoom and pan: during a gesture the drawn plan moves by a CSS transform (composited, nothing redrawn); when it
- * pauses, the transform becomes the viewBox. Finding rows and markers highlight each other. Inline: loads nothing.
- */
-export const REPORT_SCRIPT = `
-(function(){
-var svg=document.getElementById('plan');if(!svg)return;
-var box=svg.parentNode,W=+svg.dataset.w,H=+svg.dataset.h,vb,k=1,tx=0,ty=0,timer=0;
-function aspect(){var r=box.getBoundingClientRect();return r.height>0?r.width/r.height:1;}
-function fitTo(x,y,w,h){var a=aspect();if(w/h<a){x-=(h*a-w)/2;w=h*a;}else{y-=(w/a-h)/2;h=w/a;}vb=[x,y,w,h];commit();}
-function commit(){svg.setAttribute('viewBox',vb.join(' '));k=1;tx=0;ty=0;svg.style.transform='';}
-function settle(){var r=box.getBoundingClientRect(),s=r.width/vb[2];vb=[vb[0]-tx/(k*s),vb[1]-ty/(k*s),vb[2]/k,vb[3]/k];commit();}
-function move(){svg.style.transform='translate('+tx+'px,'+ty+'px) scale('+k+')';clearTimeout(timer);timer=setTimeout(settle,160);}
-box.addEventListener('wheel',function(e){e.preventDefault();var r=box.getBoundingClientRect(),cx=e.clientX-r.left,cy=e.clientY-r.top,f=e.deltaY<0?1.25:0.8;
-k*=f;tx=cx-(cx-tx)*f;ty=cy-(cy-ty)*f;move();},{passive:false});
-var drag=null;box.addEventListener('pointerdown',function(e){drag=[e.clientX-tx,e.clientY-ty];box.setPointerCapture(e.pointerId);});
-box.addEventListener('pointermove',function(e){if(!drag)return;tx=e.clientX-drag[0];ty=e.clientY-drag[1];move();});
-box.addEventListener('pointerup',function(){drag=null;});
-document.getElementById('fit').addEventListener('click',function(){fitTo(0,0,W,H);});
-fitTo(0,0,W,H);
-function highlight(i){document.querySelectorAll('.hl').forEach(function(x){x.classList.remove('hl');});
-var m=svg.querySelector('.marker[data-finding="'+i+'"]'),row=document.querySelector('tr[data-finding="'+i+'"]');
-if(m){m.classList.add('hl');var cx=+m.getAttribute('cx'),cy=+m.getAttribute('cy'),s=Math.max(W,H)/3;fitTo(cx-s/2,cy-s/2,s,s);}
-if(row)row.classList.add('hl');return m;}
-document.querySelectorAll('tr[data-finding]').forEach(function(row){row.addEventListener('click',function(){highlight(row.dataset.finding);box.scrollIntoView({block:'nearest'});});
-row.addEventListener('keydown',function(e){if(e.key==='Enter')highlight(row.dataset.finding);});});
-svg.querySelectorAll('.marker').forEach(function(m){m.addEventListener('click',function(e){e.stopPropagation();var row=document.querySelector('tr[data-finding="'+m.dataset.finding+'"]');highlight(m.dataset.finding);if(row)row.scrollIntoView({block:'center'});});});
-})();
 `;
 
 /** The CSP source of the report's one script, by its SHA-256 (no other inline script may run). */

@@ -3,7 +3,6 @@
 
 /** Pipe schedules whose inside diameters are tabled. */
 export type Schedule = '10' | '40';
-export const SCHEDULES: readonly Schedule[] = ['10', '40'];
 
 /** Nominal size keys in inches, as the report writes them. */
 export const NOMINAL_SIZES = ['1/2', '3/4', '1', '1-1/4', '1-1/2', '2', '2-1/2', '3', '3-1/2', '4', '5', '6', '8'] as const;

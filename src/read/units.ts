@@ -18,7 +18,3 @@ const INSUNITS: Record<number, LengthUnit> = { 1: 'in', 2: 'ft', 4: 'mm', 5: 'cm
 export function unitFromInsunits(code: unknown): LengthUnit | null {
   return typeof code === 'number' ? (INSUNITS[code] ?? null) : null;
 }
-
-export function isLengthUnit(value: unknown): value is LengthUnit {
-  return typeof value === 'string' && value in FEET_PER_UNIT;
-}

@@ -10,7 +10,7 @@ import { finding, type Rule } from './types.js';
  * K-factors of listed sprinklers, gpm/psi½: from the range of nominal K 1.4 (1.3 to 1.5) to that of nominal K 33.6
  * (31.8 to 34.8) (NFPA 13 (2019 edition), Table 7.2.2.1, from memory).
  */
-export const LISTED_K_RANGE = { min: 1.3, max: 34.8 } as const;
+const LISTED_K_RANGE = { min: 1.3, max: 34.8 } as const;
 
 export const headKFactor: Rule<'head-k-factor'> = {
   meta: {

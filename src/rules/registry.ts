@@ -56,7 +56,7 @@ export const RULES: readonly Rule[] = [
  * Findings one rule lists at most; past it the rest are counted in one closing finding (a drawing with thousands
  * of heads too close or out of range is reviewed by its first ones, not by a report of a million lines).
  */
-export const FINDINGS_PER_RULE = 200;
+const FINDINGS_PER_RULE = 200;
 
 /** The note that closes a rule's list past FINDINGS_PER_RULE (its severity the worst of what it counts). */
 const FINDINGS_NOT_LISTED = {

@@ -5,7 +5,7 @@ import { flowAtZeroPressure } from '../hydraulics/water-supply.js';
 import { finding, type Rule } from './types.js';
 
 /** Customary safety margin between supply and demand, psi (common practice: several psi, often 10). */
-export const SAFETY_MARGIN_PSI = 10;
+const SAFETY_MARGIN_PSI = 10;
 
 export const supplyShort: Rule<'supply-short'> = {
   meta: {

@@ -18,7 +18,7 @@ const TYPES: Record<string, string> = {
 };
 
 /** Scripts only from the page itself, plus the report's one inline script (shown in an iframe) by its hash. */
-export function contentSecurityPolicy(): string {
+function contentSecurityPolicy(): string {
   return [
     "default-src 'none'",
     `script-src 'self' '${REPORT_SCRIPT_HASH}'`,

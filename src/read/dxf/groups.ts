@@ -23,7 +23,7 @@ function lineEnd(bytes: Uint8Array, from: number): number {
  * The group code on the line bytes[start, end): an integer and nothing else, blanks around it allowed, or NaN
  * ("1e308" or "10.5" is damage, not code 1 or 10).
  */
-export function groupCode(bytes: Uint8Array, start: number, end: number): number {
+function groupCode(bytes: Uint8Array, start: number, end: number): number {
   let i = start;
   let e = end;
   while (i < e && isBlank(bytes[i]!)) i++;
@@ -44,7 +44,7 @@ export function groupCode(bytes: Uint8Array, start: number, end: number): number
 }
 
 /** A UTF-8 byte order mark, which some programs write before the first group. */
-export const bomLength = (bytes: Uint8Array): number => (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0);
+const bomLength = (bytes: Uint8Array): number => (bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0);
 
 /** The current group of a walk through the file; `next` moves it on. */
 export class GroupCursor {

@@ -13,7 +13,7 @@ import { POLYLINE } from './polyline.js';
 import { TEXT } from './text.js';
 import type { EntityKind } from './types.js';
 
-export const ENTITY_KINDS: ReadonlyMap<string, EntityKind> = new Map(
+const ENTITY_KINDS: ReadonlyMap<string, EntityKind> = new Map(
   ([LINE, LWPOLYLINE, POLYLINE, ARC, CIRCLE, POINT, TEXT, MTEXT, INSERT, ATTDEF] as EntityKind[]).map((k) => [k.type, k]),
 );
 
