@@ -5,7 +5,7 @@ import { spawnSync } from 'node:child_process';
 import { expect, it } from 'vitest';
 
 it('biome ci: lint and format clean', () => {
-  const r = spawnSync(process.execPath, ['node_modules/@biomejs/biome/bin/biome', 'ci', '--colors=off'], {
+  const r = spawnSync(process.execPath, ['node_modules/@biomejs/biome/bin/biome', 'ci', '--colors=off', '--error-on-warnings'], {
     encoding: 'utf8',
     timeout: 120_000,
   });

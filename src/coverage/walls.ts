@@ -3,17 +3,9 @@
 
 import RBush from 'rbush';
 import { cross, distanceToSegment, sub, type Point } from '../geometry/point.js';
+import { segmentBox, type SegmentBox } from '../geometry/boxes.js';
 import { containsPoint, signedArea } from '../geometry/polygon.js';
 import type { Outline, Stroke } from '../read/types.js';
-
-interface WallBox {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-  a: Point;
-  b: Point;
-}
 
 export interface Walls {
   /** Distance from `p` to the first wall along unit direction `d`, or null within `maxRange`. */
@@ -26,9 +18,8 @@ export interface Walls {
 }
 
 export function indexWalls(rooms: Outline[], strokes: Stroke[]): Walls {
-  const boxes: WallBox[] = [];
-  const add = (a: Point, b: Point) =>
-    boxes.push({ minX: Math.min(a.x, b.x), minY: Math.min(a.y, b.y), maxX: Math.max(a.x, b.x), maxY: Math.max(a.y, b.y), a, b });
+  const boxes: SegmentBox[] = [];
+  const add = (a: Point, b: Point) => boxes.push(segmentBox(a, b));
   for (const r of rooms)
     r.points.forEach((p, i) => {
       add(p, r.points[(i + 1) % r.points.length]!);
@@ -37,7 +28,7 @@ export function indexWalls(rooms: Outline[], strokes: Stroke[]): Walls {
     const pts = [s.a, ...s.via, s.b];
     for (let k = 1; k < pts.length; k++) add(pts[k - 1]!, pts[k]!);
   }
-  const tree = new RBush<WallBox>();
+  const tree = new RBush<SegmentBox>();
   tree.load(boxes);
   const roomsBySize = rooms.map((r) => ({ r, area: Math.abs(signedArea(r.points)) })).sort((x, y) => x.area - y.area);
   return {

@@ -2,18 +2,11 @@
 // other strokes of the same drawn entity that have none of their own. Unlabelled strokes get no size here.
 
 import RBush from 'rbush';
+import type { IndexedBox } from '../geometry/boxes.js';
 import { distanceToSegment, type Point } from '../geometry/point.js';
 import type { Stroke, TextItem } from '../read/types.js';
 import { parseSizeLabel, type NominalSize } from '../quantities/pipe-sizes.js';
 import { maxOf, minOf } from '../arrays.js';
-
-interface Box {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-  i: number;
-}
 
 function distanceToStroke(p: Point, s: Stroke): number {
   const pts = [s.a, ...s.via, s.b];
@@ -31,7 +24,7 @@ export function sizesFromLabels(
   labels: TextItem[],
   reach: number,
 ): { sizes: (NominalSize | null)[]; unread: Map<number, string[]> } {
-  const index = new RBush<Box>();
+  const index = new RBush<IndexedBox>();
   index.load(
     strokes.map((s, i) => {
       const xs = [s.a.x, s.b.x, ...s.via.map((v) => v.x)];

@@ -5,6 +5,7 @@
 // pieces are dropped.
 
 import RBush from 'rbush';
+import { pointBox, type IndexedBox } from '../geometry/boxes.js';
 import { closestOnSegment, distance, type Point } from '../geometry/point.js';
 import type { Stroke } from '../read/types.js';
 
@@ -22,17 +23,9 @@ export interface SnappedGraph {
   attached: number[];
 }
 
-interface Box {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-  i: number;
-}
-
 const strokePoints = (s: Stroke): Point[] => [s.a, ...s.via, s.b];
 
-function boxOf(points: Point[], pad: number, i: number): Box {
+function boxOf(points: Point[], pad: number, i: number): IndexedBox {
   let minX = Infinity,
     minY = Infinity,
     maxX = -Infinity,
@@ -52,7 +45,7 @@ function boxOf(points: Point[], pad: number, i: number): Box {
  * @param snap endpoint snap tolerance, feet
  */
 export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach: number }[], snap: number): SnappedGraph {
-  const index = new RBush<Box>();
+  const index = new RBush<IndexedBox>();
   const twin = twinStrokes(strokes, snap);
   index.load(strokes.flatMap((s, i) => (twin[i] ? [] : [boxOf(strokePoints(s), 0, i)])));
   const cuts: number[][] = strokes.map(() => []);
@@ -105,7 +98,7 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
 
   // Merge endpoints into nodes.
   const nodes: Point[] = [];
-  const nodeIndex = new RBush<Box>();
+  const nodeIndex = new RBush<IndexedBox>();
   const nodeAt = (p: Point): number => {
     let best = -1;
     let bestD = Infinity;
@@ -118,7 +111,7 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
     }
     if (best >= 0) return best;
     nodes.push(p);
-    nodeIndex.insert({ minX: p.x, minY: p.y, maxX: p.x, maxY: p.y, i: nodes.length - 1 });
+    nodeIndex.insert(pointBox(p, nodes.length - 1));
     return nodes.length - 1;
   };
   const edges: Edge[] = [];
@@ -134,7 +127,7 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
 
 /** For each stroke, whether an earlier one follows the same points (either way round) within `tol`. */
 function twinStrokes(strokes: Stroke[], tol: number): boolean[] {
-  const byStart = new RBush<Box>();
+  const byStart = new RBush<IndexedBox>();
   return strokes.map((s, i) => {
     const pts = strokePoints(s);
     const near = (p: Point) => byStart.search({ minX: p.x - tol, minY: p.y - tol, maxX: p.x + tol, maxY: p.y + tol });
@@ -144,7 +137,7 @@ function twinStrokes(strokes: Stroke[], tol: number): boolean[] {
       const along = distance(other[0]!, pts[0]!) <= tol ? other : [...other].reverse();
       return along.every((p, k) => distance(p, pts[k]!) <= tol);
     });
-    if (!same) byStart.insert({ minX: s.a.x, minY: s.a.y, maxX: s.a.x, maxY: s.a.y, i });
+    if (!same) byStart.insert(pointBox(s.a, i));
     return same;
   });
 }

@@ -1,21 +1,16 @@
 // The report JSON of the contract: every top-level key always present, values converted to the chosen
 // unit system, numbers rounded to a stated precision so reports are stable byte for byte.
 
-import type { Settings } from '../config/settings.js';
-import type { DesignAreas } from '../design-area/evaluate.js';
 import { LAYER_ROLES, type LayerRole } from '../config/settings.js';
 import type { Point } from '../geometry/point.js';
-import type { Network, PipeRole } from '../network/types.js';
-import { converterFor, REPORT_UNITS, type ReportUnits, type UnitSystem } from '../quantities/convert.js';
-import type { Plan } from '../read/plan.js';
-import type { DrawingFacts } from '../read/types.js';
-import type { Coverage } from '../coverage/coverage.js';
-import type { Limits } from '../basis/limits.js';
-import type { Finding, Quantity, Severity } from '../rules/types.js';
-import { TOOL } from '../version.js';
-import { CAUTION } from './caution.js';
+import type { PipeRole } from '../network/types.js';
+import { converterFor, REPORT_UNITS, type ReportUnits } from '../quantities/convert.js';
 import { formatterFor } from '../quantities/format.js';
 import { messageOf } from '../rules/messages.js';
+import type { Quantity, Severity } from '../rules/types.js';
+import { TOOL } from '../version.js';
+import { CAUTION } from './caution.js';
+import type { Reviewed } from './reviewed.js';
 
 export interface ReportFinding {
   rule: string;
@@ -121,19 +116,8 @@ export interface ReportDesignArea {
   };
 }
 
-export interface ReportInput {
-  fileName: string;
-  sha256: string;
-  settings: Settings;
-  reportUnits: UnitSystem;
-  drawing: DrawingFacts;
-  plan: Plan;
-  network: Network;
-  coverage: Map<string, Coverage>;
-  limits: Limits;
-  design: DesignAreas;
-  findings: Finding[];
-}
+/** What the report is made of: the reviewed drawing (before its report) and the hash of its bytes. */
+export type ReportInput = Omit<Reviewed, 'report' | 'bytes'> & { sha256: string };
 
 /** Rounds to `digits` decimals, keeping -0 out of the output. */
 export const round = (v: number, digits = 4): number => {

@@ -4,6 +4,7 @@
 
 import RBush from 'rbush';
 import { distanceToSegment, type Point } from '../geometry/point.js';
+import { segmentBox, type SegmentBox } from '../geometry/boxes.js';
 import { InputError } from '../input-error.js';
 import type { AttDef } from './entities/attdef.js';
 import type { Circle } from './entities/circle.js';
@@ -77,7 +78,7 @@ export function gatherEvidence(source: DrawingSource): Evidence {
   };
   const blockFacts = new Map<string, BlockFacts>();
   const circleFacts = new Map<string, CircleFacts>();
-  const linework = new Map<string, RBush<Seg>>();
+  const linework = new Map<string, RBush<SegmentBox>>();
   const all = { refs: () => true, strokes: () => true, outlines: () => true, texts: () => false, points: () => true, symbols: () => false };
 
   const evidence: Evidence = {
@@ -168,7 +169,7 @@ export function gatherEvidence(source: DrawingSource): Evidence {
     }
   }
 
-  function lineworkOf(layers: readonly string[]): RBush<Seg> {
+  function lineworkOf(layers: readonly string[]): RBush<SegmentBox> {
     const key = [...layers].sort().join('\u0000');
     let index = linework.get(key);
     if (index) return index;
@@ -180,12 +181,12 @@ export function gatherEvidence(source: DrawingSource): Evidence {
       if (e && e.type !== 'INSERT') entities.push(e);
     }
     const flat = flatten({ entities, block: () => null }, 1, { blockDepth: 1, blockReferences: 0 }, { ...all, refs: () => false });
-    const segs: Seg[] = [];
+    const segs: SegmentBox[] = [];
     for (const s of flat.strokes) {
       const pts = [s.a, ...s.via, s.b];
-      for (let k = 1; k < pts.length; k++) segs.push(segment(pts[k - 1]!, pts[k]!));
+      for (let k = 1; k < pts.length; k++) segs.push(segmentBox(pts[k - 1]!, pts[k]!));
     }
-    index = new RBush<Seg>();
+    index = new RBush<SegmentBox>();
     index.load(segs);
     linework.set(key, index);
     return index;
@@ -193,21 +194,3 @@ export function gatherEvidence(source: DrawingSource): Evidence {
 
   return evidence;
 }
-
-interface Seg {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-  a: Point;
-  b: Point;
-}
-
-const segment = (a: Point, b: Point): Seg => ({
-  minX: Math.min(a.x, b.x),
-  minY: Math.min(a.y, b.y),
-  maxX: Math.max(a.x, b.x),
-  maxY: Math.max(a.y, b.y),
-  a,
-  b,
-});

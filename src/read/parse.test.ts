@@ -17,6 +17,8 @@ const dxf = (...pairs: (string | number)[]) => {
   for (let i = 0; i < pairs.length; i += 2) s += `${pairs[i]}\n${pairs[i + 1]}\n`;
   return s;
 };
+/** A drawing's groups written as "code value code value ..." (values without spaces). */
+const groups = (text: string) => dxf(...text.trim().split(/\s+/));
 
 /** The reader's decoding, every layer wanted. */
 const utf8 = textDecoder('utf-8');
@@ -26,51 +28,8 @@ const parseAll = (text: string) =>
 
 describe('damaged structure', () => {
   it('a POLYLINE followed by a LINE without SEQEND is read, not spun on', () => {
-    const text = dxf(
-      0,
-      'SECTION',
-      2,
-      'ENTITIES',
-      0,
-      'POLYLINE',
-      8,
-      'P',
-      66,
-      1,
-      70,
-      0,
-      0,
-      'VERTEX',
-      8,
-      'P',
-      10,
-      0,
-      20,
-      0,
-      0,
-      'VERTEX',
-      8,
-      'P',
-      10,
-      5,
-      20,
-      0,
-      0,
-      'LINE',
-      8,
-      'P',
-      10,
-      0,
-      20,
-      1,
-      11,
-      5,
-      21,
-      1,
-      0,
-      'ENDSEC',
-      0,
-      'EOF',
+    const text = groups(
+      '0 SECTION 2 ENTITIES 0 POLYLINE 8 P 66 1 70 0 0 VERTEX 8 P 10 0 20 0 0 VERTEX 8 P 10 5 20 0 0 LINE 8 P 10 0 20 1 11 5 21 1 0 ENDSEC 0 EOF',
     );
     const parsed = parseAll(text);
     expect(parsed.entities.map((e) => e.type)).toEqual(['POLYLINE', 'LINE']);
@@ -78,51 +37,8 @@ describe('damaged structure', () => {
   });
 
   it('an unknown code among LWPOLYLINE vertices is passed over, not read again forever', () => {
-    const text = dxf(
-      0,
-      'SECTION',
-      2,
-      'ENTITIES',
-      0,
-      'LWPOLYLINE',
-      5,
-      '4A',
-      8,
-      'A-WALL',
-      90,
-      3,
-      70,
-      1,
-      10,
-      0,
-      20,
-      0,
-      10,
-      5,
-      -5,
-      '0.0',
-      20,
-      0,
-      10,
-      5,
-      20,
-      4,
-      0,
-      'LINE',
-      8,
-      'P',
-      10,
-      0,
-      20,
-      1,
-      11,
-      5,
-      21,
-      1,
-      0,
-      'ENDSEC',
-      0,
-      'EOF',
+    const text = groups(
+      '0 SECTION 2 ENTITIES 0 LWPOLYLINE 5 4A 8 A-WALL 90 3 70 1 10 0 20 0 10 5 -5 0.0 20 0 10 5 20 4 0 LINE 8 P 10 0 20 1 11 5 21 1 0 ENDSEC 0 EOF',
     );
     const parsed = parseAll(text);
     expect(parsed.entities.map((e) => e.type)).toEqual(['LWPOLYLINE', 'LINE']);
@@ -151,32 +67,7 @@ describe('damaged structure', () => {
   });
 
   it('types no stage reads are not decoded but keep their layer for the layer counts', () => {
-    const text = dxf(
-      0,
-      'SECTION',
-      2,
-      'ENTITIES',
-      0,
-      'SPLINE',
-      8,
-      'A-DETAIL',
-      10,
-      0,
-      20,
-      0,
-      10,
-      1,
-      -7,
-      'x',
-      0,
-      'DIMENSION',
-      8,
-      'A-DIMS',
-      0,
-      'ENDSEC',
-      0,
-      'EOF',
-    );
+    const text = groups('0 SECTION 2 ENTITIES 0 SPLINE 8 A-DETAIL 10 0 20 0 10 1 -7 x 0 DIMENSION 8 A-DIMS 0 ENDSEC 0 EOF');
     expect(parseAll(text).entities).toEqual([]);
     const drawing = readDrawing(new TextEncoder().encode(text), { units: 'ft' });
     expect(drawing.layers.map((l) => [l.name, l.counts])).toEqual([
@@ -186,51 +77,8 @@ describe('damaged structure', () => {
   });
 
   it('a LAYER table without ENDTAB still gives its layer names and the entities', () => {
-    const text = dxf(
-      0,
-      'SECTION',
-      2,
-      'TABLES',
-      0,
-      'TABLE',
-      2,
-      'LAYER',
-      70,
-      2,
-      0,
-      'LAYER',
-      2,
-      'FP-PIPE',
-      70,
-      0,
-      0,
-      'TABLE',
-      2,
-      'LTYPE',
-      0,
-      'ENDTAB',
-      0,
-      'ENDSEC',
-      0,
-      'SECTION',
-      2,
-      'ENTITIES',
-      0,
-      'LINE',
-      8,
-      'FP-PIPE',
-      10,
-      0,
-      20,
-      0,
-      11,
-      1,
-      21,
-      0,
-      0,
-      'ENDSEC',
-      0,
-      'EOF',
+    const text = groups(
+      '0 SECTION 2 TABLES 0 TABLE 2 LAYER 70 2 0 LAYER 2 FP-PIPE 70 0 0 TABLE 2 LTYPE 0 ENDTAB 0 ENDSEC 0 SECTION 2 ENTITIES 0 LINE 8 FP-PIPE 10 0 20 0 11 1 21 0 0 ENDSEC 0 EOF',
     );
     expect(scan(text).layerNames).toEqual(['FP-PIPE']);
     expect(parseAll(text).entities).toHaveLength(1);
@@ -261,33 +109,8 @@ describe('damaged structure', () => {
 
   it("a layer name in a double-byte code page is read whole (ANSI_932: 配管 is 94 7A 8A C7 in Shift_JIS, by Python's codec)", () => {
     const head = new TextEncoder().encode(
-      dxf(
-        0,
-        'SECTION',
-        2,
-        'HEADER',
-        9,
-        '$ACADVER',
-        1,
-        'AC1015',
-        9,
-        '$DWGCODEPAGE',
-        3,
-        'ANSI_932',
-        9,
-        '$INSUNITS',
-        70,
-        2,
-        0,
-        'ENDSEC',
-        0,
-        'SECTION',
-        2,
-        'ENTITIES',
-        0,
-        'LINE',
-        8,
-        'FP-',
+      groups(
+        '0 SECTION 2 HEADER 9 $ACADVER 1 AC1015 9 $DWGCODEPAGE 3 ANSI_932 9 $INSUNITS 70 2 0 ENDSEC 0 SECTION 2 ENTITIES 0 LINE 8 FP-',
       ),
     );
     const tail = new TextEncoder().encode(`\n 10\n0\n 20\n0\n 11\n10\n 21\n0\n  0\nENDSEC\n  0\nEOF\n`);
@@ -363,30 +186,7 @@ describe('damaged structure', () => {
   });
 
   it('a section not closed by ENDSEC is a one-line error naming it', () => {
-    const text = dxf(
-      0,
-      'SECTION',
-      2,
-      'BLOCKS',
-      0,
-      'BLOCK',
-      2,
-      'B',
-      0,
-      'ENDBLK',
-      0,
-      'SECTION',
-      2,
-      'ENTITIES',
-      0,
-      'LINE',
-      8,
-      'P',
-      0,
-      'ENDSEC',
-      0,
-      'EOF',
-    );
+    const text = groups('0 SECTION 2 BLOCKS 0 BLOCK 2 B 0 ENDBLK 0 SECTION 2 ENTITIES 0 LINE 8 P 0 ENDSEC 0 EOF');
     expect(() => scan(text)).toThrow(/the BLOCKS section is not closed by ENDSEC/);
   });
 

@@ -1,11 +1,12 @@
 // design-area-length: at least 1.2·√A along the branch lines (1.2·√1500 = 46.48 ft; confirmed in the NFPA 13
 // handbook); a drawn area's length is its extent along the lines.
 
+import { areaConfig, areaLayout, nearRiser } from '../../test/support/design-area-layout.js';
 import { ruleTester } from '../../test/support/rule-tester.js';
 import { designAreaLength } from './design-area-length.js';
 
-const layout = { s: 12, l: 10, heads: 8, lines: 6 };
-const config = { design: { density: 0.2, area: 1500 } };
+const layout = areaLayout;
+const config = areaConfig;
 
 ruleTester(designAreaLength, {
   valid: [
@@ -14,12 +15,7 @@ ruleTester(designAreaLength, {
       config,
       layout: {
         ...layout,
-        drawnArea: [
-          { x: 0, y: 20 },
-          { x: 48, y: 20 },
-          { x: 48, y: 50 },
-          { x: 0, y: 50 },
-        ],
+        drawnArea: nearRiser,
       },
     },
   ],

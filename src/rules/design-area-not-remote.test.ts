@@ -2,18 +2,16 @@
 // (2019 edition), 28.2.4.1); differences under 0.5 psi at the source count as equal (common practice, no source).
 
 import { expect } from 'vitest';
-import { checkLayout } from '../../test/support/check.js';
+import { areaConfig, areaLayout, nearRiser, searchedOutline } from '../../test/support/design-area-layout.js';
 import { ruleTester } from '../../test/support/rule-tester.js';
 import { designAreaNotRemote } from './design-area-not-remote.js';
 
-// 8 heads a line from x = 6 to 90 ft, lines at y = 5..55, 12 × 10 ft, OH2 0.20 gpm/ft² over 1500 ft².
-const layout = { s: 12, l: 10, heads: 8, lines: 6 };
-const config = { design: { density: 0.2, area: 1500 } };
-const searched = checkLayout(layout, config).design.areas.find((a) => a.rank === 'most-demanding')!;
+const layout = areaLayout;
+const config = areaConfig;
 
 ruleTester(designAreaNotRemote, {
   valid: [
-    { name: 'the drawn area is the searched one', layout: { ...layout, drawnArea: searched.outline }, config },
+    { name: 'the drawn area is the searched one', layout: { ...layout, drawnArea: searchedOutline() }, config },
     { name: 'no drawn area', layout, config },
   ],
   invalid: [
@@ -23,12 +21,7 @@ ruleTester(designAreaNotRemote, {
       config,
       layout: {
         ...layout,
-        drawnArea: [
-          { x: 0, y: 20 },
-          { x: 48, y: 20 },
-          { x: 48, y: 50 },
-          { x: 0, y: 50 },
-        ],
+        drawnArea: nearRiser,
       },
       count: 1,
       severity: 'error',

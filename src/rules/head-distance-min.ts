@@ -3,18 +3,11 @@
 // cluster, naming every head, with the least distance in it (27 heads packed together are one cause, not 351).
 
 import RBush from 'rbush';
+import { pointBox, type IndexedBox } from '../geometry/boxes.js';
 import { distance } from '../geometry/point.js';
 import type { Head } from '../read/plan.js';
 import { isStandardSpray } from './standard-heads.js';
 import { finding, type Rule } from './types.js';
-
-interface Box {
-  minX: number;
-  minY: number;
-  maxX: number;
-  maxY: number;
-  i: number;
-}
 
 export const headDistanceMin: Rule<'head-distance-min'> = {
   meta: {
@@ -44,8 +37,8 @@ export const headDistanceMin: Rule<'head-distance-min'> = {
 
 /** Groups of heads joined by pairs closer than r (each group in drawing order), with the least distance of each. */
 function tooClose(heads: Head[], r: number): { members: number[]; least: number }[] {
-  const tree = new RBush<Box>();
-  tree.load(heads.map((h, i) => ({ minX: h.position.x, minY: h.position.y, maxX: h.position.x, maxY: h.position.y, i })));
+  const tree = new RBush<IndexedBox>();
+  tree.load(heads.map((h, i) => pointBox(h.position, i)));
   const parent = heads.map((_, i) => i);
   const root = (i: number) => {
     while (parent[i] !== i) i = parent[i] = parent[parent[i]!]!;
