@@ -65,8 +65,8 @@ if (mode === 'parse-only') {
   out['stages'] = stages;
   out['heads'] = r.plan.heads.length;
   out['pipes'] = r.network.pipes.length;
-  out['topology'] = r.network.topology;
-  out['search'] = r.design.search;
+  out['topology'] = r.network.systems.map((s) => s.topology).join(', ');
+  out['search'] = r.report.design.search;
   out['reportBytes'] = statSync(join(dir, `${name}.json`)).size;
   out['demand'] = r.design.areas.find((a) => a.rank === 'most-demanding')?.hydraulics?.sourcePressure ?? null;
 }

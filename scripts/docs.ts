@@ -59,6 +59,8 @@ type Node = {
   default?: unknown;
   pipe?: Node[];
   entries?: Record<string, Node>;
+  /** A record's value schema. */
+  value?: Node;
   options?: unknown[];
   description?: string;
   metadata?: { quantity?: QuantityMeta };
@@ -82,6 +84,21 @@ function rows(node: Node, prefix: string, out: Row[]): Row[] {
     if (base.type === 'strict_object') {
       out.push({ key: path, type: 'object', fallback: '', example: '', unit: '', range: '', meaning });
       rows(base, path, out);
+      continue;
+    }
+    if (base.type === 'record') {
+      // A map of names the user chooses: its values' keys under `<name>`.
+      out.push({
+        key: path,
+        type: 'object of name patterns',
+        fallback: '',
+        example: example === undefined ? '' : JSON.stringify(example),
+        unit: '',
+        range: '',
+        meaning,
+      });
+      const value = base.value!.pipe ? base.value!.pipe[0]! : base.value!;
+      rows(value, `${path}.<pattern>`, out);
       continue;
     }
     const unit = meta && meta.kind !== 'number' ? `${QUANTITIES[meta.kind].us} / ${QUANTITIES[meta.kind].si}` : '';

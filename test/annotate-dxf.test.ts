@@ -76,7 +76,7 @@ describe.each(cases)('annotated $name', (c) => {
     const added = [...b.strokes, ...b.texts, ...b.outlines, ...b.refs].filter((x) => x.layer.startsWith('HC-'));
     expect(added.length).toBeGreaterThan(result.findings.length);
     expect(new Set(b.layers.map((l) => l.name))).toEqual(
-      new Set([...a.layers.map((l) => l.name), 'HC-FINDINGS', 'HC-DESIGN-AREA', 'HC-HEAD-TAGS', 'HC-PIPE-TAGS', 'HC-LEGEND']),
+      new Set([...a.layers.map((l) => l.name), 'HC-FINDINGS', 'HC-DESIGN-AREA', 'HC-HEAD-TAGS', 'HC-PIPE-TAGS', 'HC-ZONES', 'HC-LEGEND']),
     );
   });
 

@@ -20,6 +20,7 @@ const LEVEL: Record<string, number> = {
   basis: 2,
   read: 3,
   network: 4,
+  zones: 4,
   coverage: 5,
   hydraulics: 5,
   'design-area': 6,

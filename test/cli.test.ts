@@ -77,7 +77,7 @@ describe('headcheck check', () => {
     expect(existsSync(json)).toBe(false);
   });
 
-  it('exit 2 for a drawing without heads and for one without a source', async () => {
+  it('exit 2 for a drawing without heads; one without a source is checked for its heads (exit 2 with --require-hydraulics)', async () => {
     const noHeads = join(dir, 'noheads.dxf');
     writeFileSync(noHeads, layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }).replace(/FP-HEAD/g, 'A-FURN'));
     const cfg = join(dir, 'heads.json');
@@ -86,8 +86,13 @@ describe('headcheck check', () => {
     const noSource = join(dir, 'nosource.dxf');
     writeFileSync(noSource, layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }).replace(/FP-SOURCE/g, 'A-FURN'));
     const r = await run('check', noSource, '--config', cfg);
-    expect(r.code).toBe(2);
-    expect(r.err).toMatch(/no water source found/);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/PASS/);
+    const strict = await run('check', noSource, '--config', cfg, '--require-hydraulics');
+    expect(strict.code).toBe(2);
+    expect(strict.err).toMatch(
+      /^headcheck: \S*nosource\.dxf: no hydraulic calculation: no water source is drawn .*\(--require-hydraulics\)$/,
+    );
   });
 
   it('exit 2 for a bad config, naming the file and the key', async () => {

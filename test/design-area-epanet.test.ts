@@ -23,9 +23,9 @@ describe('demo design areas against EPANET', () => {
       const h = area.hydraulics!;
       const flowing = area.headIds.map((id) => ({
         head: byId.get(id)!,
-        required: Math.max(7, ((r.design.basis.density * r.coverage.get(id)!.area!) / byId.get(id)!.kFactor) ** 2),
+        required: Math.max(7, ((area.basis.density * r.coverage.get(id)!.area!) / byId.get(id)!.kFactor) ** 2),
       }));
-      const model = buildModel(r.network, flowing, settings);
+      const model = buildModel(r.network, r.network.systems[0]!.sourceNodeId, flowing, settings);
       const e = await solveWithEpanet(model, h.sourcePressure);
       expect(Math.abs(e.sourceFlow - h.sourceFlow) / h.sourceFlow).toBeLessThan(0.01);
       const source = model.nodes[model.source]!.id;

@@ -55,8 +55,8 @@ describe.each(['R12', 'R2000', 'R2018'])('ezdxf-written %s drawing', (version) =
   });
 
   it('rebuilds one network from the source: feed main, cross main, three branch lines of four heads', () => {
-    expect(network.sourceNodeId).not.toBeNull();
-    expect(network.topology).toBe('tree');
+    expect(network.systems).toHaveLength(1);
+    expect(network.systems[0]!.topology).toBe('tree');
     expect(network.branchLines.map((b) => b.headIds.length)).toEqual([4, 4, 4]);
     const roles = network.pipes.map((p) => p.role);
     expect(roles.filter((r) => r === 'feed-main')).toHaveLength(1);

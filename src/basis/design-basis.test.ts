@@ -13,24 +13,30 @@ describe('density/area curves', () => {
     expect(curveDensity('OH2', 1000)).toBeNull();
   });
   it('without density and area, the start point of the curve (LH 0.10/1500, EH1 0.30/2500; confirmed)', () => {
-    expect(designBasis(parseSettings({ design: { hazard: 'LH' } }))).toMatchObject({ density: 0.1, area: 1500, hoseAllowance: 100 });
-    expect(designBasis(parseSettings({ design: { hazard: 'EH1' } }))).toMatchObject({ density: 0.3, area: 2500, hoseAllowance: 500 });
+    expect(designBasis(parseSettings({ design: { hazard: 'LH' } }).design)).toMatchObject({ density: 0.1, area: 1500, hoseAllowance: 100 });
+    expect(designBasis(parseSettings({ design: { hazard: 'EH1' } }).design)).toMatchObject({
+      density: 0.3,
+      area: 2500,
+      hoseAllowance: 500,
+    });
   });
   it('an area alone takes its density from the curve', () => {
-    expect(designBasis(parseSettings({ design: { hazard: 'OH2', area: 3000 } })).density).toBeCloseTo(0.17, 9);
+    expect(designBasis(parseSettings({ design: { hazard: 'OH2', area: 3000 } }).design).density).toBeCloseTo(0.17, 9);
   });
   it('dry and preaction systems add 30% (1500 → 1950 ft², confirmed by a trade article)', () => {
-    expect(designBasis(parseSettings({ design: { hazard: 'OH1', systemType: 'dry' } })).area).toBeCloseTo(1950, 9);
-    expect(designBasis(parseSettings({ design: { hazard: 'OH1', systemType: 'preaction' } })).area).toBeCloseTo(1950, 9);
+    expect(designBasis(parseSettings({ design: { hazard: 'OH1', systemType: 'dry' } }).design).area).toBeCloseTo(1950, 9);
+    expect(designBasis(parseSettings({ design: { hazard: 'OH1', systemType: 'preaction' } }).design).area).toBeCloseTo(1950, 9);
   });
   it('quick-response reduction: 40% at 10 ft, 25% at 20 ft (from memory), never below 768 ft²', () => {
     expect(quickResponseReduction(8)).toBe(40);
     expect(quickResponseReduction(20)).toBe(25);
     expect(quickResponseReduction(15)).toBeCloseTo(32.5, 9);
-    const b = designBasis(parseSettings({ design: { hazard: 'OH2', quickResponse: true, ceilingHeight: 10 } }));
+    const b = designBasis(parseSettings({ design: { hazard: 'OH2', quickResponse: true, ceilingHeight: 10 } }).design);
     expect(b.area).toBeCloseTo(900, 9);
-    const lh = designBasis(parseSettings({ design: { hazard: 'LH', area: 1200, density: 0.1, quickResponse: true, ceilingHeight: 9 } }));
+    const lh = designBasis(
+      parseSettings({ design: { hazard: 'LH', area: 1200, density: 0.1, quickResponse: true, ceilingHeight: 9 } }).design,
+    );
     expect(lh.area).toBe(768);
-    expect(designBasis(parseSettings({ design: { hazard: 'OH2', quickResponse: true } })).area).toBe(1500);
+    expect(designBasis(parseSettings({ design: { hazard: 'OH2', quickResponse: true } }).design).area).toBe(1500);
   });
 });

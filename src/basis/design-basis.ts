@@ -1,7 +1,7 @@
 // The design basis of a hazard: density and area from the config or the density/area curve, area
 // adjustments (dry and preaction systems, quick-response heads, sloped ceilings), hose allowance and duration.
 
-import type { Hazard, Settings } from '../config/settings.js';
+import type { DesignSettings, Hazard } from '../config/settings.js';
 
 interface Curve {
   start: [number, number];
@@ -61,8 +61,8 @@ export function quickResponseReduction(ceilingHeightFt: number): number {
   return ceilingHeightFt <= 10 ? 40 : 40 - 1.5 * (ceilingHeightFt - 10);
 }
 
-export function designBasis(settings: Settings): DesignBasis {
-  const d = settings.design;
+/** The basis of a design: config `design`, or a zone's hazard, density and area over it. */
+export function designBasis(d: DesignSettings): DesignBasis {
   const curve = CURVES[d.hazard];
   let baseArea = d.area ?? curve.start[0];
   let density = d.density ?? curveDensity(d.hazard, baseArea) ?? curve.start[1];

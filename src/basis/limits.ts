@@ -60,11 +60,13 @@ export function hazardGroup(h: Hazard): HazardGroup {
   return h === 'LH' ? 'LH' : h === 'OH1' || h === 'OH2' ? 'OH' : 'EH';
 }
 
-/** The limits in force for the configured hazard, with config overrides applied. */
-export function resolveLimits(settings: Settings): Limits {
-  const group = hazardGroup(settings.design.hazard);
+/**
+ * The limits in force for a hazard (and its density, where the table depends on it), with the config's `limits`
+ * overrides applied: they stand for the adopted code and hold for every hazard.
+ */
+export function resolveLimits(hazard: Hazard, density: number | undefined, overrides: Settings['limits']): Limits {
+  const group = hazardGroup(hazard);
   const row = TABLE[group];
-  const density = settings.design.density;
   const ehLowDensity = group === 'EH' && density !== undefined && density < 0.25;
   const limits: Limits = {
     edition: EDITION,
@@ -83,11 +85,11 @@ export function resolveLimits(settings: Settings): Limits {
     },
   };
   for (const k of LIMIT_KEYS) {
-    const value = settings.limits[k];
+    const value = overrides[k];
     if (value === undefined) continue;
     limits[k] = value;
     limits.sources[k] = `config override of ${k} (the adopted code)`;
-    if (k === 'maxSpacing' && settings.limits.maxWallDistance === undefined) limits.maxWallDistance = value / 2;
+    if (k === 'maxSpacing' && overrides.maxWallDistance === undefined) limits.maxWallDistance = value / 2;
   }
   return limits;
 }

@@ -25,6 +25,7 @@ export interface BatchOptions {
   config?: string;
   /** The drawings' length unit, over their configs' and headers'. */
   drawingUnits?: LengthUnit;
+  requireHydraulics?: boolean;
   units: UnitSystem;
   outputs: Record<FormatName, boolean>;
   workers: number;
@@ -83,6 +84,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
         config: config ? sha(readFileSync(config)) : null,
         units: o.units,
         drawingUnits: o.drawingUnits ?? null,
+        requireHydraulics: o.requireHydraulics === true,
         outputs: o.outputs,
       }),
     );
@@ -174,6 +176,7 @@ async function checkInWorker(pool: Piscina, o: BatchOptions, item: BatchItem, co
     name: item.name,
     config: config ?? null,
     drawingUnits: o.drawingUnits ?? null,
+    requireHydraulics: o.requireHydraulics === true,
     outDir: o.out,
     outputs: o.outputs,
     units: o.units,

@@ -16,6 +16,8 @@ export interface BatchTask {
   name: string;
   config: string | null;
   drawingUnits: LengthUnit | null;
+  /** Whether a drawing without hydraulics is an error row rather than a warning. */
+  requireHydraulics: boolean;
   outDir: string;
   outputs: Record<FormatName, boolean>;
   units: UnitSystem;
@@ -70,6 +72,7 @@ export default async function checkOne(task: BatchTask): Promise<BatchRow> {
       sha256: sha256Hex(bytes),
       settings,
       reportUnits: task.units,
+      requireHydraulics: task.requireHydraulics,
       ...(onStage ? { onStage } : {}),
     };
     const result = runCheck(input);

@@ -12,7 +12,9 @@ import { planFromDrawing, type Plan } from '../read/plan.js';
 import { readDrawing } from '../read/read-drawing.js';
 import type { Drawing, DrawingFacts } from '../read/types.js';
 import { computeCoverage } from '../coverage/coverage.js';
-import { resolveLimits } from '../basis/limits.js';
+import { zoneHeads } from '../zones/zones.js';
+import { formatterFor } from '../quantities/format.js';
+import { messageOf } from '../rules/messages.js';
 import { runRules } from '../rules/registry.js';
 import { indexWalls } from '../coverage/walls.js';
 
@@ -24,6 +26,8 @@ export interface CheckInput {
   sha256: string;
   settings: Settings;
   reportUnits: UnitSystem;
+  /** Stop (an input error) where no hydraulic calculation can be made, instead of a warning. */
+  requireHydraulics?: boolean;
   /** Called after each stage with its name and duration in ms (for the benchmark). */
   onStage?: (stage: string, ms: number) => void;
 }
@@ -42,19 +46,15 @@ export function runCheck(input: CheckInput): CheckResult {
   };
   const { drawing, plan } = planOf(input, stage);
   if (plan.heads.length === 0) fail(noHeads(drawing, settings));
-  if (plan.sources.length === 0) {
-    const layers = plan.roles.source.layers.length ? plan.roles.source.layers.join(', ') : 'none chosen';
-    fail(
-      `no water source found (source layers: ${layers}; heads taken from ${plan.roles.heads.layers.join(', ')}); draw the riser as a block or point and set "layers.source"`,
-    );
-  }
   const network = stage('network', buildNetwork(plan, settings));
   const walls = indexWalls(plan.rooms, plan.walls);
   const coverage = stage('coverage', computeCoverage(plan.heads, network, walls));
-  const limits = resolveLimits(settings);
-  const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, limits, settings, walls.roomOf));
-  const findings = stage('rules', runRules({ drawing, plan, network, settings, limits, coverage, walls, design }));
-  const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, limits, design, findings }));
+  const zoning = zoneHeads(plan, settings);
+  const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, zoning, settings, walls.roomOf));
+  const findings = stage('rules', runRules({ drawing, plan, network, settings, zoning, coverage, walls, design }));
+  const unevaluated = findings.find((f) => f.rule === 'hydraulics-not-evaluated');
+  if (input.requireHydraulics && unevaluated) fail(`${messageOf(unevaluated, formatterFor(input.reportUnits))} (--require-hydraulics)`);
+  const report = stage('report', buildReport({ ...input, drawing, plan, network, coverage, zoning, design, findings }));
   return {
     bytes: input.bytes,
     fileName: input.fileName,
@@ -64,7 +64,7 @@ export function runCheck(input: CheckInput): CheckResult {
     plan,
     network,
     coverage,
-    limits,
+    zoning,
     design,
     findings,
     report,

@@ -22,6 +22,7 @@ interface BatchCliOptions extends Partial<Record<FormatName, boolean>> {
   out: string;
   config?: string;
   drawingUnits?: LengthUnit;
+  requireHydraulics?: boolean;
   units: UnitSystem;
   workers: string;
   timeLimit: string;
@@ -34,6 +35,8 @@ interface DrawingOptions {
   config?: string | false;
   /** The drawing's length unit, over the config's and the header's. */
   drawingUnits?: LengthUnit;
+  /** A drawing no hydraulic calculation can be made for is unusable (exit 2), not a warning. */
+  requireHydraulics?: boolean;
 }
 
 type CheckOptions = DrawingOptions & Partial<Record<FormatName, string>> & { units: UnitSystem };
@@ -62,7 +65,15 @@ async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: str
   const settings = settingsFor(file, opts);
   const bytes = readInputFile(file, settings.inputLimits.fileMB);
   const onStage = collectBetweenStages(bytes.length);
-  const input = { bytes, fileName: file, sha256: sha256Hex(bytes), settings, reportUnits: opts.units, ...(onStage ? { onStage } : {}) };
+  const input = {
+    bytes,
+    fileName: file,
+    sha256: sha256Hex(bytes),
+    settings,
+    reportUnits: opts.units,
+    requireHydraulics: opts.requireHydraulics === true,
+    ...(onStage ? { onStage } : {}),
+  };
   const result = withFile(file, () => runCheck(input));
   // Each output is made when its turn to be written comes, and is garbage once written.
   await writeAllAtomically(wanted.map((f) => ({ path: opts[f]!, data: () => withFile(file, () => FORMATS[f].make(result)) })));
@@ -82,7 +93,10 @@ function withFile<T>(file: string, fn: () => T): T {
 
 export async function main(
   argv: string[],
-  io = { out: (s: string) => process.stdout.write(`${s}\n`), err: (s: string) => process.stderr.write(`${s}\n`) },
+  io: { out: (s: string) => void; err: (s: string) => void } = {
+    out: (s) => void process.stdout.write(`${s}\n`),
+    err: (s) => void process.stderr.write(`${s}\n`),
+  },
 ): Promise<number> {
   let code = 0;
   const program = new Command()
@@ -101,7 +115,9 @@ export async function main(
       .option('--no-config', 'use no config file, only the defaults')
       .addOption(drawingUnitsOption());
 
-  const check = configOptions(program.command('check <drawing>').description('audit one drawing'));
+  const requireHydraulicsOption = () =>
+    new Option('--require-hydraulics', 'a drawing without piping or a source fed by it is unusable (exit 2), not a warning');
+  const check = configOptions(program.command('check <drawing>').description('audit one drawing')).addOption(requireHydraulicsOption());
   for (const f of FORMAT_NAMES) check.option(`--${f} <file>`, `write ${FORMATS[f].description}`);
   check.addOption(unitsOption()).action(async (drawing: string, opts: CheckOptions) => {
     code = await checkCommand(drawing, opts, io);
@@ -113,6 +129,7 @@ export async function main(
     .requiredOption('--out <dir>', 'folder for the reports and summaries')
     .option('--config <file>', 'config JSON for drawings without their own')
     .addOption(drawingUnitsOption())
+    .addOption(requireHydraulicsOption())
     .addOption(unitsOption())
     .option('--workers <n>', 'worker threads', String(availableParallelism()))
     .option('--time-limit <s>', 'seconds per drawing', '300')
@@ -136,6 +153,7 @@ export async function main(
       out: opts.out,
       ...(opts.config ? { config: opts.config } : {}),
       ...(opts.drawingUnits ? { drawingUnits: opts.drawingUnits } : {}),
+      requireHydraulics: opts.requireHydraulics === true,
       units: opts.units,
       outputs: Object.fromEntries(FORMAT_NAMES.map((f) => [f, opts[f] !== false])) as Record<FormatName, boolean>,
       workers: Math.floor(positive(opts.workers, '--workers')),

@@ -2,7 +2,7 @@
 // form can list them without loading the validator.
 
 /** The roles a layer can play. */
-export const LAYER_ROLES = ['heads', 'pipes', 'walls', 'designArea', 'source'] as const;
+export const LAYER_ROLES = ['heads', 'pipes', 'walls', 'designArea', 'source', 'zones'] as const;
 export type LayerRole = (typeof LAYER_ROLES)[number];
 
 export const HAZARDS = ['LH', 'OH1', 'OH2', 'EH1', 'EH2'] as const;

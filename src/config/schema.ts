@@ -114,6 +114,15 @@ export function configSchema(system: UnitSystem) {
   const limit = (kind: QuantityKind, max: number, example: number, description: string) =>
     maybe({ kind, above: 0, max, example, rangeSource: NOT_SOURCED }, description);
 
+  const densityMeta: QuantityMeta = {
+    kind: 'density',
+    above: 0,
+    max: 1,
+    example: 0.2,
+    rangeSource: 'common practice: densities of the density/area method lie between 0.05 and 0.6 gpm/ft²',
+  };
+  const areaMeta: QuantityMeta = { kind: 'area', above: 0, max: 20_000, example: 1500, rangeSource: NOT_SOURCED };
+
   const supply = v.pipe(
     v.strictObject(
       {
@@ -157,6 +166,7 @@ export function configSchema(system: UnitSystem) {
             walls: v.optional(patterns('Layers holding walls and room outlines', ['A-WALL*'])),
             designArea: v.optional(patterns('Layers holding drawn design areas', ['FP-AREA'])),
             source: v.optional(patterns('Layers holding the water source (riser)', ['FP-RISER'])),
+            zones: v.optional(patterns('Layers holding hazard-zone outlines and their labels', ['FP-ZONE'])),
           },
           'Layer name patterns per role (case-insensitive, * matches any run); a role without patterns is guessed',
         ),
@@ -221,20 +231,8 @@ export function configSchema(system: UnitSystem) {
         section(
           {
             hazard: v.optional(choice(HAZARDS, 'Occupancy hazard: LH, OH1, OH2, EH1 or EH2', 'OH2'), 'OH2'),
-            density: maybe(
-              {
-                kind: 'density',
-                above: 0,
-                max: 1,
-                example: 0.2,
-                rangeSource: 'common practice: densities of the density/area method lie between 0.05 and 0.6 gpm/ft²',
-              },
-              "Design density (default: the hazard's curve)",
-            ),
-            area: maybe(
-              { kind: 'area', above: 0, max: 20_000, example: 1500, rangeSource: NOT_SOURCED },
-              "Design area before adjustments (default: the hazard's curve)",
-            ),
+            density: maybe(densityMeta, "Design density (default: the hazard's curve)"),
+            area: maybe(areaMeta, "Design area before adjustments (default: the hazard's curve)"),
             hoseAllowance: maybe(
               { kind: 'flow', min: 0, max: 2000, example: 250, rangeSource: NOT_SOURCED },
               'Hose-stream allowance added at the source (default: by hazard)',
@@ -270,6 +268,27 @@ export function configSchema(system: UnitSystem) {
             ),
           },
           'The design basis',
+        ),
+        {},
+      ),
+      zones: v.optional(
+        v.pipe(
+          v.record(
+            v.string(),
+            section(
+              {
+                hazard: choice(HAZARDS, "The zone's occupancy hazard", 'LH'),
+                density: maybe(densityMeta, "The zone's design density (default: its hazard's curve)"),
+                area: maybe(areaMeta, "The zone's design area before adjustments (default: its hazard's curve)"),
+              },
+              'The design basis of the zones whose label matches',
+            ),
+            'must be an object of label patterns',
+          ),
+          v.description(
+            'Design basis per hazard zone: label patterns (case-insensitive, * matches any run) to { hazard, density, area }; the first match wins',
+          ),
+          v.examples([{ '*STORAGE*': { hazard: 'OH2', density: 0.2, area: 1500 }, 'OFFICE*': { hazard: 'LH' } }]),
         ),
         {},
       ),
@@ -333,3 +352,5 @@ export type ConfigSchema = ReturnType<typeof configSchema>;
 export type Settings = v.InferOutput<ConfigSchema>;
 export type InputLimits = Settings['inputLimits'];
 export type SystemType = Settings['design']['systemType'];
+export type DesignSettings = Settings['design'];
+export type ZoneSettings = Settings['zones'][string];

@@ -25,6 +25,11 @@ describe('config: unknown keys, at any depth, with the nearest known key', () =>
     [{ inputLimits: { fileMb: 10 } }, /unknown key "inputLimits\.fileMb" \(did you mean "inputLimits\.fileMB"\?\)/],
     [{ unitsystem: 'si' }, /unknown key "unitsystem" \(did you mean "unitSystem"\?\)/],
     [{ colour: 'red' }, /unknown key "colour"$/],
+    [
+      { zones: { '*STORAGE*': { hazzard: 'OH2' } } },
+      /unknown key "zones\.\*STORAGE\*\.hazzard" \(did you mean "zones\.\*STORAGE\*\.hazard"\?\)/,
+    ],
+    [{ layers: { zone: ['FP-ZONE'] } }, /unknown key "layers\.zone" \(did you mean "layers\.zones"\?\)/],
   ];
   it.each(slips)('%j', (config, message) => expect(refusal(config)).toMatch(message));
 });
@@ -33,6 +38,9 @@ describe('config: wrong types and values out of range name the key', () => {
   const bad: [unknown, RegExp][] = [
     [{ design: { density: 'high' } }, /"design\.density" must be a number, not "high"/],
     [{ design: { hazard: 'OH3' } }, /"design\.hazard" must be one of LH, OH1, OH2, EH1, EH2, not "OH3"/],
+    [{ zones: { 'OFFICE*': { hazard: 'LH', density: 2 } } }, /"zones\.OFFICE\*\.density" must be at most 1 gpm\/ft², not 2/],
+    [{ zones: { 'OFFICE*': {} } }, /"zones\.OFFICE\*\.hazard" is missing/],
+    [{ zones: ['OFFICE'] }, /"zones" must be an object/],
     [{ design: { fittings: 'yes' } }, /"design\.fittings" must be true or false/],
     [{ unitSystem: 'metric' }, /"unitSystem" must be one of us, si/],
     [{ units: 'yd' }, /"units" must be one of in, ft, mm, cm, m/],

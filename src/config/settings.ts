@@ -7,7 +7,15 @@ import type { UnitSystem } from '../quantities/convert.js';
 import { configSchema, type ConfigSchema, type Settings } from './schema.js';
 
 export { HAZARDS, LAYER_ROLES, LENGTH_UNITS, type Hazard, type LayerRole, type LengthUnit } from './names.js';
-export { QUANTITIES, type InputLimits, type QuantityKind, type Settings, type SystemType } from './schema.js';
+export {
+  QUANTITIES,
+  type DesignSettings,
+  type InputLimits,
+  type QuantityKind,
+  type Settings,
+  type SystemType,
+  type ZoneSettings,
+} from './schema.js';
 
 const SCHEMAS: Record<UnitSystem, ConfigSchema> = { us: configSchema('us'), si: configSchema('si') };
 
@@ -24,7 +32,9 @@ export function parseSettings(raw: unknown, where = 'config'): Settings {
   if (list) fail(`${where}: ${list.length ? `"${list.join('.')}" must be an object` : 'the config must be a JSON object'}`);
   const result = v.safeParse(schema, raw);
   if (result.success) return result.output;
-  return fail(`${where}: ${describeIssue(schema, result.issues[0])}`);
+  // A misspelt key is said first: a key it leaves missing is its consequence.
+  const unknown = result.issues.find((i) => i.type === 'strict_object' && i.expected === 'never');
+  return fail(`${where}: ${describeIssue(schema, unknown ?? result.issues[0])}`);
 }
 
 /** Parses config text (JSON); `where` names the file in messages. */

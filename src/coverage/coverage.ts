@@ -1,14 +1,16 @@
-// Protection area of each head as S × L, the standard's own method: S the larger of the distances to the
-// next heads on the branch line (twice the wall distance for an end head), L likewise between branch lines.
+// Protection area of each head as S × L, the standard's own method: S the larger of the distances to the next
+// heads on its branch line or row (twice the wall distance for an end head), L likewise between lines.
 
 import { cross, dot, type Point } from '../geometry/point.js';
 import type { BranchLine, Network } from '../network/types.js';
 import type { Head } from '../read/plan.js';
+import { headRows } from './rows.js';
 import type { Walls } from './walls.js';
-import { maxOf, minOf } from '../arrays.js';
+import { maxOf } from '../arrays.js';
 
 export interface Coverage {
   headId: string;
+  /** The branch line the head is measured along, or the row (R1…) of heads it stands in where no line holds it. */
   branchLine: string;
   /** Along the branch line, ft. */
   s: number | null;
@@ -33,7 +35,16 @@ const PARALLEL_SIN = Math.sin((10 * Math.PI) / 180);
 export function computeCoverage(heads: Head[], network: Network, walls: Walls): Map<string, Coverage> {
   const pos = new Map(heads.map((h) => [h.id, h.position]));
   const out = new Map<string, Coverage>();
-  const lines = network.branchLines.filter((b) => b.headIds.length > 0);
+  const piped = network.branchLines.filter((b) => b.headIds.length > 0);
+  const onLines = new Set(piped.flatMap((b) => b.headIds));
+  // Heads no branch line holds are measured along rows of their own (a layout without piping yet).
+  const lines = [
+    ...piped,
+    ...headRows(
+      heads.filter((h) => !onLines.has(h.id)),
+      walls,
+    ),
+  ];
   const summaries = lines.map((l) => summarise(l, pos));
   for (const line of lines) {
     const u = line.direction;
@@ -78,10 +89,17 @@ interface LineSummary {
 function summarise(line: BranchLine, pos: Map<string, Point>): LineSummary {
   const pts = line.headIds.map((id) => pos.get(id)!);
   const ts = pts.map((q) => dot(q, line.direction));
-  const tMin = minOf(ts);
-  const tMax = maxOf(ts);
-  const first = pts[ts.indexOf(tMin)]!;
-  const last = pts[ts.indexOf(tMax)]!;
+  // Indexes found by comparison, so that a non-finite coordinate still leaves a head at each end.
+  let lo = 0;
+  let hi = 0;
+  ts.forEach((t, i) => {
+    if (t < ts[lo]!) lo = i;
+    if (t > ts[hi]!) hi = i;
+  });
+  const tMin = ts[lo]!;
+  const tMax = ts[hi]!;
+  const first = pts[lo]!;
+  const last = pts[hi]!;
   const n = pts.length;
   return {
     line,

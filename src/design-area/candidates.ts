@@ -2,7 +2,7 @@
 // line, each direction across the lines and each window along them, the heads the shape rules select.
 
 import { cross, dot, type Point } from '../geometry/point.js';
-import type { Network } from '../network/types.js';
+import type { BranchLine, Network } from '../network/types.js';
 import type { Head } from '../read/plan.js';
 import type { Coverage } from '../coverage/coverage.js';
 import { areaShape, type AreaShape } from './shape.js';
@@ -29,11 +29,18 @@ const median = (xs: number[]) => {
   return s.length ? s[Math.floor(s.length / 2)]! : NaN;
 };
 
-export function lineFamilies(network: Network, heads: Head[], coverage: Map<string, Coverage>, area: number): LineFamily[] {
+/** The given branch lines of the network grouped into families of parallel lines, each with its area shape. */
+export function lineFamilies(
+  network: Network,
+  branchLines: BranchLine[],
+  heads: Head[],
+  coverage: Map<string, Coverage>,
+  area: number,
+): LineFamily[] {
   const pos = new Map(heads.map((h) => [h.id, h.position]));
   const nodePos = new Map(network.nodes.map((n) => [n.id, n.position]));
   const families: LineFamily[] = [];
-  for (const line of network.branchLines.filter((b) => b.headIds.length)) {
+  for (const line of branchLines.filter((b) => b.headIds.length)) {
     let fam = families.find((f) => Math.abs(cross(f.u, line.direction)) <= PARALLEL_SIN);
     if (!fam) {
       const d = line.direction;

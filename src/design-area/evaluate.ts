@@ -1,5 +1,5 @@
-// The design-area stage: the design basis, then the designer's drawn area(s) and the searched most demanding
-// area with its runner-up, each with its shape figures and a full hydraulic calculation.
+// The design-area stage: per system, and per hazard zone within it, the most demanding area and its runner-up;
+// and the designer's drawn areas; each with its shape figures and a full hydraulic calculation.
 
 import type { Settings } from '../config/settings.js';
 import { clipPolygon } from '../geometry/clip.js';
@@ -7,14 +7,14 @@ import { dot, type Point } from '../geometry/point.js';
 import type { AreaHydraulics } from '../hydraulics/calculate.js';
 import { calculateArea } from '../hydraulics/calculate.js';
 import type { FlowingHead } from '../hydraulics/model.js';
-import type { Network } from '../network/types.js';
+import type { NetSystem, Network } from '../network/types.js';
 import type { Head, Plan } from '../read/plan.js';
 import type { Outline } from '../read/types.js';
 import type { Coverage } from '../coverage/coverage.js';
-import type { Limits } from '../basis/limits.js';
+import { basisOfHead, type Zoning } from '../zones/zones.js';
 import { containsPoint, signedArea } from '../geometry/polygon.js';
 import { candidatesOf, lineFamilies, type LineFamily } from './candidates.js';
-import { designBasis, type DesignBasis } from '../basis/design-basis.js';
+import type { DesignBasis } from '../basis/design-basis.js';
 import { searchMostDemanding, type SearchOutcome } from './search.js';
 import type { AreaShape } from './shape.js';
 import { maxOf, minOf } from '../arrays.js';
@@ -23,6 +23,12 @@ export interface DesignAreaResult {
   source: 'drawn' | 'search';
   /** For searched areas: the most demanding one, or the runner-up. */
   rank: 'most-demanding' | 'runner-up' | null;
+  /** The system (its source's handle) and the zone (its id) the area belongs to; null where it has none. */
+  system: string | null;
+  zone: string | null;
+  /** The design basis the area is calculated with, and the shape it must have. */
+  basis: DesignBasis;
+  shape: AreaShape | null;
   headIds: string[];
   lineIds: string[];
   /** Length along the branch lines, width across them, ft; actual area = sum of the heads' S × L, ft². */
@@ -34,16 +40,27 @@ export interface DesignAreaResult {
   outline: Point[];
   handle: string | null;
   hydraulics: AreaHydraulics | null;
-  /** Why hydraulics are missing, when they are. */
+  /** What the reviewer should know of the area: why hydraulics are missing, or that the whole system flows. */
   note: string | null;
 }
 
-export interface DesignAreas {
+export type SearchStats = Omit<SearchOutcome, 'best' | 'runnerUp'>;
+
+/** One design-area search: the heads of one system within one zone (or outside every zone). */
+export interface AreaGroup {
+  system: string;
+  zone: string | null;
   basis: DesignBasis;
+  headIds: string[];
   shape: AreaShape | null;
+  /** Head spacing along the lines, ft. */
   spacing: number | null;
+  search: SearchStats | null;
+}
+
+export interface DesignAreas {
+  groups: AreaGroup[];
   areas: DesignAreaResult[];
-  search: Omit<SearchOutcome, 'best' | 'runnerUp'> | null;
   drawnCount: number;
   notes: string[];
 }
@@ -52,59 +69,110 @@ export function evaluateDesignAreas(
   plan: Plan,
   network: Network,
   coverage: Map<string, Coverage>,
-  limits: Limits,
+  zoning: Zoning,
   settings: Settings,
   roomOf: (p: Point) => Outline | null,
 ): DesignAreas {
-  const basis = designBasis(settings);
   const headById = new Map(plan.heads.map((h) => [h.id, h]));
-  const areaOf = (id: string) => coverage.get(id)?.area ?? limits.maxArea;
+  const basisOf = (id: string) => basisOfHead(zoning, { id });
+  const areaOf = (id: string) => coverage.get(id)?.area ?? basisOf(id).limits.maxArea;
+  // Each head delivers its own zone's density over its own protection area.
   const flowingOf = (ids: string[]): FlowingHead[] =>
     ids.map((id) => {
       const head = headById.get(id)!;
-      return { head, required: Math.max(settings.design.minHeadPressure, ((basis.density * areaOf(id)) / head.kFactor) ** 2) };
+      const density = basisOf(id).design.density;
+      return { head, required: Math.max(settings.design.minHeadPressure, ((density * areaOf(id)) / head.kFactor) ** 2) };
     });
-  const families = lineFamilies(network, plan.heads, coverage, basis.area);
-  const main = families.sort((a, b) => b.lines.length - a.lines.length)[0] ?? null;
-  const notes: string[] = [];
-  const out: DesignAreas = {
-    basis,
-    shape: main?.shape ?? null,
-    spacing: main?.spacing ?? null,
-    areas: [],
-    search: null,
-    drawnCount: plan.designAreas.length,
-    notes,
+  const systemOfNode = new Map(network.systems.flatMap((s) => s.nodeIds.map((n) => [n, s] as const)));
+  const systemOf = (id: string) => {
+    const node = network.headNode[id];
+    return node === undefined ? undefined : systemOfNode.get(node);
   };
+  const groups = groupsOf(network, zoning);
+  const out: DesignAreas = { groups: [], areas: [], drawnCount: plan.designAreas.length, notes: [] };
   const mode = settings.design.areaMode;
-  const hydraulic = network.sourceNodeId !== null;
-  if (!hydraulic) notes.push('no hydraulic calculation: the water source is not on the piping');
-  const calc = (ids: string[]): { h: AreaHydraulics | null; note: string | null } => {
-    const connected = ids.filter((id) => network.headNode[id]);
-    if (!hydraulic || connected.length === 0) return { h: null, note: 'no flowing head is connected to the source' };
-    try {
-      return {
-        h: calculateArea(network, flowingOf(connected), settings, basis.hoseAllowance),
-        note: connected.length < ids.length ? 'heads not on the piping were left out' : null,
-      };
-    } catch (err) {
-      return { h: null, note: err instanceof Error ? err.message : String(err) };
-    }
-  };
+
   if (mode !== 'search') {
     for (const outline of plan.designAreas) {
       const ids = plan.heads.filter((h) => containsPoint(outline.points, h.position)).map((h) => h.id);
-      const { h, note } = calc(ids);
-      out.areas.push({ ...measureDrawn(outline, ids, main, areaOf, network), rank: null, hydraulics: h, note });
+      const system = mostCommon(ids.map((id) => systemOf(id)?.id ?? null));
+      const zone = mostCommon(ids.map((id) => zoning.zoneOfHead.get(id) ?? null));
+      const group = groups.find((g) => g.system.id === system && g.zone === zone);
+      const basis = group?.basis ?? (ids.length ? basisOf(ids[0]!).design : zoning.design.design);
+      const fam = group ? mainFamily(network, group, plan, coverage) : null;
+      const fed = ids.filter((id) => systemOf(id)?.id === system);
+      let hydraulics: AreaHydraulics | null = null;
+      let note: string | null = null;
+      if (system === null || fed.length === 0) note = 'no head of the area is on piping fed from a source';
+      else {
+        try {
+          hydraulics = calculateArea(network, systemOfId(network, system).sourceNodeId, flowingOf(fed), settings, basis.hoseAllowance);
+          if (fed.length < ids.length) note = 'heads not on the piping of its source were left out';
+        } catch (err) {
+          note = err instanceof Error ? err.message : String(err);
+        }
+      }
+      out.areas.push({
+        ...measureDrawn(outline, ids, fam, areaOf, network),
+        rank: null,
+        system,
+        zone,
+        basis,
+        shape: fam?.shape ?? null,
+        hydraulics,
+        note,
+      });
     }
   }
-  if (mode !== 'drawn' && main && hydraulic) {
-    const candidates = candidatesOf(main, areaOf, basis.area).filter((c) => c.headIds.some((id) => network.headNode[id]));
-    const connected = (ids: string[]) => ids.filter((id) => network.headNode[id]);
+
+  for (const group of groups) {
+    const fam = mainFamily(network, group, plan, coverage);
+    const stats: AreaGroup = {
+      system: group.system.id,
+      zone: group.zone,
+      basis: group.basis,
+      headIds: group.headIds,
+      shape: fam?.shape ?? null,
+      spacing: fam?.spacing ?? null,
+      search: null,
+    };
+    out.groups.push(stats);
+    if (mode === 'drawn') continue;
+    const where = groupName(group, zoning);
+    if (!fam) {
+      out.notes.push(`no branch lines with heads${where}: the design area could not be searched`);
+      continue;
+    }
+    const place = { system: group.system.id, zone: group.zone, basis: group.basis, shape: fam.shape };
+    const source = group.system.sourceNodeId;
+    const total = group.headIds.reduce((s, id) => s + areaOf(id), 0);
+    if (group.headIds.length < fam.shape.totalHeads || total < group.basis.area - 1e-6) {
+      // A design area larger than the system (or zone): every head of it flows.
+      try {
+        const hydraulics = calculateArea(network, source, flowingOf(group.headIds), settings, group.basis.hoseAllowance);
+        out.areas.push({
+          ...measureSearched(
+            group.headIds,
+            fam.lines.map((l) => l.id),
+            fam,
+            headById,
+            areaOf,
+            roomOf,
+          ),
+          ...place,
+          rank: 'most-demanding',
+          hydraulics,
+          note: `the design area (${round(group.basis.area)} ft²) is larger than${where || ' the system'} (${group.headIds.length} heads, ${round(total)} ft²): every head flows`,
+        });
+      } catch (err) {
+        out.notes.push(`design-area calculation failed${where}: ${err instanceof Error ? err.message : String(err)}`);
+      }
+      continue;
+    }
     try {
-      const piped = candidates.map((c) => (c.headIds.every((id) => network.headNode[id]) ? c : { ...c, headIds: connected(c.headIds) }));
-      const found = searchMostDemanding(network, piped, flowingOf, settings, basis.hoseAllowance);
-      out.search = {
+      const candidates = candidatesOf(fam, areaOf, group.basis.area);
+      const found = searchMostDemanding(network, source, candidates, flowingOf, settings, group.basis.hoseAllowance);
+      stats.search = {
         candidates: found.candidates,
         evaluated: found.evaluated,
         screened: found.screened,
@@ -116,27 +184,84 @@ export function evaluateDesignAreas(
         ['runner-up', found.runnerUp],
       ] as const) {
         if (!s) continue;
-        const measured = measureSearched(s.candidate.headIds, s.candidate.lineIds, main, headById, areaOf);
-        // Draw the area inside the room that holds its heads (the S × L bands may reach past a wall).
-        const room = roomOf(headById.get(s.candidate.headIds[0]!)!.position);
         out.areas.push({
-          ...measured,
-          outline: room ? clipPolygon(measured.outline, room.points) : measured.outline,
+          ...measureSearched(s.candidate.headIds, s.candidate.lineIds, fam, headById, areaOf, roomOf),
+          ...place,
           rank,
           hydraulics: s.hydraulics,
           note: null,
         });
       }
     } catch (err) {
-      notes.push(`design-area search failed: ${err instanceof Error ? err.message : String(err)}`);
+      out.notes.push(`design-area search failed${where}: ${err instanceof Error ? err.message : String(err)}`);
     }
-  } else if (mode !== 'drawn' && !main) {
-    notes.push('no branch lines with heads: the design area could not be searched');
   }
   return out;
 }
 
-type Measured = Omit<DesignAreaResult, 'hydraulics' | 'note' | 'rank'>;
+/** The heads of each system, split by zone: one design-area search each. */
+function groupsOf(network: Network, zoning: Zoning): { system: NetSystem; zone: string | null; basis: DesignBasis; headIds: string[] }[] {
+  return network.systems.flatMap((system) => {
+    const byZone = new Map<string | null, string[]>();
+    for (const id of system.headIds) {
+      const zone = zoning.zoneOfHead.get(id) ?? null;
+      byZone.set(zone, [...(byZone.get(zone) ?? []), id]);
+    }
+    return [...byZone.entries()].map(([zone, headIds]) => ({
+      system,
+      zone,
+      basis: basisOfHead(zoning, { id: headIds[0]! }).design,
+      headIds,
+    }));
+  });
+}
+
+/** How notes name a group: nothing where the drawing has one system and no zone. */
+function groupName(group: { system: NetSystem; zone: string | null }, zoning: Zoning): string {
+  const zone = group.zone === null ? null : zoning.zones.find((z) => z.id === group.zone)!;
+  const zoneName = zone ? ` zone ${zone.label ?? zone.id}` : '';
+  return zone || zoning.zones.length ? ` in system ${group.system.id}${zoneName}` : ` in system ${group.system.id}`;
+}
+
+/** The family of parallel branch lines that holds most of a group's lines, its lines cut to the group's heads. */
+function mainFamily(
+  network: Network,
+  group: { system: NetSystem; basis: DesignBasis; headIds: string[] },
+  plan: Plan,
+  coverage: Map<string, Coverage>,
+): LineFamily | null {
+  const own = new Set(group.headIds);
+  const inSystem = new Set(group.system.branchLineIds);
+  const lines = network.branchLines
+    .filter((b) => inSystem.has(b.id))
+    .map((b) => ({ ...b, headIds: b.headIds.filter((id) => own.has(id)) }))
+    .filter((b) => b.headIds.length > 0);
+  const families = lineFamilies(network, lines, plan.heads, coverage, group.basis.area);
+  return families.sort((a, b) => b.lines.length - a.lines.length)[0] ?? null;
+}
+
+function systemOfId(network: Network, id: string): NetSystem {
+  return network.systems.find((s) => s.id === id)!;
+}
+
+/** The most frequent value of a list (the first seen among equals), or null for an empty list. */
+function mostCommon<T>(xs: (T | null)[]): T | null {
+  const counts = new Map<T | null, number>();
+  for (const x of xs) counts.set(x, (counts.get(x) ?? 0) + 1);
+  let best: T | null = null;
+  let most = 0;
+  for (const [x, n] of counts) {
+    if (n > most) {
+      best = x;
+      most = n;
+    }
+  }
+  return best;
+}
+
+const round = (x: number) => Math.round(x);
+
+type Measured = Omit<DesignAreaResult, 'hydraulics' | 'note' | 'rank' | 'system' | 'zone' | 'basis' | 'shape'>;
 
 function measureSearched(
   ids: string[],
@@ -144,6 +269,7 @@ function measureSearched(
   fam: LineFamily,
   headById: Map<string, Head>,
   areaOf: (id: string) => number,
+  roomOf: (p: Point) => Outline | null,
 ): Measured {
   const lines = fam.lines.filter((l) => lineIds.includes(l.id));
   const spacingAcross = lines.length > 1 ? Math.abs(lines[1]!.offset - lines[0]!.offset) : fam.perHead / fam.spacing;
@@ -160,12 +286,14 @@ function measureSearched(
     ...[...bands].reverse().flatMap((b) => [toWorld(b.hi, b.o + half), toWorld(b.hi, b.o - half)]),
   ];
   const ts = ids.map((id) => dot(headById.get(id)!.position, fam.u));
+  // Drawn inside the room that holds its heads (the S × L bands may reach past a wall).
+  const room = roomOf(headById.get(ids[0]!)!.position);
   return {
     source: 'search',
     headIds: ids,
     lineIds,
     handle: null,
-    outline,
+    outline: room ? clipPolygon(outline, room.points) : outline,
     outlineArea: null,
     length: maxOf(ts) - minOf(ts) + fam.spacing,
     width: bands.length ? bands[bands.length - 1]!.o - bands[0]!.o + spacingAcross : 0,

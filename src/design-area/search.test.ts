@@ -16,15 +16,16 @@ import { calculateArea } from '../hydraulics/calculate.js';
 function searchBoth(spec: Parameters<typeof checkLayout>[0], config: Record<string, unknown>) {
   const r = checkLayout(spec, config);
   const settings = parseSettings(config);
-  const basis = designBasis(settings);
-  const areaOf = (id: string) => r.coverage.get(id)?.area ?? r.limits.maxArea;
-  const fam = lineFamilies(r.network, r.plan.heads, r.coverage, basis.area)[0]!;
+  const basis = designBasis(settings.design);
+  const areaOf = (id: string) => r.coverage.get(id)!.area!;
+  const fam = lineFamilies(r.network, r.network.branchLines, r.plan.heads, r.coverage, basis.area)[0]!;
+  const source = r.network.systems[0]!.sourceNodeId;
   const cands = candidatesOf(fam, areaOf, basis.area);
   const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
   const flowingOf = (ids: string[]) =>
     ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, ((basis.density * areaOf(id)) / byId.get(id)!.kFactor) ** 2) }));
-  const pruned = searchMostDemanding(r.network, cands, flowingOf, settings, basis.hoseAllowance);
-  const brute = searchMostDemanding(r.network, cands, flowingOf, settings, basis.hoseAllowance, { prune: false });
+  const pruned = searchMostDemanding(r.network, source, cands, flowingOf, settings, basis.hoseAllowance);
+  const brute = searchMostDemanding(r.network, source, cands, flowingOf, settings, basis.hoseAllowance, { prune: false });
   return { pruned, brute, r };
 }
 
@@ -72,15 +73,16 @@ describe('design-area search', () => {
           const config = { design: { density: 0.2, area: p.area } };
           const r = checkLayout({ s: p.s, l: 10, heads: p.heads, lines: p.lines }, config);
           const settings = parseSettings(config);
-          const basis = designBasis(settings);
+          const basis = designBasis(settings.design);
+          const source = r.network.systems[0]!.sourceNodeId;
           const areaOf = (id: string) => r.coverage.get(id)!.area!;
           const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
           const flowingOf = (ids: string[]) =>
             ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, ((0.2 * areaOf(id)) / 5.6) ** 2) }));
-          const bound = treeBound(buildModel(r.network, flowingOf(r.plan.heads.map((h) => h.id)), settings))!;
-          const fam = lineFamilies(r.network, r.plan.heads, r.coverage, basis.area)[0]!;
+          const bound = treeBound(buildModel(r.network, source, flowingOf(r.plan.heads.map((h) => h.id)), settings))!;
+          const fam = lineFamilies(r.network, r.network.branchLines, r.plan.heads, r.coverage, basis.area)[0]!;
           for (const c of candidatesOf(fam, areaOf, basis.area)) {
-            const exact = calculateArea(r.network, flowingOf(c.headIds), settings, 0);
+            const exact = calculateArea(r.network, source, flowingOf(c.headIds), settings, 0);
             const b = bound.bound(c.headIds)!;
             expect(b.pressure).toBeGreaterThanOrEqual(exact.sourcePressure - 1e-6);
             expect(b.flow).toBeGreaterThanOrEqual(exact.sourceFlow - 1e-6);
@@ -106,7 +108,7 @@ describe('design-area search', () => {
   it('1500 ft² at 12 × 10 ft: 4 heads along, 13 heads, the 13th on the next line at the cross-main end', () => {
     const r = checkLayout({ s: 12, l: 10, heads: 8, lines: 6 }, { design: { density: 0.2, area: 1500 } });
     const best = r.design.areas.find((a) => a.rank === 'most-demanding')!;
-    expect(r.design.shape).toMatchObject({ headsAlong: 4, totalHeads: 13, fullLines: 3, remainder: 1 });
+    expect(r.design.groups[0]!.shape).toMatchObject({ headsAlong: 4, totalHeads: 13, fullLines: 3, remainder: 1 });
     expect(best.headIds).toHaveLength(13);
     expect(best.lineIds).toHaveLength(4);
     // the remote end is the far end of the lines (x = 42..78); the 13th head is the one nearest the cross main

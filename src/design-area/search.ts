@@ -45,6 +45,7 @@ const SCORE_TOL = 1e-5;
 
 export function searchMostDemanding(
   network: Network,
+  sourceNodeId: string,
   candidates: Candidate[],
   flowingOf: (ids: string[]) => FlowingHead[],
   settings: Settings,
@@ -59,7 +60,7 @@ export function searchMostDemanding(
   if (all.length === 0)
     return { best: null, runnerUp: null, candidates: candidates.length, evaluated: 0, screened: 0, solves: 0, pruned: false };
   const prune = options.prune !== false;
-  const calculator = new AreaCalculator(network, all, settings);
+  const calculator = new AreaCalculator(network, sourceNodeId, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
   const supply = settings.supply;
   const scoreAt = (pressure: number, flow: number) => (supply ? pressure - availablePressure(supply, flow + hose) : pressure);

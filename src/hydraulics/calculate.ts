@@ -68,10 +68,11 @@ export class AreaCalculator {
 
   constructor(
     network: Network,
+    sourceNodeId: string,
     mayFlow: FlowingHead[],
     private readonly settings: Settings,
   ) {
-    this.model = buildModel(network, mayFlow, settings);
+    this.model = buildModel(network, sourceNodeId, mayFlow, settings);
     if (this.model.emitters.length === 0) throw new Error('no flowing head is connected to the source');
     this.solver = new NetworkSolver(this.model);
     this.emitterOf = new Map(this.model.emitters.map((e, k) => [e.headId, k]));
@@ -240,9 +241,15 @@ function findPressure(slack: (P: number) => Trial, staticHead: number, previous:
   return hi;
 }
 
-/** One design area on its own. */
-export function calculateArea(network: Network, flowing: FlowingHead[], settings: Settings, hoseAllowance: number): AreaHydraulics {
-  return new AreaCalculator(network, flowing, settings).calculate(
+/** One design area on its own, fed from node `sourceNodeId`. */
+export function calculateArea(
+  network: Network,
+  sourceNodeId: string,
+  flowing: FlowingHead[],
+  settings: Settings,
+  hoseAllowance: number,
+): AreaHydraulics {
+  return new AreaCalculator(network, sourceNodeId, flowing, settings).calculate(
     flowing.map((f) => f.head.id),
     hoseAllowance,
   );

@@ -100,15 +100,16 @@ describe('design-area hydraulics against EPANET', () => {
   for (const gridded of [false, true]) {
     it(`${gridded ? 'grid' : 'tree'}: source pressure and flow and every node pressure within 1%`, async () => {
       const r = checkLayout({ s: 12, l: 10, heads: 5, lines: 4, gridded }, { defaults: { headElevation: 0, sourceElevation: 0 } });
-      expect(r.network.topology).toBe(gridded ? 'grid' : 'tree');
+      expect(r.network.systems[0]!.topology).toBe(gridded ? 'grid' : 'tree');
+      const source = r.network.systems[0]!.sourceNodeId;
       const flowing = r.plan.heads.map((h) => ({ head: h, required: Math.max(7, ((0.2 * 120) / h.kFactor) ** 2) }));
-      const a = calculateArea(r.network, flowing, settings, 250);
-      const model = buildModel(r.network, flowing, settings);
+      const a = calculateArea(r.network, source, flowing, settings, 250);
+      const model = buildModel(r.network, source, flowing, settings);
       const e = await solveWithEpanet(model, a.sourcePressure);
       expect(e.sourceFlow).toBeGreaterThan(0);
       expect(Math.abs(e.sourceFlow - a.sourceFlow) / a.sourceFlow).toBeLessThan(0.01);
-      const source = model.nodes[model.source]!.id; // a reservoir in EPANET, which reports no pressure there
-      for (const n of a.nodes.filter((x) => x.id !== source)) {
+      const reservoir = model.nodes[model.source]!.id; // a reservoir in EPANET, which reports no pressure there
+      for (const n of a.nodes.filter((x) => x.id !== reservoir)) {
         expect(Math.abs(e.pressure.get(n.id)! - n.pressure) / a.sourcePressure).toBeLessThan(0.01);
       }
       // the most demanding head is exactly at its requirement, every other one above it
@@ -129,7 +130,8 @@ describe('one solver for many design areas, against EPANET', () => {
     it(`${gridded ? 'grid' : 'tree'}: five areas of random heads, every node pressure and the source flow within 1%`, async () => {
       const r = checkLayout({ s: 12, l: 10, heads: 7, lines: 5, gridded }, config);
       const all = r.plan.heads.map((h) => ({ head: h, required: 7 }));
-      const model = buildModel(r.network, all, settings);
+      const source = r.network.systems[0]!.sourceNodeId;
+      const model = buildModel(r.network, source, all, settings);
       const solver = new NetworkSolver(model);
       let seed = 7;
       const random = () => {
@@ -141,7 +143,7 @@ describe('one solver for many design areas, against EPANET', () => {
         const ids = new Set(open.map((f) => f.head.id));
         const P = 40 + 40 * random();
         const state = solver.expand(solver.solve(P, Int32Array.from(model.emitters.flatMap((e, k) => (ids.has(e.headId) ? [k] : [])))));
-        const e = await solveWithEpanet(buildModel(r.network, open, settings), P);
+        const e = await solveWithEpanet(buildModel(r.network, source, open, settings), P);
         const ours = new Map(model.nodes.map((n, i) => [n.id, state.pressure[i]!]));
         expect(e.pressure.size).toBeGreaterThan(10);
         for (const [id, p] of e.pressure) if (id !== 'SUPPLY') expect(Math.abs(ours.get(id)! - p) / P).toBeLessThan(0.01);

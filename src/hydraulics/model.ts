@@ -48,8 +48,8 @@ export interface FlowingHead {
 const SUPPLY_NODE_ID = 'SUPPLY';
 const RISER_PIPE_ID = 'RISER';
 
-export function buildModel(network: Network, flowing: FlowingHead[], settings: Settings): HydraulicModel {
-  if (!network.sourceNodeId) throw new Error('the network has no source');
+/** The model of the system fed from node `sourceNodeId`, with the given heads able to flow. */
+export function buildModel(network: Network, sourceNodeId: string, flowing: FlowingHead[], settings: Settings): HydraulicModel {
   const pipeLevel = settings.defaults.headElevation;
   const headOfNode = new Map<string, Head>();
   const flowingByNode = new Map<string, FlowingHead>();
@@ -60,7 +60,7 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
       headOfNode.set(n, f.head);
     }
   }
-  const g = indexNetwork(network);
+  const g = indexNetwork(network, sourceNodeId);
   const keep = pruneDeadEnds(network, g, new Set(flowingByNode.keys()));
   const nodeIds = network.nodes.filter((_, v) => keep.nodes[v]).map((n) => n.id);
   const index = new Map(nodeIds.map((id, i) => [id, i]));
@@ -95,9 +95,9 @@ export function buildModel(network: Network, flowing: FlowingHead[], settings: S
       k: f.head.kFactor,
       required: f.required,
     }));
-  let source = index.get(network.sourceNodeId)!;
+  let source = index.get(sourceNodeId)!;
   const rise = pipeLevel - settings.defaults.sourceElevation;
-  const feed = network.pipes.find((p) => p.from === network.sourceNodeId || p.to === network.sourceNodeId);
+  const feed = network.pipes.find((p) => p.from === sourceNodeId || p.to === sourceNodeId);
   let riser: HydraulicModel['riser'] = { modelled: 'none', length: 0, nominalSize: feed?.nominalSize ?? settings.defaults.pipeSize };
   if (Math.abs(rise) > 1e-9 && feed) {
     nodes.push({ id: SUPPLY_NODE_ID, elevation: settings.defaults.sourceElevation });
@@ -127,7 +127,7 @@ interface Indexed {
   source: number;
 }
 
-function indexNetwork(network: Network): Indexed {
+function indexNetwork(network: Network, sourceNodeId: string): Indexed {
   const at = new Map(network.nodes.map((n, i) => [n.id, i]));
   const from = Int32Array.from(network.pipes, (p) => at.get(p.from)!);
   const to = Int32Array.from(network.pipes, (p) => at.get(p.to)!);
@@ -136,7 +136,7 @@ function indexNetwork(network: Network): Indexed {
     incident[from[k]!]!.push(k);
     incident[to[k]!]!.push(k);
   }
-  return { from, to, incident, source: network.sourceNodeId ? at.get(network.sourceNodeId)! : -1 };
+  return { from, to, incident, source: at.get(sourceNodeId)! };
 }
 
 /** Removes, repeatedly, end nodes that neither flow nor feed (their pipes carry no water), and what does not reach the source. */

@@ -9,7 +9,7 @@ import { INSIDE_DIAMETER, type NominalSize } from '../quantities/pipe-sizes.js';
 import { groupRuns } from './runs.js';
 import { sizesFromLabels } from './size-labels.js';
 import { snapStrokes, type Edge } from './snap.js';
-import type { BranchLine, DisconnectedPart, NetNode, NetPipe, Network, Topology } from './types.js';
+import type { BranchLine, DisconnectedPart, NetNode, NetPipe, NetSystem, Network } from './types.js';
 import { minOf, pushAll } from '../arrays.js';
 
 /** A source symbol may sit up to 2 ft from the pipe it feeds (common practice, no source). */
@@ -35,12 +35,13 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
     const n = g.attached[i]!;
     if (n >= 0 && !headAt.has(n)) headAt.set(n, h.id);
   });
-  const sourceRaw = plan.sources.map((_, i) => g.attached[plan.heads.length + i]!).find((n) => n >= 0) ?? -1;
+  const sourceRaws = plan.sources.map((_, i) => g.attached[plan.heads.length + i]!);
+  const isSourceRaw = new Set(sourceRaws.filter((n) => n >= 0));
 
   const chains = mergeChains(
     g.nodes.length,
     g.edges,
-    (n) => headAt.has(n) || n === sourceRaw,
+    (n) => headAt.has(n) || isSourceRaw.has(n),
     (e) => strokeSizes[e.stroke] ?? null,
   );
   // Renumber the nodes that remain pipe ends.
@@ -56,7 +57,7 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
   const nodes: NetNode[] = [...keep.entries()].map(([raw, i]) => ({
     id: `N${i + 1}`,
     position: g.nodes[raw]!,
-    isSource: raw === sourceRaw,
+    isSource: isSourceRaw.has(raw),
     ...(headAt.has(raw) ? { headId: headAt.get(raw)! } : {}),
   }));
   const schedule = settings.defaults.schedule;
@@ -90,13 +91,16 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
     const raw = g.attached[i]!;
     if (raw >= 0 && keep.has(raw) && !headNode[h.id]) headNode[h.id] = nodes[keep.get(raw)!]!.id;
   });
-  const sourceNodeId = sourceRaw >= 0 && keep.has(sourceRaw) ? nodes[keep.get(sourceRaw)!]!.id : null;
+  const sources = plan.sources.map((s, i) => {
+    const raw = sourceRaws[i]!;
+    return { handle: s.handle, nodeId: raw >= 0 && keep.has(raw) ? nodes[keep.get(raw)!]!.id : null };
+  });
   const unattachedHeadIds = plan.heads.filter((h) => !headNode[h.id]).map((h) => h.id);
   return classify(
     nodes,
     pipes,
     headNode,
-    sourceNodeId,
+    sources,
     unattachedHeadIds,
     plan.heads.map((h) => h.id),
   );
@@ -172,7 +176,7 @@ function classify(
   nodes: NetNode[],
   pipes: NetPipe[],
   headNode: Record<string, string>,
-  sourceNodeId: string | null,
+  sources: { handle: string; nodeId: string | null }[],
   unattachedHeadIds: string[],
   headOrder: string[],
 ): Network {
@@ -218,29 +222,42 @@ function classify(
   }
   const branchRuns = new Set(runHeads.keys());
 
-  // Reachability from the source, and heads carried downstream (over a breadth-first spanning tree).
+  // Reachability from each source, and heads carried downstream (over a breadth-first spanning forest, one
+  // tree per system). A source on piping an earlier source already reached shares that system.
   const reached = new Set<string>();
   const order: string[] = [];
   const parentPipe = new Map<string, NetPipe>();
-  if (sourceNodeId) {
-    reached.add(sourceNodeId);
-    order.push(sourceNodeId);
-    for (let i = 0; i < order.length; i++) {
+  const systemRoots: { handle: string; nodeId: string; shared: string[]; first: number }[] = [];
+  const systemOfNode = new Map<string, number>();
+  for (const s of sources) {
+    if (s.nodeId === null) continue;
+    if (reached.has(s.nodeId)) {
+      systemRoots[systemOfNode.get(s.nodeId)!]!.shared.push(s.handle);
+      continue;
+    }
+    const k = systemRoots.length;
+    systemRoots.push({ handle: s.handle, nodeId: s.nodeId, shared: [], first: order.length });
+    reached.add(s.nodeId);
+    order.push(s.nodeId);
+    systemOfNode.set(s.nodeId, k);
+    for (let i = order.length - 1; i < order.length; i++) {
       for (const p of incident.get(order[i]!)!) {
         const other = p.from === order[i] ? p.to : p.from;
         if (!reached.has(other)) {
           reached.add(other);
           order.push(other);
           parentPipe.set(other, p);
+          systemOfNode.set(other, k);
         }
       }
     }
   }
   const carried = new Map<string, number>();
   const below = new Map<string, number>(order.map((n) => [n, hasHead(n) ? 1 : 0]));
-  for (let i = order.length - 1; i > 0; i--) {
+  for (let i = order.length - 1; i >= 0; i--) {
     const n = order[i]!;
-    const p = parentPipe.get(n)!;
+    const p = parentPipe.get(n);
+    if (!p) continue; // a system's source
     carried.set(p.id, below.get(n)!);
     const up = p.from === n ? p.to : p.from;
     below.set(up, below.get(up)! + below.get(n)!);
@@ -263,19 +280,34 @@ function classify(
   }
 
   const branchLines = buildBranchLines(pipes, runHeads, nodeById, incident, headOrder, headNode);
-  const reachedPipes = pipes.filter((p) => reached.has(p.from));
-  const loops = reachedPipes.length - (reachedPipes.length ? reached.size : 0) + (reachedPipes.length ? 1 : 0);
-  const gridded = branchLines.some((b) => new Set(b.feedNodeIds.map((n) => mainRunAt(n, incident))).size >= 2);
-  const topology: Topology = loops <= 0 ? 'tree' : gridded ? 'grid' : 'loop';
   const headNodeIds = new Set(Object.values(headNode));
+  const pipeById = new Map(pipes.map((p) => [p.id, p]));
+  const systems = systemRoots.map((root, k): NetSystem => {
+    const nodeIds = order.slice(root.first, systemRoots[k + 1]?.first ?? order.length);
+    const own = new Set(nodeIds);
+    const pipeIds = pipes.filter((p) => own.has(p.from)).map((p) => p.id);
+    const lines = branchLines.filter((b) => own.has(pipeById.get(b.pipeIds[0]!)!.from));
+    const loops = Math.max(0, pipeIds.length - nodeIds.length + 1);
+    const gridded = lines.some((b) => new Set(b.feedNodeIds.map((n) => mainRunAt(n, incident))).size >= 2);
+    return {
+      id: root.handle,
+      sourceNodeId: root.nodeId,
+      sharedSourceHandles: root.shared,
+      nodeIds,
+      pipeIds,
+      headIds: headOrder.filter((h) => headNode[h] !== undefined && own.has(headNode[h]!)),
+      branchLineIds: lines.map((b) => b.id),
+      topology: loops === 0 ? 'tree' : gridded ? 'grid' : 'loop',
+      loops,
+    };
+  });
   return {
     nodes,
     pipes,
     branchLines,
     headNode,
-    sourceNodeId,
-    topology,
-    loops: Math.max(0, loops),
+    systems,
+    unattachedSourceHandles: sources.filter((s) => s.nodeId === null).map((s) => s.handle),
     unattachedHeadIds,
     disconnected: disconnectedParts(nodes, reached, incident, headNodeIds),
   };

@@ -56,16 +56,34 @@ export interface DisconnectedPart {
   at: Point;
 }
 
+/** The piping one source (riser) feeds: everything connected to it. */
+export interface NetSystem {
+  /** Handle of the source symbol: the system's name in reports. */
+  id: string;
+  sourceNodeId: string;
+  /** Handles of further sources drawn on the same piping (the system is calculated from the first). */
+  sharedSourceHandles: string[];
+  nodeIds: string[];
+  pipeIds: string[];
+  /** Heads on this system's piping, in drawing order. */
+  headIds: string[];
+  branchLineIds: string[];
+  topology: Topology;
+  /** Independent loops (pipes − nodes + 1). */
+  loops: number;
+}
+
 export interface Network {
   nodes: NetNode[];
   pipes: NetPipe[];
   branchLines: BranchLine[];
   /** Head id to node id. */
   headNode: Record<string, string>;
-  sourceNodeId: string | null;
-  topology: Topology;
-  /** Independent loops in the part fed from the source (pipes − nodes + 1). */
-  loops: number;
+  /** One per source on the piping, in the order the sources were drawn. */
+  systems: NetSystem[];
+  /** Handles of sources on no pipe. */
+  unattachedSourceHandles: string[];
   unattachedHeadIds: string[];
+  /** Piping no source feeds. */
   disconnected: DisconnectedPart[];
 }

@@ -1,6 +1,8 @@
 // What headcheck draws on a reviewed drawing, as plain primitives in feet: a ring and a label per finding,
-// design-area outlines with their numbers, head and pipe tags of the most demanding area, and a legend.
+// design-area outlines with their numbers, hazard zones, head and pipe tags of the most demanding areas, a legend.
 
+import type { DesignBasis } from '../basis/design-basis.js';
+import type { Zone } from '../zones/zones.js';
 import type { DesignAreas } from '../design-area/evaluate.js';
 import { boundsOf, type Point } from '../geometry/point.js';
 import type { Network } from '../network/types.js';
@@ -27,6 +29,7 @@ const LAYERS = {
   area: { name: 'HC-DESIGN-AREA', color: 6 },
   heads: { name: 'HC-HEAD-TAGS', color: 3 },
   pipes: { name: 'HC-PIPE-TAGS', color: 5 },
+  zones: { name: 'HC-ZONES', color: 8 },
   legend: { name: 'HC-LEGEND', color: 7 },
 } as const;
 
@@ -40,6 +43,9 @@ export interface AnnotationInput {
   design: DesignAreas;
   findings: Finding[];
   edition: string;
+  /** The configured design basis, and the hazard zones with theirs. */
+  basis: DesignBasis;
+  zones: Zone[];
   fmt: Formatter;
 }
 
@@ -61,6 +67,19 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
       height: h,
       text: findingLabel(f, fmt),
       color,
+    });
+  }
+  for (const zone of a.zones) {
+    prims.push({ kind: 'polyline', layer: LAYERS.zones.name, points: zone.outline, closed: true, color: LAYERS.zones.color });
+    const box = boundsOf(zone.outline);
+    const basis = `${zone.hazard}, ${fmt.density(zone.design.density)} over ${fmt.area(zone.design.area)}`;
+    prims.push({
+      kind: 'text',
+      layer: LAYERS.zones.name,
+      at: { x: box.minX + h, y: box.minY + h },
+      height: h,
+      text: `ZONE ${zone.label ?? zone.id}: ${zone.pattern === null ? `no basis given, design ${basis}` : basis}`,
+      color: LAYERS.zones.color,
     });
   }
   const areaName = {
@@ -85,10 +104,12 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
       color: areaColor[key],
     });
   }
-  const best = a.design.areas.find((x) => x.rank === 'most-demanding')?.hydraulics;
-  if (best) {
-    const nodeAt = new Map(a.network.nodes.map((n) => [n.id, n]));
-    const headOfNode = new Map(Object.entries(a.network.headNode).map(([head, node]) => [node, head]));
+  const nodeAt = new Map(a.network.nodes.map((n) => [n.id, n]));
+  const headOfNode = new Map(Object.entries(a.network.headNode).map(([head, node]) => [node, head]));
+  const pipeAt = new Map(a.network.pipes.map((p) => [p.id, p]));
+  // The pressures and flows of each system's (and zone's) most demanding area.
+  for (const best of a.design.areas.filter((x) => x.rank === 'most-demanding').map((x) => x.hydraulics)) {
+    if (!best) continue;
     for (const n of best.nodes.filter((x) => x.flow > 0)) {
       const node = nodeAt.get(n.id);
       if (!node) continue;
@@ -101,7 +122,6 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
         color: LAYERS.heads.color,
       });
     }
-    const pipeAt = new Map(a.network.pipes.map((p) => [p.id, p]));
     for (const p of best.pipes) {
       const pipe = pipeAt.get(p.id);
       if (!pipe) continue;
@@ -161,7 +181,7 @@ function legend(a: AnnotationInput, h: number): Primitive[] {
     `HEADCHECK REVIEW (${TOOL.name} ${TOOL.version})`,
     `Drawing: ${a.fileName.split(/[\\/]/).pop()}`,
     `Verdict: ${errors ? 'FAIL' : 'PASS'} - ${errors} errors, ${warnings} warnings`,
-    `Limits: ${a.edition}; density ${a.fmt.density(a.design.basis.density)} over ${a.fmt.area(a.design.basis.area)}`,
+    `Limits: ${a.edition}; ${a.basis.hazard}, density ${a.fmt.density(a.basis.density)} over ${a.fmt.area(a.basis.area)}`,
     ...(best
       ? [
           `Most demanding area: ${a.fmt.pressure(best.sourcePressure)} at ${a.fmt.flow(best.sourceFlow)} + ${a.fmt.flow(best.hoseAllowance)} hose`,

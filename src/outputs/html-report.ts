@@ -126,49 +126,58 @@ function findingsTable(findings: Reviewed['report']['findings']): string {
 }
 
 function designAreasHtml(result: Reviewed, fmt: ReturnType<typeof formatterFor>): string {
-  const { design } = result;
-  const basis = design.basis;
+  const { design, zoning } = result;
+  const basis = zoning.design.design;
+  const zoneName = (id: string | null) => (id === null ? '' : (zoning.zones.find((z) => z.id === id)!.label ?? id));
+  const groupName = (system: string | null, zone: string | null) =>
+    `${system === null ? 'no system' : `system ${system}`}${zone === null ? '' : `, zone ${zoneName(zone)}`}`;
   const head =
-    `<p>Design basis: ${esc(fmt.density(basis.density))} over ${esc(fmt.area(basis.area))} (${esc(basis.source)})` +
-    `${basis.adjustments.length ? `; ${basis.adjustments.map(esc).join('; ')}` : ''}; hose allowance ${esc(fmt.flow(basis.hoseAllowance))}, ${basis.durationMinutes} min.` +
-    `${design.shape ? ` Shape: length ≥ 1.2·√A = ${esc(fmt.length(design.shape.minLength))}, ${design.shape.headsAlong} heads along a line, ${design.shape.totalHeads} heads.` : ''}` +
-    `${design.search ? ` Search: ${design.search.candidates} candidate areas, ${design.search.evaluated} calculated, ${design.search.screened} ruled out by one solve${design.search.pruned ? ', the rest by a proven bound' : ''}.` : ''}</p>`;
+    `<p>Design basis: ${esc(basis.hazard)}, ${esc(fmt.density(basis.density))} over ${esc(fmt.area(basis.area))} (${esc(basis.source)})` +
+    `${basis.adjustments.length ? `; ${basis.adjustments.map(esc).join('; ')}` : ''}; hose allowance ${esc(fmt.flow(basis.hoseAllowance))}, ${basis.durationMinutes} min.</p>`;
+  const groups = design.groups.map((g) => {
+    const b = g.basis;
+    const search = g.search
+      ? ` Search: ${g.search.candidates} candidate areas, ${g.search.evaluated} calculated, ${g.search.screened} ruled out by one solve${g.search.pruned ? ', the rest by a proven bound' : ''}.`
+      : '';
+    return (
+      `<li><b>${esc(groupName(g.system, g.zone))}</b>: ${g.headIds.length} heads; ${esc(b.hazard)}, ${esc(fmt.density(b.density))} over ${esc(fmt.area(b.area))}, hose ${esc(fmt.flow(b.hoseAllowance))}.` +
+      `${g.shape ? ` Shape: length ≥ 1.2·√A = ${esc(fmt.length(g.shape.minLength))}, ${g.shape.headsAlong} heads along a line, ${g.shape.totalHeads} heads.` : ''}${search}</li>`
+    );
+  });
   const rows = design.areas.map((a) => {
     const hy = a.hydraulics;
     return (
-      `<tr><td>${esc(a.rank ?? 'drawn')}</td><td>${a.headIds.length}</td><td>${esc(fmt.length(a.length))}</td><td>${esc(fmt.length(a.width))}</td><td>${esc(fmt.area(a.actualArea))}</td>` +
+      `<tr><td>${esc(a.rank ?? 'drawn')}</td><td>${esc(a.system ?? '-')}</td><td>${esc(zoneName(a.zone) || '-')}</td><td>${a.headIds.length}</td><td>${esc(fmt.length(a.length))}</td><td>${esc(fmt.length(a.width))}</td><td>${esc(fmt.area(a.actualArea))}</td>` +
       `<td>${hy ? esc(fmt.pressure(hy.sourcePressure)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.sourceFlow)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.totalDemand)) : '-'}</td>` +
       `<td>${hy?.supplyAvailable != null ? esc(fmt.pressure(hy.supplyAvailable)) : '-'}</td><td>${hy?.margin != null ? esc(fmt.pressure(hy.margin)) : '-'}</td>` +
-      `<td>${hy?.handMethod ? esc(fmt.pressure(hy.handMethod.sourcePressure)) : '-'}</td></tr>`
+      `<td>${hy?.handMethod ? esc(fmt.pressure(hy.handMethod.sourcePressure)) : '-'}</td><td>${esc(a.note ?? '')}</td></tr>`
     );
   });
-  const best = design.areas.find((a) => a.rank === 'most-demanding')?.hydraulics ?? design.areas.find((a) => a.hydraulics)?.hydraulics;
-  const nodeRows = best
-    ? best.nodes
-        .map(
-          (n) =>
-            `<tr><td>${esc(n.id)}</td><td>${esc(fmt.pressure(n.pressure))}</td><td>${n.flow > 0 ? esc(fmt.flow(n.flow)) : ''}</td><td>${esc(fmt.length(n.elevation))}</td></tr>`,
-        )
-        .join('')
-    : '';
   const c = converterFor(fmt.system);
-  const pipeRows = best
-    ? best.pipes
-        .map(
-          (p) =>
-            `<tr><td>${esc(p.id)}</td><td>${esc(fmt.flow(Math.abs(p.flow)))}</td><td>${c.velocity(p.velocity).toFixed(2)}</td><td>${esc(fmt.pressure(p.frictionLoss))}</td><td>${esc(fmt.length(p.length))}</td><td>${esc(p.fittings.join(', '))}</td></tr>`,
-        )
-        .join('')
-    : '';
-  return `<section><h2>Design areas</h2>${head}
-<div class="scroll"><table id="areas"><thead><tr><th>area</th><th>heads</th><th>length</th><th>width</th><th>actual area</th><th>source pressure</th><th>source flow</th><th>with hose</th><th>supply</th><th>margin</th><th>hand method</th></tr></thead><tbody>${rows.join('')}</tbody></table></div>
-${
-  best
-    ? `<h3>Hydraulics of the most demanding area${best.riser.modelled === 'virtual' ? ` (riser modelled as a vertical ${esc(best.riser.nominalSize)}" pipe of ${esc(fmt.length(best.riser.length))}: static head and friction)` : ''}</h3>
-<details open><summary>Nodes (${best.nodes.length})</summary><div class="scroll"><table><thead><tr><th>node</th><th>pressure</th><th>flow</th><th>elevation</th></tr></thead><tbody>${nodeRows}</tbody></table></div></details>
-<details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>`
-    : ''
-}</section>`;
+  const demanding = design.areas.filter((a) => a.rank === 'most-demanding' && a.hydraulics);
+  const shown = demanding.length ? demanding : design.areas.filter((a) => a.hydraulics).slice(0, 1);
+  const tables = shown.map((a, k) => {
+    const best = a.hydraulics!;
+    const nodeRows = best.nodes
+      .map(
+        (n) =>
+          `<tr><td>${esc(n.id)}</td><td>${esc(fmt.pressure(n.pressure))}</td><td>${n.flow > 0 ? esc(fmt.flow(n.flow)) : ''}</td><td>${esc(fmt.length(n.elevation))}</td></tr>`,
+      )
+      .join('');
+    const pipeRows = best.pipes
+      .map(
+        (p) =>
+          `<tr><td>${esc(p.id)}</td><td>${esc(fmt.flow(Math.abs(p.flow)))}</td><td>${c.velocity(p.velocity).toFixed(2)}</td><td>${esc(fmt.pressure(p.frictionLoss))}</td><td>${esc(fmt.length(p.length))}</td><td>${esc(p.fittings.join(', '))}</td></tr>`,
+      )
+      .join('');
+    const where = shown.length > 1 || design.groups.length > 1 ? ` (${esc(groupName(a.system, a.zone))})` : '';
+    return `<h3>Hydraulics of the ${a.rank ? 'most demanding' : 'drawn'} area${where}${best.riser.modelled === 'virtual' ? ` (riser modelled as a vertical ${esc(best.riser.nominalSize)}" pipe of ${esc(fmt.length(best.riser.length))}: static head and friction)` : ''}</h3>
+<details${k === 0 ? ' open' : ''}><summary>Nodes (${best.nodes.length})</summary><div class="scroll"><table><thead><tr><th>node</th><th>pressure</th><th>flow</th><th>elevation</th></tr></thead><tbody>${nodeRows}</tbody></table></div></details>
+<details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>`;
+  });
+  return `<section><h2>Design areas</h2>${head}${groups.length ? `<ul>${groups.join('')}</ul>` : ''}
+<div class="scroll"><table id="areas"><thead><tr><th>area</th><th>system</th><th>zone</th><th>heads</th><th>length</th><th>width</th><th>actual area</th><th>source pressure</th><th>source flow</th><th>with hose</th><th>supply</th><th>margin</th><th>hand method</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table></div>
+${tables.join('\n')}</section>`;
 }
 
 function supplyHtml(result: Reviewed, c: ReturnType<typeof converterFor>, u: (typeof REPORT_UNITS)['us']): string {

@@ -10,6 +10,8 @@ import { messageOf } from '../rules/messages.js';
 import type { Quantity, Severity } from '../rules/types.js';
 import { TOOL } from '../version.js';
 import { CAUTION } from './caution.js';
+import type { Limits } from '../basis/limits.js';
+import type { SearchStats } from '../design-area/evaluate.js';
 import type { Reviewed } from './reviewed.js';
 
 export interface ReportFinding {
@@ -69,26 +71,74 @@ export interface Report {
     minLength: number | null;
     headsAlong: number | null;
     totalHeads: number | null;
-    search: { candidates: number; evaluated: number; screened: number; solves: number; pruned: boolean } | null;
+    /** The searches of every group, added up. */
+    search: SearchStats | null;
+    /** One design-area search per system, and per zone within it. */
+    groups: {
+      system: string;
+      zone: string | null;
+      zoneId: string | null;
+      hazard: string;
+      density: number;
+      area: number;
+      hoseAllowance: number;
+      heads: number;
+      minLength: number | null;
+      headsAlong: number | null;
+      totalHeads: number | null;
+      search: SearchStats | null;
+    }[];
   };
-  summary: { heads: number; pipes: number; errors: number; warnings: number; pass: boolean };
-  network: { topology: string; loops: number; branchLines: { id: string; heads: string[]; pipes: string[] }[]; source: string | null };
+  summary: { heads: number; pipes: number; systems: number; zones: number; errors: number; warnings: number; pass: boolean };
+  network: {
+    systems: {
+      id: string;
+      sourceNode: string;
+      sharedSources: string[];
+      heads: number;
+      pipes: number;
+      branchLines: string[];
+      topology: string;
+      loops: number;
+    }[];
+    branchLines: { id: string; heads: string[]; pipes: string[] }[];
+  };
   layers: { role: LayerRole; layers: string[]; from: string; reason: string }[];
-  limits: {
-    edition: string;
-    hazardGroup: string;
-    maxArea: number;
-    maxSpacing: number;
-    maxWallDistance: number;
-    minWallDistance: number;
-    minHeadDistance: number;
-  };
+  /** The limits of the configured design (heads in no zone). */
+  limits: ReportLimits;
+  zones: {
+    id: string;
+    label: string | null;
+    handle: string;
+    pattern: string | null;
+    hazard: string;
+    density: number;
+    area: number;
+    hoseAllowance: number;
+    heads: string[];
+    limits: ReportLimits;
+  }[];
   caution: string;
+}
+
+interface ReportLimits {
+  edition: string;
+  hazardGroup: string;
+  maxArea: number;
+  maxSpacing: number;
+  maxWallDistance: number;
+  minWallDistance: number;
+  minHeadDistance: number;
 }
 
 export interface ReportDesignArea {
   source: 'drawn' | 'search';
   rank: 'most-demanding' | 'runner-up' | null;
+  /** The system (its source's handle) and the zone (its label) the area belongs to. */
+  system: string | null;
+  zone: string | null;
+  zoneId: string | null;
+  hazard: string;
   density: number;
   area: number;
   minLength: number | null;
@@ -205,58 +255,121 @@ export function buildReport(r: ReportInput): Report {
     })),
     findings,
     designAreas: designAreasOf(r, c),
-    design: {
-      hazard: r.design.basis.hazard,
-      density: round(c.density(r.design.basis.density), 5),
-      area: round(c.area(r.design.basis.area)),
-      baseArea: round(c.area(r.design.basis.baseArea)),
-      hoseAllowance: round(c.flow(r.design.basis.hoseAllowance)),
-      durationMinutes: r.design.basis.durationMinutes,
-      adjustments: r.design.basis.adjustments,
-      basisFrom: r.design.basis.source,
-      minLength: r.design.shape ? len(r.design.shape.minLength) : null,
-      headsAlong: r.design.shape?.headsAlong ?? null,
-      totalHeads: r.design.shape?.totalHeads ?? null,
-      search: r.design.search,
-    },
+    design: designOf(r, c),
     summary: {
       heads: r.plan.heads.length,
       pipes: r.network.pipes.length,
+      systems: r.network.systems.length,
+      zones: r.zoning.zones.length,
       errors: findings.filter((f) => f.severity === 'error').length,
       warnings: findings.filter((f) => f.severity === 'warning').length,
       pass: !findings.some((f) => f.severity === 'error'),
     },
     network: {
-      topology: r.network.topology,
-      loops: r.network.loops,
-      source: r.network.sourceNodeId,
+      systems: r.network.systems.map((s) => ({
+        id: s.id,
+        sourceNode: s.sourceNodeId,
+        sharedSources: s.sharedSourceHandles,
+        heads: s.headIds.length,
+        pipes: s.pipeIds.length,
+        branchLines: s.branchLineIds,
+        topology: s.topology,
+        loops: s.loops,
+      })),
       branchLines: r.network.branchLines.map((b) => ({ id: b.id, heads: b.headIds, pipes: b.pipeIds })),
     },
     layers: LAYER_ROLES.map((role) => ({ role, ...r.plan.roles[role] })),
-    limits: {
-      edition: r.limits.edition,
-      hazardGroup: r.limits.hazardGroup,
-      maxArea: round(c.area(r.limits.maxArea)),
-      maxSpacing: len(r.limits.maxSpacing),
-      maxWallDistance: len(r.limits.maxWallDistance),
-      minWallDistance: len(r.limits.minWallDistance),
-      minHeadDistance: len(r.limits.minHeadDistance),
-    },
+    limits: limitsOf(r.zoning.design.limits, c),
+    zones: r.zoning.zones.map((z) => ({
+      id: z.id,
+      label: z.label,
+      handle: z.handle,
+      pattern: z.pattern,
+      hazard: z.hazard,
+      density: round(c.density(z.design.density), 5),
+      area: round(c.area(z.design.area)),
+      hoseAllowance: round(c.flow(z.design.hoseAllowance)),
+      heads: z.headIds,
+      limits: limitsOf(z.limits, c),
+    })),
     caution: CAUTION,
   };
 }
 
-function designAreasOf(r: ReportInput, c: ReturnType<typeof converterFor>): ReportDesignArea[] {
+type Converter = ReturnType<typeof converterFor>;
+
+function limitsOf(l: Limits, c: Converter): ReportLimits {
+  return {
+    edition: l.edition,
+    hazardGroup: l.hazardGroup,
+    maxArea: round(c.area(l.maxArea)),
+    maxSpacing: round(c.length(l.maxSpacing)),
+    maxWallDistance: round(c.length(l.maxWallDistance)),
+    minWallDistance: round(c.length(l.minWallDistance)),
+    minHeadDistance: round(c.length(l.minHeadDistance)),
+  };
+}
+
+/** The configured design, the shape of its first search, and every search's figures. */
+function designOf(r: ReportInput, c: Converter): Report['design'] {
+  const basis = r.zoning.design.design;
+  const groups = r.design.groups;
+  const first = groups.find((g) => g.zone === null) ?? groups[0];
+  const searches = groups.flatMap((g) => (g.search ? [g.search] : []));
+  const labelOf = (zone: string | null) => (zone === null ? null : (r.zoning.zones.find((z) => z.id === zone)!.label ?? zone));
+  return {
+    hazard: basis.hazard,
+    density: round(c.density(basis.density), 5),
+    area: round(c.area(basis.area)),
+    baseArea: round(c.area(basis.baseArea)),
+    hoseAllowance: round(c.flow(basis.hoseAllowance)),
+    durationMinutes: basis.durationMinutes,
+    adjustments: basis.adjustments,
+    basisFrom: basis.source,
+    minLength: first?.shape ? round(c.length(first.shape.minLength)) : null,
+    headsAlong: first?.shape?.headsAlong ?? null,
+    totalHeads: first?.shape?.totalHeads ?? null,
+    search: searches.length
+      ? {
+          candidates: searches.reduce((n, s) => n + s.candidates, 0),
+          evaluated: searches.reduce((n, s) => n + s.evaluated, 0),
+          screened: searches.reduce((n, s) => n + s.screened, 0),
+          solves: searches.reduce((n, s) => n + s.solves, 0),
+          pruned: searches.every((s) => s.pruned),
+        }
+      : null,
+    groups: groups.map((g) => ({
+      system: g.system,
+      zone: labelOf(g.zone),
+      zoneId: g.zone,
+      hazard: g.basis.hazard,
+      density: round(c.density(g.basis.density), 5),
+      area: round(c.area(g.basis.area)),
+      hoseAllowance: round(c.flow(g.basis.hoseAllowance)),
+      heads: g.headIds.length,
+      minLength: g.shape ? round(c.length(g.shape.minLength)) : null,
+      headsAlong: g.shape?.headsAlong ?? null,
+      totalHeads: g.shape?.totalHeads ?? null,
+      search: g.search,
+    })),
+  };
+}
+
+function designAreasOf(r: ReportInput, c: Converter): ReportDesignArea[] {
   const handleOf = new Map(r.plan.heads.map((h) => [h.id, h.handle]));
-  const basis = r.design.basis;
   return r.design.areas.map((a) => {
     const h = a.hydraulics;
+    const zone = a.zone === null ? null : r.zoning.zones.find((z) => z.id === a.zone)!;
     return {
       source: a.source,
       rank: a.rank,
-      density: round(c.density(basis.density), 5),
-      area: round(c.area(basis.area)),
-      minLength: r.design.shape ? round(c.length(r.design.shape.minLength)) : null,
+      system: a.system,
+      zone: zone ? (zone.label ?? zone.id) : null,
+      zoneId: a.zone,
+      hazard: a.basis.hazard,
+      density: round(c.density(a.basis.density), 5),
+      area: round(c.area(a.basis.area)),
+      minLength: a.shape ? round(c.length(a.shape.minLength)) : null,
       length: round(c.length(a.length)),
       width: round(c.length(a.width)),
       actualArea: round(c.area(a.actualArea)),

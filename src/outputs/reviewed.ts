@@ -1,7 +1,7 @@
 // A drawing as the outputs see it once checked: what was read, rebuilt, measured and found, with the report and
 // the choices the check was made with. Every output is a function of this alone.
 
-import type { Limits } from '../basis/limits.js';
+import type { Zoning } from '../zones/zones.js';
 import type { Settings } from '../config/settings.js';
 import type { Coverage } from '../coverage/coverage.js';
 import type { DesignAreas } from '../design-area/evaluate.js';
@@ -23,7 +23,8 @@ export interface Reviewed {
   plan: Plan;
   network: Network;
   coverage: Map<string, Coverage>;
-  limits: Limits;
+  /** Hazard zones, and the design basis and limits of each head. */
+  zoning: Zoning;
   design: DesignAreas;
   findings: Finding[];
   report: Report;

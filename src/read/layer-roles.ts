@@ -36,6 +36,7 @@ const NAME_HINTS: Record<LayerRole, RegExp> = {
   walls: /wall|a-wal|mur|wand|partition/i,
   designArea: /remote|design.?area|calc.?area|hyd.?area|fp-area/i,
   source: /riser|source|supply|poc|fdc|steig/i,
+  zones: /zone|hazard|occupan/i,
 };
 
 /** Words of our own choosing that name a sprinkler head (block names) and its attributes (tags). */
@@ -127,6 +128,8 @@ function looksLike(layer: LayerSummary, role: NamedRole): boolean {
     case 'walls':
     case 'designArea':
       return layer.outlines > 0 || layer.strokes > 0;
+    case 'zones':
+      return layer.outlines > 0;
     case 'source':
       return layer.refs > 0 || layer.points > 0;
   }

@@ -1,5 +1,5 @@
 // Sorts a Drawing's content by role into a Plan: heads (with K-factor and elevation), pipe strokes,
-// walls and rooms, drawn design areas, water sources and pipe-size labels, all in feet and US units.
+// walls and rooms, drawn design areas, water sources, pipe-size labels and hazard zones, all in feet and US units.
 
 import { compilePatterns } from '../config/patterns.js';
 import type { Settings } from '../config/settings.js';
@@ -46,6 +46,9 @@ export interface Plan {
   designAreas: Outline[];
   sources: Source[];
   labels: TextItem[];
+  /** Hazard-zone outlines, and the texts on zone layers that name them. */
+  zones: Outline[];
+  zoneTexts: TextItem[];
 }
 
 /**
@@ -81,6 +84,7 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
   const onWalls = onRoles(roles, 'walls');
   const onArea = onRoles(roles, 'designArea');
   const onSource = onRoles(roles, 'source');
+  const onZones = onRoles(roles, 'zones');
   const headBlock = compilePatterns(headBlocksOf(drawing, settings));
   const si = settings.unitSystem === 'si';
 
@@ -140,6 +144,8 @@ export function planFromDrawing(drawing: Drawing, settings: Settings): Plan {
     designAreas: drawing.outlines.filter((o) => onArea(o.layer)),
     sources,
     labels: drawing.texts.filter((t) => isLabelLayer(t.layer, roles)),
+    zones: drawing.outlines.filter((o) => onZones(o.layer)),
+    zoneTexts: drawing.texts.filter((t) => onZones(t.layer)),
   };
 }
 

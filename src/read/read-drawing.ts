@@ -33,8 +33,8 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
   const flat = flatten(raw, FEET_PER_UNIT[units!], limits, {
     refs: onRoles(roles, 'heads', 'source'),
     strokes: onRoles(roles, 'pipes', 'walls'),
-    outlines: onRoles(roles, 'walls', 'designArea'),
-    texts: (layer) => isLabelLayer(layer, roles),
+    outlines: onRoles(roles, 'walls', 'designArea', 'zones'),
+    texts: (layer) => isLabelLayer(layer, roles) || roles.zones.layers.includes(layer),
     points: onRoles(roles, 'source'),
     symbols: onRoles(roles, 'heads'),
   });

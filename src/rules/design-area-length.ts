@@ -11,11 +11,10 @@ export const designAreaLength: Rule<'design-area-length'> = {
     reference: 'NFPA 13 (2019 edition), 28.2.4.2.1: length parallel to the branch lines ≥ 1.2·√A (confirmed in the handbook)',
   },
   check({ design }) {
-    const min = design.shape?.minLength;
-    if (min === undefined) return [];
-    return design.areas
-      .filter((a) => a.source === 'drawn' && a.length < min - 1e-6)
-      .map((a) =>
+    return design.areas.flatMap((a) => {
+      const min = a.shape?.minLength;
+      if (a.source !== 'drawn' || min === undefined || a.length >= min - 1e-6) return [];
+      return [
         finding(this.meta, {
           params: { length: a.length, min },
           handles: a.handle ? [a.handle] : [],
@@ -24,6 +23,7 @@ export const designAreaLength: Rule<'design-area-length'> = {
           limit: min,
           quantity: 'length',
         }),
-      );
+      ];
+    });
   },
 };

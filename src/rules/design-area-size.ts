@@ -11,20 +11,20 @@ export const designAreaSize: Rule<'design-area-size'> = {
     reference: 'NFPA 13 (2019 edition), 19.3.3: the design area (confirmed); whole heads, rounded up (common practice)',
   },
   check({ design }) {
-    const need = design.shape?.totalHeads ?? 0;
     return design.areas
       .filter((a) => a.source === 'drawn')
       .flatMap((a) => {
+        const need = a.shape?.totalHeads ?? 0;
         const at = a.outline[0]!;
         const handles = a.handle ? [a.handle] : [];
-        if (a.actualArea < design.basis.area - 1e-6) {
+        if (a.actualArea < a.basis.area - 1e-6) {
           return [
             finding(this.meta, {
-              params: { kind: 'area', area: a.actualArea, heads: a.headIds.length, required: design.basis.area },
+              params: { kind: 'area', area: a.actualArea, heads: a.headIds.length, required: a.basis.area },
               handles,
               at,
               measured: a.actualArea,
-              limit: design.basis.area,
+              limit: a.basis.area,
               quantity: 'area',
             }),
           ];

@@ -7,6 +7,7 @@ import { pointBox, type IndexedBox } from '../geometry/boxes.js';
 import { distance } from '../geometry/point.js';
 import type { Head } from '../read/plan.js';
 import { isStandardSpray } from './standard-heads.js';
+import { basisOfHead } from '../zones/zones.js';
 import { finding, type Rule } from './types.js';
 
 export const headDistanceMin: Rule<'head-distance-min'> = {
@@ -16,12 +17,14 @@ export const headDistanceMin: Rule<'head-distance-min'> = {
     severity: 'error',
     reference: 'NFPA 13 (2019 edition), 10.2.5.3.1: 6 ft between heads unless baffles separate them (from memory)',
   },
-  check({ plan, limits }) {
+  check({ plan, zoning }) {
     const heads = plan.heads.filter(isStandardSpray);
-    const r = limits.minHeadDistance;
-    const clusters = tooClose(heads, r);
+    const limitsOf = heads.map((h) => basisOfHead(zoning, h).limits);
+    const clusters = tooClose(heads, (i) => limitsOf[i]!.minHeadDistance);
     return clusters.map(({ members, least }) => {
       const first = heads[members[0]!]!;
+      const limits = limitsOf[members[0]!]!;
+      const r = Math.max(...members.map((i) => limitsOf[i]!.minHeadDistance));
       return finding(this.meta, {
         params: { heads: members.map((i) => heads[i]!.id), least, limit: r },
         handles: [...new Set(members.map((i) => heads[i]!.handle))],
@@ -35,8 +38,12 @@ export const headDistanceMin: Rule<'head-distance-min'> = {
   },
 };
 
-/** Groups of heads joined by pairs closer than r (each group in drawing order), with the least distance of each. */
-function tooClose(heads: Head[], r: number): { members: number[]; least: number }[] {
+/**
+ * Groups of heads joined by pairs closer than the larger of their two least distances (each group in drawing
+ * order), with the least distance of each.
+ */
+function tooClose(heads: Head[], rOf: (i: number) => number): { members: number[]; least: number }[] {
+  const r = heads.reduce((m, _, i) => Math.max(m, rOf(i)), 0);
   const tree = new RBush<IndexedBox>();
   tree.load(heads.map((h, i) => pointBox(h.position, i)));
   const parent = heads.map((_, i) => i);
@@ -49,7 +56,7 @@ function tooClose(heads: Head[], r: number): { members: number[]; least: number 
     for (const b of tree.search({ minX: h.position.x - r, minY: h.position.y - r, maxX: h.position.x + r, maxY: h.position.y + r })) {
       if (b.i <= i) continue;
       const d = distance(h.position, heads[b.i]!.position);
-      if (d >= r - 1e-6) continue;
+      if (d >= Math.max(rOf(i), rOf(b.i)) - 1e-6) continue;
       const [a, c] = [root(i), root(b.i)];
       if (a !== c) parent[Math.max(a, c)] = Math.min(a, c);
       least.set(i, Math.min(least.get(i) ?? Infinity, d));

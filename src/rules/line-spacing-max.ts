@@ -2,6 +2,8 @@
 // line) must not exceed the hazard's maximum spacing; reported once per line, at its widest.
 
 import { isStandardSpray } from './standard-heads.js';
+import type { Limits } from '../basis/limits.js';
+import { basisOfHead } from '../zones/zones.js';
 import { finding, type Rule } from './types.js';
 
 export const lineSpacingMax: Rule<'line-spacing-max'> = {
@@ -11,24 +13,25 @@ export const lineSpacingMax: Rule<'line-spacing-max'> = {
     severity: 'error',
     reference: 'NFPA 13 (2019 edition), Table 10.2.4.2.1(a)-(c): 15 ft LH/OH, 12 ft EH (from memory)',
   },
-  check({ plan, coverage, limits }) {
-    const worst = new Map<string, { d: number; handle: string; at: { x: number; y: number } }>();
+  check({ plan, coverage, zoning }) {
+    const worst = new Map<string, { d: number; handle: string; at: { x: number; y: number }; limits: Limits }>();
     for (const h of plan.heads.filter(isStandardSpray)) {
+      const { limits } = basisOfHead(zoning, h);
       const c = coverage.get(h.id);
       const left = c?.lineAcross[0];
       if (!c || left === null || left === undefined || left <= limits.maxSpacing + 1e-6) continue;
       const prev = worst.get(c.branchLine);
-      if (!prev || left > prev.d) worst.set(c.branchLine, { d: left, handle: h.handle, at: h.position });
+      if (!prev || left > prev.d) worst.set(c.branchLine, { d: left, handle: h.handle, at: h.position, limits });
     }
     return [...worst.entries()].map(([line, w]) =>
       finding(this.meta, {
-        params: { line, distance: w.d, limit: limits.maxSpacing },
+        params: { line, distance: w.d, limit: w.limits.maxSpacing },
         handles: [w.handle],
         at: w.at,
         measured: w.d,
-        limit: limits.maxSpacing,
+        limit: w.limits.maxSpacing,
         quantity: 'length',
-        reference: limits.sources.maxSpacing,
+        reference: w.limits.sources.maxSpacing,
       }),
     );
   },

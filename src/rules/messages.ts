@@ -10,10 +10,16 @@ import type { Finding, FindingKind } from './types.js';
 export interface FindingParams {
   'config-units-header': { config: LengthUnit; header: LengthUnit };
   'config-units-mixed': { key: string; written: number; unit: string; otherUnit: string; otherSystem: string };
-  'design-basis-below-curve':
+  'design-basis-below-curve': { zone: string | null } & (
     | { kind: 'area'; hazard: Hazard; area: number; minArea: number; startDensity: number }
-    | { kind: 'density'; hazard: Hazard; density: number; area: number; need: number; atArea: number };
-  'source-unattached': { reach: number };
+    | { kind: 'density'; hazard: Hazard; density: number; area: number; need: number; atArea: number }
+  );
+  'source-unattached': { kind: 'off-piping'; reach: number } | { kind: 'shared'; system: string };
+  'hydraulics-not-evaluated':
+    | { kind: 'no-pipes'; layers: string[] }
+    | { kind: 'no-source'; layers: string[] }
+    | { kind: 'source-off-piping'; sources: number };
+  'zone-unmatched': { zone: string; label: string | null; heads: number; hazard: Hazard };
   'head-unattached': { head: string; reach: number };
   'network-disconnected': { pipes: number; heads: string[] };
   'protection-area': { head: string; area: number; s: number; l: number; limit: number };
@@ -54,7 +60,14 @@ export interface FindingParams {
     | { kind: 'velocity-pressure' }
     | { kind: 'not-calculated'; source: 'drawn' | 'search'; note: string };
   'pipe-size-defaulted': { pipes: string[]; size: string; reach: number; unreadLabels: string[] };
-  'network-topology': { topology: 'tree' | 'loop' | 'grid'; loops: number; lines: number; pipes: number };
+  'network-topology': {
+    system: string;
+    systems: number;
+    topology: 'tree' | 'loop' | 'grid';
+    loops: number;
+    lines: number;
+    pipes: number;
+  };
   'findings-not-listed': { rule: string; more: number; shown: number };
 }
 
@@ -76,10 +89,28 @@ export const MESSAGES: Templates = {
   'config-units-mixed': (p) =>
     `"${p.key}" ${p.written} ${p.unit} is unusual for a design, ${p.written} ${p.otherUnit} is not: is "unitSystem": "${p.otherSystem}" meant, or the value written in the wrong unit?`,
   'design-basis-below-curve': (p, fmt) =>
-    p.kind === 'area'
+    (p.zone === null ? '' : `zones "${p.zone}": `) +
+    (p.kind === 'area'
       ? `the design area ${fmt.area(p.area)} is under the least area of the ${p.hazard} curve, ${fmt.area(p.minArea)} (its point: ${fmt.density(p.startDensity)} over ${fmt.area(p.minArea)})`
-      : `the design density ${fmt.density(p.density)} over ${fmt.area(p.area)} is below the ${p.hazard} curve, which asks ${fmt.density(p.need)} at ${fmt.area(p.atArea)}`,
-  'source-unattached': (p, fmt) => `the water source is not on any pipe (nothing within ${fmt.length(p.reach)})`,
+      : `the design density ${fmt.density(p.density)} over ${fmt.area(p.area)} is below the ${p.hazard} curve, which asks ${fmt.density(p.need)} at ${fmt.area(p.atArea)}`),
+  'source-unattached': (p, fmt) =>
+    p.kind === 'off-piping'
+      ? `the water source is not on any pipe (nothing within ${fmt.length(p.reach)})`
+      : `this water source is on the piping of the source ${p.system}: the system is calculated from ${p.system} alone`,
+  'hydraulics-not-evaluated': (p) => {
+    switch (p.kind) {
+      case 'no-pipes':
+        return `no hydraulic calculation: the drawing has no piping (pipe layers: ${p.layers.length ? p.layers.join(', ') : 'none found'}); the heads' spacing, coverage and walls are checked`;
+      case 'no-source':
+        return `no hydraulic calculation: no water source is drawn (source layers: ${p.layers.length ? p.layers.join(', ') : 'none found'}); draw the riser as a block or point and set "layers.source"`;
+      case 'source-off-piping':
+        return `no hydraulic calculation: ${p.sources === 1 ? 'the water source is' : `none of the ${p.sources} water sources is`} on a pipe`;
+    }
+  },
+  'zone-unmatched': (p) =>
+    p.label === null
+      ? `zone ${p.zone} holds no label text: its ${plural(p.heads, 'head')} take the design basis (${p.hazard})`
+      : `zone ${p.zone} "${p.label}" matches no pattern of "zones": its ${plural(p.heads, 'head')} take the design basis (${p.hazard})`,
   'head-unattached': (p, fmt) => `head ${p.head} is not on any pipe (nothing within ${fmt.short(p.reach)})`,
   'network-disconnected': (p) =>
     p.heads.length
@@ -151,7 +182,8 @@ export const MESSAGES: Templates = {
         : p.topology === 'grid'
           ? `a grid (branch lines fed from both ends; ${plural(p.loops, 'loop')})`
           : `looped (${plural(p.loops, 'loop')})`;
-    return `the piping is ${form}: ${plural(p.lines, 'branch line')}, ${plural(p.pipes, 'pipe')}`;
+    const which = p.systems > 1 ? `the system fed from ${p.system}` : 'the piping';
+    return `${which} is ${form}: ${plural(p.lines, 'branch line')}, ${plural(p.pipes, 'pipe')}`;
   },
   'findings-not-listed': (p) => `${p.more} more findings of ${p.rule} are not listed (the first ${p.shown} are)`,
 };

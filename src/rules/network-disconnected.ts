@@ -11,7 +11,7 @@ export const networkDisconnected: Rule<'network-disconnected'> = {
     reference: 'common practice, no source: every head must have a path to the water source',
   },
   check({ network }) {
-    if (!network.sourceNodeId) return [];
+    if (network.systems.length === 0) return [];
     return network.disconnected.map((part) =>
       finding(this.meta, {
         severity: part.headIds.length ? 'error' : 'warning',

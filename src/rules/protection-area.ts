@@ -2,6 +2,7 @@
 // (130 ft² ordinary hazard, 225 ft² light, 100 ft² extra; the limit table names the sources).
 
 import { isStandardSpray } from './standard-heads.js';
+import { basisOfHead } from '../zones/zones.js';
 import { finding, type Rule } from './types.js';
 
 export const protectionArea: Rule<'protection-area'> = {
@@ -11,8 +12,9 @@ export const protectionArea: Rule<'protection-area'> = {
     severity: 'error',
     reference: 'NFPA 13 (2019 edition), Table 10.2.4.2.1(a)-(c): 225 ft² LH, 130 ft² OH, 100 ft² EH (confirmed)',
   },
-  check({ plan, coverage, limits }) {
+  check({ plan, coverage, zoning }) {
     return plan.heads.filter(isStandardSpray).flatMap((h) => {
+      const { limits } = basisOfHead(zoning, h);
       const c = coverage.get(h.id);
       if (!c || c.area === null || c.area <= limits.maxArea + 1e-6) return [];
       return [

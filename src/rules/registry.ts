@@ -15,6 +15,7 @@ import { headOutsideRoom } from './head-outside-room.js';
 import { headSpacingMax } from './head-spacing-max.js';
 import { headTypeUnchecked } from './head-type-unchecked.js';
 import { headUnattached } from './head-unattached.js';
+import { hydraulicsNotEvaluated } from './hydraulics-not-evaluated.js';
 import { lineSpacingMax } from './line-spacing-max.js';
 import { networkDisconnected } from './network-disconnected.js';
 import { networkTopology } from './network-topology.js';
@@ -25,11 +26,14 @@ import { supplyShort } from './supply-short.js';
 import { finding, type Finding, type Rule, type RuleContext } from './types.js';
 import { wallDistanceMax } from './wall-distance-max.js';
 import { wallDistanceMin } from './wall-distance-min.js';
+import { zoneUnmatched } from './zone-unmatched.js';
 
 export const RULES: readonly Rule[] = [
   configUnitsHeader,
   configUnitsMixed,
   designBasisBelowCurve,
+  zoneUnmatched,
+  hydraulicsNotEvaluated,
   sourceUnattached,
   headUnattached,
   networkDisconnected,

@@ -9,6 +9,7 @@ ruleTester(sourceUnattached, {
   valid: [
     { name: 'the riser at the end of the feed main', layout },
     { name: 'the riser 1.5 ft off it (within 2 ft)', layout: { ...layout, sourceOffset: { x: 0, y: -1.5 } } },
+    { name: 'a layout without piping yet: said by hydraulics-not-evaluated', layout: { ...layout, noPipes: true } },
   ],
   invalid: [
     {
@@ -16,7 +17,7 @@ ruleTester(sourceUnattached, {
       layout: { ...layout, sourceOffset: { x: 0, y: -4 } },
       count: 1,
       severity: 'error',
-      params: { reach: 2 },
+      params: { kind: 'off-piping', reach: 2 },
     },
   ],
 });

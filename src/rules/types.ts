@@ -1,7 +1,7 @@
 // What a rule is: stable id, metadata (title, published reference, severity) and a pure check over the rebuilt
 // plan that returns findings as data: the rule's id and its parameters. Their words are in messages.ts, one table.
 
-import type { Limits } from '../basis/limits.js';
+import type { Zoning } from '../zones/zones.js';
 import type { Settings } from '../config/settings.js';
 import type { Coverage } from '../coverage/coverage.js';
 import type { Walls } from '../coverage/walls.js';
@@ -47,7 +47,8 @@ export interface RuleContext {
   plan: Plan;
   network: Network;
   settings: Settings;
-  limits: Limits;
+  /** Hazard zones: each head's design basis and limits (`limitsOf`). */
+  zoning: Zoning;
   coverage: Map<string, Coverage>;
   walls: Walls;
   /** Drawn and searched design areas with their hydraulics. */

@@ -3,6 +3,7 @@
 
 import { maxOf } from '../arrays.js';
 import { isStandardSpray } from './standard-heads.js';
+import { basisOfHead } from '../zones/zones.js';
 import { finding, type Rule } from './types.js';
 
 export const wallDistanceMax: Rule<'wall-distance-max'> = {
@@ -12,8 +13,9 @@ export const wallDistanceMax: Rule<'wall-distance-max'> = {
     severity: 'error',
     reference: 'NFPA 13 (2019 edition), 10.2.5.2.1: half the allowed maximum spacing (confirmed)',
   },
-  check({ plan, coverage, limits }) {
+  check({ plan, coverage, zoning }) {
     return plan.heads.filter(isStandardSpray).flatMap((h) => {
+      const { limits } = basisOfHead(zoning, h);
       const c = coverage.get(h.id);
       if (!c) return [];
       const d = maxOf([...c.wallAlong, ...c.wallAcross].filter((x): x is number => x !== null));

@@ -2,6 +2,7 @@
 // direction), so its spray pattern develops.
 
 import { isStandardSpray } from './standard-heads.js';
+import { basisOfHead } from '../zones/zones.js';
 import { finding, type Rule } from './types.js';
 
 export const wallDistanceMin: Rule<'wall-distance-min'> = {
@@ -11,8 +12,9 @@ export const wallDistanceMin: Rule<'wall-distance-min'> = {
     severity: 'error',
     reference: 'NFPA 13 (2019 edition), 10.2.5.2.3: 4 in (confirmed)',
   },
-  check({ plan, walls, limits }) {
+  check({ plan, walls, zoning }) {
     return plan.heads.filter(isStandardSpray).flatMap((h) => {
+      const { limits } = basisOfHead(zoning, h);
       const d = walls.nearest(h.position, limits.minWallDistance * 2);
       if (d === null || d >= limits.minWallDistance - 1e-6) return [];
       return [
