@@ -275,6 +275,96 @@ def first_contact(out):
     (out / "first-contact.truth.json").write_text(json.dumps(truth, indent=2, ensure_ascii=False) + "\n", encoding="utf-8")
 
 
+def pipe_label(msp, text, x, y):
+    msp.add_text(text, dxfattribs={"layer": "FP-PIPE", "height": 4, "insert": p(x, y)})
+
+
+def new_building():
+    doc = ezdxf.new("AC1027")
+    doc.header["$INSUNITS"] = 1
+    for name in ("FP-HEAD", "FP-PIPE", "A-WALL", "FP-SOURCE", "FP-ZONE"):
+        doc.layers.new(name)
+    define_blocks(doc)
+    return doc
+
+
+def piped_room(msp, riser, cross_x, lines, heads_x, sizes=("3\"", "2\"", "1-1/4\"")):
+    """A riser, a feed main to a cross main at x = cross_x, and a branch line at each y of `lines` with heads at
+    `heads_x` (a list per line, or one list for all)."""
+    ys = list(lines)
+    mid = (ys[0] + ys[-1]) / 2
+    msp.add_blockref("RISER", p(*riser), dxfattribs={"layer": "FP-SOURCE"})
+    msp.add_lwpolyline([p(*riser), p(riser[0], mid), p(cross_x, mid)], dxfattribs={"layer": "FP-PIPE"})
+    msp.add_line(p(cross_x, ys[0]), p(cross_x, ys[-1]), dxfattribs={"layer": "FP-PIPE"})
+    pipe_label(msp, sizes[0], riser[0] + 0.6, (riser[1] + mid) / 2)
+    pipe_label(msp, sizes[1], cross_x + 0.6, (ys[0] + ys[1]) / 2)
+    for k, y in enumerate(ys):
+        xs = heads_x[k] if isinstance(heads_x[0], list) else heads_x
+        far = max(xs, key=lambda x: abs(x - cross_x))
+        msp.add_line(p(cross_x, y), p(far, y), dxfattribs={"layer": "FP-PIPE"})
+        pipe_label(msp, sizes[2], (cross_x + xs[0]) / 2 if xs[0] > cross_x else (cross_x + xs[-1]) / 2, y + 0.6)
+        for x in xs:
+            head(msp, x, y)
+
+
+def build_two_risers():
+    """Two halls of an invented community workshop, each fed by a riser of its own: the west hall 60 x 40 ft at
+    12 x 10 ft, the east hall 52 x 33 ft with uneven spacing (heads 10 and 11 ft apart, lines 11 ft apart)."""
+    doc = new_building()
+    msp = doc.modelspace()
+    msp.add_lwpolyline([p(0, 0), p(60, 0), p(60, 40), p(0, 40)], close=True, dxfattribs={"layer": "A-WALL"})
+    piped_room(msp, (-8, 18), 1, [5, 15, 25, 35], [6, 18, 30, 42, 54])
+    msp.add_lwpolyline([p(80, 0), p(132, 0), p(132, 33), p(80, 33)], close=True, dxfattribs={"layer": "A-WALL"})
+    piped_room(msp, (140, 12), 131, [5.5, 16.5, 27.5], [85, 95, 106, 117, 127])
+    return doc
+
+
+def build_zones():
+    """One system across an office (light hazard, heads 12 ft apart) and a storage room (ordinary hazard group 2,
+    heads 10 ft apart) of an invented print shop: 76 x 40 ft, the zones split at x = 36 ft; the branch lines run
+    through both, so their spacing changes on the way."""
+    doc = new_building()
+    msp = doc.modelspace()
+    msp.add_lwpolyline([p(0, 0), p(76, 0), p(76, 40), p(0, 40)], close=True, dxfattribs={"layer": "A-WALL"})
+    piped_room(msp, (-8, 20), 1, [5, 15, 25, 35], [6, 18, 30, 41, 51, 61, 71])
+    msp.add_lwpolyline([p(0, 0), p(36, 0), p(36, 40), p(0, 40)], close=True, dxfattribs={"layer": "FP-ZONE"})
+    msp.add_lwpolyline([p(36, 0), p(76, 0), p(76, 40), p(36, 40)], close=True, dxfattribs={"layer": "FP-ZONE"})
+    msp.add_text("OFFICE 1.01", dxfattribs={"layer": "FP-ZONE", "height": 12, "insert": p(12, 20)})
+    msp.add_mtext("STORAGE\\P1.02", dxfattribs={"layer": "FP-ZONE", "char_height": 12, "insert": p(50, 21)})
+    return doc
+
+
+def build_l_room():
+    """An L-shaped studio of an invented dance school: a 72 x 24 ft bar along the south and a 24 x 36 ft wing up the
+    west side; branch lines run east-west, six heads long in the bar and two in the wing."""
+    doc = new_building()
+    msp = doc.modelspace()
+    msp.add_lwpolyline([p(0, 0), p(72, 0), p(72, 24), p(24, 24), p(24, 60), p(0, 60)], close=True,
+                       dxfattribs={"layer": "A-WALL"})
+    bar = [6, 18, 30, 42, 54, 66]
+    piped_room(msp, (-8, 30), 1, [4, 12, 20, 28, 37, 46, 55], [bar, bar, bar, [6, 18], [6, 18], [6, 18], [6, 18]])
+    return doc
+
+
+def building(out):
+    """Whole-building drawings (two risers, hazard zones, an L-shaped room) and what ezdxf reads back of them: the
+    risers' handles and every head's handle and position, feet."""
+    truth = {}
+    for name, build_doc in [("two-risers", build_two_risers), ("zones", build_zones), ("l-room", build_l_room)]:
+        file = f"building-{name}.dxf"
+        build_doc().saveas(out / file)
+        doc = ezdxf.readfile(out / file)
+        assert not doc.audit().has_errors, name
+        msp = doc.modelspace()
+        truth[name] = {
+            "file": file,
+            "risers": [e.dxf.handle for e in msp.query("INSERT[name=='RISER']")],
+            "heads": [{"handle": e.dxf.handle, "x": e.dxf.insert.x / FT, "y": e.dxf.insert.y / FT}
+                      for e in msp.query("INSERT[name=='SPK']")],
+        }
+    (out / "building.truth.json").write_text(json.dumps(truth, indent=2) + "\n", encoding="utf-8")
+
+
 def main(out_dir):
     out = Path(out_dir)
     out.mkdir(parents=True, exist_ok=True)
@@ -297,6 +387,7 @@ def main(out_dir):
     truth["transforms"] = {"file": "transforms.dxf", "heads": transforms_truth(ezdxf.readfile(out / "transforms.dxf"))}
     (out / "bay2.truth.json").write_text(json.dumps(truth, indent=2, ensure_ascii=False) + "\n", encoding="utf-8")
     first_contact(out)
+    building(out)
 
 
 if __name__ == "__main__":

@@ -242,7 +242,8 @@ describe('headcheck layers and demo', () => {
       'demo-plan.json',
     ]);
     const report = JSON.parse(readFileSync(join(out, 'demo-plan.json'), 'utf8'));
-    expect(report.summary.heads).toBe(49);
+    expect(report.summary.heads).toBe(65);
+    expect(report.summary.systems).toBe(2);
   });
 });
 

@@ -13,19 +13,22 @@ describe('demo design areas against EPANET', () => {
   const settings = parseSettings(DEMO_CONFIG);
   const byId = new Map(r.plan.heads.map((h) => [h.id, h]));
 
-  it('has a drawn area and the searched most demanding area and runner-up', () => {
-    expect(r.design.areas.map((a) => a.rank ?? a.source)).toEqual(['drawn', 'most-demanding', 'runner-up']);
+  const labelOf = (a: (typeof r.design.areas)[number]) => `${a.rank ?? a.source} ${a.zone === null ? 'workshop' : 'office wing'}`;
+  const labels = ['drawn workshop', 'most-demanding workshop', 'runner-up workshop', 'most-demanding office wing', 'runner-up office wing'];
+
+  it('has a drawn area and the searched most demanding area and runner-up of the workshop, and of the office wing', () => {
+    expect(r.design.areas.map(labelOf)).toEqual(labels);
   });
 
-  for (const label of ['drawn', 'most-demanding', 'runner-up']) {
+  for (const label of labels) {
     it(`${label}: EPANET at the reported source pressure gives the same flow and pressures (1%)`, async () => {
-      const area = r.design.areas.find((a) => (a.rank ?? a.source) === label)!;
+      const area = r.design.areas.find((a) => labelOf(a) === label)!;
       const h = area.hydraulics!;
       const flowing = area.headIds.map((id) => ({
         head: byId.get(id)!,
         required: Math.max(7, ((area.basis.density * r.coverage.get(id)!.area!) / byId.get(id)!.kFactor) ** 2),
       }));
-      const model = buildModel(r.network, r.network.systems[0]!.sourceNodeId, flowing, settings);
+      const model = buildModel(r.network, r.network.systems.find((x) => x.id === area.system)!.sourceNodeId, flowing, settings);
       const e = await solveWithEpanet(model, h.sourcePressure);
       expect(Math.abs(e.sourceFlow - h.sourceFlow) / h.sourceFlow).toBeLessThan(0.01);
       const source = model.nodes[model.source]!.id;
@@ -44,7 +47,8 @@ describe('demo design areas against EPANET', () => {
         expect(a).toHaveProperty(k);
       for (const k of ['sourcePressure', 'sourceFlow', 'hoseAllowance', 'totalDemand', 'supplyAvailable', 'margin', 'nodes', 'pipes'])
         expect(a.hydraulics).toHaveProperty(k);
-      expect(a.hydraulics!.riser).toEqual({ modelled: 'virtual', length: 12, nominalSize: '4' });
+      // the riser rises from the supply at 0 ft to the piping at 12 ft; its size is its feed main's: 4" and 3"
+      expect(a.hydraulics!.riser).toEqual({ modelled: 'virtual', length: 12, nominalSize: a.zone === null ? '4' : '3' });
     }
   });
 });

@@ -14,7 +14,7 @@ describeWith('python3-ezdxf', hasEzdxf(), 'fixtures written by ezdxf', () => {
     try {
       const r = spawnSync(SYSTEM_PYTHON, ['scripts/make-fixtures.py', dir], { encoding: 'utf8', timeout: 120_000 });
       expect(r.status, r.stderr).toBe(0);
-      for (const truth of ['bay2.truth.json', 'first-contact.truth.json']) {
+      for (const truth of ['bay2.truth.json', 'first-contact.truth.json', 'building.truth.json']) {
         const fresh = JSON.parse(readFileSync(join(dir, truth), 'utf8'));
         const committed = JSON.parse(readFileSync(join('fixtures', truth), 'utf8'));
         delete fresh.writer;

@@ -50,8 +50,9 @@ describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
       await page.fill('input[name=static]', String(DEMO_CONFIG.supply.static));
       await page.fill('input[name=residual]', String(DEMO_CONFIG.supply.residual));
       await page.fill('input[name=flow]', String(DEMO_CONFIG.supply.flow));
+      await page.fill('input[name=zones]', 'OFFICE*=LH');
       await page.setInputFiles('#file', join(dir, 'demo-plan.dxf'));
-      await expect.poll(() => page.locator('#verdict').textContent(), { timeout: 60_000 }).toMatch(/^FAIL: 49 heads/);
+      await expect.poll(() => page.locator('#verdict').textContent(), { timeout: 60_000 }).toMatch(/^FAIL: 65 heads/);
       const save = async (id: string, name: string) => {
         const [dl] = await Promise.all([page.waitForEvent('download'), page.click(`#${id}`)]);
         const p = join(dir, name);
@@ -86,10 +87,17 @@ describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
       expect(dxf.equals(readFileSync(join(dir, 'cli.dxf')))).toBe(true);
       expect(html.equals(readFileSync(join(dir, 'cli.html')))).toBe(true);
       const report = JSON.parse(json.toString('utf8'));
-      expect(report.designAreas.map((a: { rank: string | null }) => a.rank)).toEqual([null, 'most-demanding', 'runner-up']);
+      expect(report.designAreas.map((a: { rank: string | null }) => a.rank)).toEqual([
+        null,
+        'most-demanding',
+        'runner-up',
+        'most-demanding',
+        'runner-up',
+      ]);
+      expect(report.zones.map((z: { label: string; hazard: string }) => [z.label, z.hazard])).toEqual([['OFFICE WING', 'LH']]);
       // The report in the page highlights a finding from its row.
       const frame = page.frameLocator('#report');
-      expect(await headsDrawn(frame.locator('#plan'))).toBe(49);
+      expect(await headsDrawn(frame.locator('#plan'))).toBe(65);
       await frame.locator('tr[data-finding="0"]').click();
       await expect.poll(() => frame.locator('#plan circle.marker[data-finding="0"]').getAttribute('class')).toContain('hl');
       mkdirSync('test-artifacts', { recursive: true });

@@ -12,6 +12,8 @@ export interface Coverage {
   headId: string;
   /** The branch line the head is measured along, or the row (R1…) of heads it stands in where no line holds it. */
   branchLine: string;
+  /** Unit vector along the line (S is measured along it, L across it; "left" is a quarter turn anticlockwise). */
+  direction: Point;
   /** Along the branch line, ft. */
   s: number | null;
   /** Across the branch lines, ft. */
@@ -64,6 +66,7 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
       out.set(id, {
         headId: id,
         branchLine: line.id,
+        direction: u,
         s,
         l,
         area: s !== null && l !== null ? s * l : null,

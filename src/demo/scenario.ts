@@ -1,5 +1,5 @@
-// The bundled demo (an invented scenario): the ground-floor workshop of "Alder Row Makerspace", a fictional
-// ordinary-hazard (group 2) room of 96 ft × 58 ft with six branch lines, and a few findings planted on purpose.
+// The bundled demo (an invented scenario): "Alder Row Makerspace", a fictional ground floor: an ordinary-hazard
+// (group 2) workshop of 96 ft × 58 ft, and a light-hazard office wing on a riser of its own; findings planted.
 
 import type { Point } from '../geometry/point.js';
 import { DxfWriter } from './dxf-writer.js';
@@ -17,7 +17,8 @@ export function demoDrawing(): string {
     .layer('FP-PIPE', 5)
     .layer('FP-PIPE-SIZE', 5)
     .layer('FP-RISER', 3)
-    .layer('FP-REMOTE-AREA', 6);
+    .layer('FP-REMOTE-AREA', 6)
+    .layer('FP-HAZARD-ZONE', 4);
   w.block('SPK-PENDENT', { x: 0, y: 0 }, (b) => {
     w.circle('0', { x: 0, y: 0 }, 4, b).line('0', { x: -4, y: 0 }, { x: 4, y: 0 }, b);
   });
@@ -64,12 +65,39 @@ export function demoDrawing(): string {
 
   // The designer's design area at the far end.
   w.polyline('FP-REMOTE-AREA', [p(50, 25), p(96, 25), p(96, 58), p(50, 58)], true);
+
+  officeWing(w);
   return w.toString();
 }
 
-/** The demo's config: ordinary hazard group 2 at 0.20 gpm/ft² over 1500 ft², a flow test at the riser. */
+/**
+ * The office wing east of the workshop, 60 ft × 40 ft, a light-hazard zone on a riser of its own: a 3" feed main to
+ * a 2" cross main along the east wall, four 1-1/4" branch lines of four heads 15 ft apart, 10 ft between lines.
+ */
+function officeWing(w: DxfWriter): void {
+  w.polyline('A-WALL', [p(110, 0), p(170, 0), p(170, 40), p(110, 40)], true);
+  w.polyline('FP-HAZARD-ZONE', [p(110, 0), p(170, 0), p(170, 40), p(110, 40)], true);
+  w.text('FP-HAZARD-ZONE', p(122, 19), 12, 'OFFICE WING');
+  w.insert('FP-RISER', 'RISER-POC', p(180, 20));
+  w.line('FP-PIPE', p(180, 20), p(168.5, 20));
+  w.text('FP-PIPE-SIZE', p(173, 20.6), 6, '3"');
+  w.line('FP-PIPE', p(168.5, 5), p(168.5, 35));
+  w.text('FP-PIPE-SIZE', p(166, 28), 6, '2"');
+  for (const y of [5, 15, 25, 35]) {
+    w.line('FP-PIPE', p(168.5, y), p(117.5, y));
+    w.text('FP-PIPE-SIZE', p(155, y + 0.6), 5, '1-1/4"');
+    for (const x of [117.5, 132.5, 147.5, 162.5])
+      w.insert('FP-SPRK-HEAD', 'SPK-PENDENT', p(x, y), { attribs: [{ tag: 'K', value: '5.6' }] });
+  }
+}
+
+/**
+ * The demo's config: ordinary hazard group 2 at 0.20 gpm/ft² over 1500 ft², the office wing light hazard on its
+ * curve's start point (0.10 gpm/ft² over 1500 ft²), one flow test for both risers.
+ */
 export const DEMO_CONFIG = {
   design: { hazard: 'OH2', density: 0.2, area: 1500, hoseAllowance: 250, systemType: 'wet', areaMode: 'both' },
+  zones: { 'OFFICE*': { hazard: 'LH' } },
   defaults: { kFactor: 5.6, pipeSize: '1', cFactor: 120, schedule: '40', headElevation: 12, sourceElevation: 0 },
   supply: { static: 75, residual: 62, flow: 1200 },
 } as const;

@@ -1,5 +1,6 @@
-// Candidate design areas on the rebuilt network: for each family of parallel branch lines, each starting
-// line, each direction across the lines and each window along them, the heads the shape rules select.
+// Candidate design areas on the rebuilt network: for each family of parallel branch lines, each starting line,
+// each direction across the lines and each start along them, the whole lines the shape rules select and every
+// placement of the heads left over on the next line (from its cross-main end to under the rectangle).
 
 import { cross, dot, type Point } from '../geometry/point.js';
 import type { BranchLine, Network } from '../network/types.js';
@@ -11,16 +12,37 @@ export interface LineFamily {
   /** Unit vector along the lines, and across them. */
   u: Point;
   v: Point;
-  /** Lines in order across the family. */
-  lines: { id: string; heads: { id: string; t: number }[]; feedT: number | null; offset: number }[];
+  /** Lines in order across the family, each with its heads in order along it and its own head spacing, ft. */
+  lines: FamilyLine[];
   spacing: number;
   perHead: number;
   shape: AreaShape;
 }
 
+export interface FamilyLine {
+  id: string;
+  heads: { id: string; t: number }[];
+  /** The heads' ids in the same order (one array, shared by every group whose leftover goes on this line). */
+  ids: string[];
+  /** Where the line meets its mains, along it (two for a line of a grid; none where no main was found). */
+  feedTs: number[];
+  offset: number;
+  spacing: number;
+}
+
 export interface Candidate {
   headIds: string[];
   lineIds: string[];
+}
+
+/**
+ * Candidates that share their whole lines: `base` and every placement of `size` leftover heads on the next line,
+ * the runs of `next.heads` starting at `first` … `last`. No leftover (or no next line) is one candidate.
+ */
+export interface CandidateGroup {
+  base: string[];
+  lines: string[];
+  next: { line: string; heads: readonly string[]; first: number; last: number; size: number } | null;
 }
 
 const PARALLEL_SIN = Math.sin((10 * Math.PI) / 180);
@@ -50,12 +72,14 @@ export function lineFamilies(
     }
     const f = fam;
     const hs = line.headIds.map((id) => ({ id, t: dot(pos.get(id)!, f.u) })).sort((a, b) => a.t - b.t);
-    const feed = line.feedNodeIds[0];
+
     f.lines.push({
       id: line.id,
       heads: hs,
-      feedT: feed ? dot(nodePos.get(feed)!, f.u) : null,
+      ids: hs.map((h) => h.id),
+      feedTs: line.feedNodeIds.map((n) => dot(nodePos.get(n)!, f.u)),
       offset: hs.reduce((s, h) => s + dot(pos.get(h.id)!, f.v), 0) / hs.length,
+      spacing: median(hs.slice(1).map((h, i) => h.t - hs[i]!.t)),
     });
   }
   for (const f of families) {
@@ -67,51 +91,72 @@ export function lineFamilies(
     f.perHead = median(areas);
     if (!(f.spacing > 0) || !(f.perHead > 0)) continue;
     f.shape = areaShape(area, f.spacing, f.perHead);
+    // A line of one head takes the family's spacing.
+    for (const l of f.lines) if (!(l.spacing > 0)) l.spacing = f.spacing;
   }
   return families.filter((f) => f.spacing > 0 && f.perHead > 0);
 }
 
+/** The target an area must reach: `count` heads covering `area` ft². */
+interface Target {
+  count: number;
+  area: number;
+  areaOf: (id: string) => number;
+}
+
 /**
- * The heads a window selects, in the order the rules add them: whole lines first, then on the next line the
- * heads nearest the cross main (its feed end). Keeps adding until `count` heads and `area` ft² are reached.
+ * The candidates of one start: from line `start` across the family in direction `dir`, the area's edge along the
+ * lines at `edge`. Each line takes its own number of heads along (1.2·√A over its own spacing) from the edge;
+ * whole lines are taken while the target is not reached, and the heads still wanting go on the next line as a
+ * run anywhere between its cross-main end and the rectangle.
  */
-function selectHeads(
-  fam: LineFamily,
-  start: number,
-  dir: 1 | -1,
-  t0: number,
-  count: number,
-  area: number,
-  areaOf: (id: string) => number,
-): Candidate {
-  const lo = t0 - fam.spacing / 2;
-  const hi = t0 + (fam.shape.headsAlong - 0.5) * fam.spacing;
-  const headIds: string[] = [];
-  const lineIds: string[] = [];
+function groupAt(fam: LineFamily, start: number, dir: 1 | -1, edge: number, target: Target): CandidateGroup {
+  const base: string[] = [];
+  const lines: string[] = [];
   let covered = 0;
+  const reached = (count: number, area: number) => count >= target.count && area >= target.area - 1e-6;
   for (let j = start; j >= 0 && j < fam.lines.length; j += dir) {
     const line = fam.lines[j]!;
-    // The line's heads are in order along it: the window is the run from the first at lo to the last before hi.
-    const from = firstAtOrAfter(line.heads, lo - 1e-9);
-    const to = firstAtOrAfter(line.heads, hi - 1e-9);
+    const along = Math.max(1, Math.ceil(fam.shape.minLength / line.spacing - 1e-9));
+    const from = firstAtOrAfter(line.heads, edge - 1e-9);
+    const to = Math.min(line.heads.length, from + along);
     if (from >= to) continue;
-    lineIds.push(line.id);
-    // Nearest the feed first: outwards from the feed point, the nearer of the two sides each time (the one
-    // nearer the line's start on a tie).
-    const feedT = line.feedT ?? line.heads[0]!.t;
-    let right = Math.min(Math.max(firstAtOrAfter(line.heads, feedT), from), to);
-    let left = right - 1;
-    const gap = (k: number) => Math.abs(line.heads[k]!.t - feedT);
-    while ((left >= from || right < to) && !(headIds.length >= count && covered >= area - 1e-6)) {
-      const k = right >= to || (left >= from && gap(left) <= gap(right)) ? left-- : right++;
-      headIds.push(line.heads[k]!.id);
-      covered += areaOf(line.heads[k]!.id);
+    const window = line.heads.slice(from, to);
+    const windowArea = window.reduce((s, h) => s + target.areaOf(h.id), 0);
+    if (!reached(base.length + window.length, covered + windowArea) || base.length + window.length === target.count) {
+      for (const h of window) base.push(h.id);
+      lines.push(line.id);
+      covered += windowArea;
+      if (reached(base.length, covered)) break;
+      continue;
     }
-    if (headIds.length >= count && covered >= area - 1e-6) break;
+    // The leftover: as many heads as the nearest-the-feed order within the window needs to reach the target.
+    // The cross-main end nearest the rectangle (a grid's line has one at each end).
+    const middle = (window[0]!.t + window[window.length - 1]!.t) / 2;
+    const feedT = line.feedTs.length
+      ? line.feedTs.reduce((a, b) => (Math.abs(b - middle) < Math.abs(a - middle) ? b : a))
+      : line.heads[0]!.t;
+    let size = 0;
+    let area = covered;
+    for (const h of [...window].sort((a, b) => Math.abs(a.t - feedT) - Math.abs(b.t - feedT))) {
+      size++;
+      area += target.areaOf(h.id);
+      if (reached(base.length + size, area)) break;
+    }
+    // Runs of `size` heads lying between the feed end and the far side of the window.
+    const lo = Math.min(feedT, window[0]!.t) - 1e-6;
+    const hi = Math.max(feedT, window[window.length - 1]!.t) + 1e-6;
+    const first = firstAtOrAfter(line.heads, lo);
+    const last = firstAtOrAfter(line.heads, hi) - size;
+    return {
+      base: base.slice(),
+      lines: lines.slice(),
+      next: { line: line.id, heads: line.ids, first, last: Math.max(first, last), size },
+    };
   }
   // Exact-length copies: an array grown by pushing keeps up to twice its length in slots, and a search keeps
-  // tens of thousands of candidates.
-  return { headIds: headIds.slice(), lineIds: lineIds.slice() };
+  // tens of thousands of groups.
+  return { base: base.slice(), lines: lines.slice(), next: null };
 }
 
 /** Index of the first head at or after position t along the line (heads sorted by t). */
@@ -126,58 +171,81 @@ function firstAtOrAfter(heads: { t: number }[], t: number): number {
   return lo;
 }
 
-/** Every distinct candidate area of a family (windows that select the same heads are one area). */
-export function candidatesOf(fam: LineFamily, areaOf: (id: string) => number, area: number): Candidate[] {
-  const seen = distinctAreas(fam);
-  const out: Candidate[] = [];
-  const n = fam.shape.headsAlong;
+/**
+ * Every distinct group of candidate areas of a family. Starts sharing whole lines and next line are one group,
+ * their leftover placements joined (each range holds the cross-main end, so they overlap).
+ */
+export function candidateGroupsOf(fam: LineFamily, areaOf: (id: string) => number, area: number): CandidateGroup[] {
+  const target: Target = { count: fam.shape.totalHeads, area, areaOf };
+  const byKey = new Map<string, CandidateGroup>();
+  const out: CandidateGroup[] = [];
+  const keyOf = distinctKeys(fam);
   fam.lines.forEach((line, k) => {
-    const starts = line.heads.length >= n ? line.heads.slice(0, line.heads.length - n + 1) : line.heads.slice(0, 1);
     for (const dir of [1, -1] as const) {
-      for (const h of starts) {
-        const c = selectHeads(fam, k, dir, h.t, fam.shape.totalHeads, area, areaOf);
-        if (c.headIds.length && seen(c)) out.push(c);
+      for (const h of line.heads) {
+        const g = groupAt(fam, k, dir, h.t - line.spacing / 2, target);
+        if (g.base.length === 0 && !g.next) continue;
+        const key = keyOf(g);
+        const same = byKey.get(key);
+        if (!same) {
+          byKey.set(key, g);
+          out.push(g);
+        } else if (same.next && g.next) {
+          same.next.first = Math.min(same.next.first, g.next.first);
+          same.next.last = Math.max(same.next.last, g.next.last);
+        }
       }
     }
   });
-  // A window at the edge of the system that runs out of lines is no design area, unless no window has room.
-  const full = out.filter((c) => c.headIds.length >= fam.shape.totalHeads);
+  // A start at the edge of the system that runs out of lines is no design area, unless no start has room.
+  const full = out.filter((g) => g.base.length + (g.next?.size ?? 0) >= fam.shape.totalHeads);
   return full.length ? full : out;
 }
 
+/** The candidates of a group: its whole lines with each placement of the leftover. */
+export function membersOf(g: CandidateGroup): Candidate[] {
+  if (!g.next) return [{ headIds: g.base, lineIds: g.lines }];
+  const lineIds = [...g.lines, g.next.line];
+  return runsOf(g).map((run) => ({ headIds: [...g.base, ...run], lineIds }));
+}
+
+/** The placements of a group's leftover heads (none for a group without). */
+export function runsOf(g: CandidateGroup): string[][] {
+  if (!g.next) return [];
+  const { heads, first, size } = g.next;
+  const out: string[][] = [];
+  for (let k = first; k <= lastRun(g); k++) out.push(heads.slice(k, k + size));
+  return out;
+}
+
+/** Every head any candidate of the group flows: its whole lines and the next line's heads its runs cover. */
+export function unionOf(g: CandidateGroup): string[] {
+  if (!g.next) return g.base;
+  const { heads, first, size } = g.next;
+  return [...g.base, ...heads.slice(first, lastRun(g) + size)];
+}
+
+/** The start of a group's last leftover placement (runs end with the line). */
+export const lastRun = (g: CandidateGroup): number => (g.next ? Math.min(g.next.last, g.next.heads.length - g.next.size) : 0);
+
+/** How many candidates a group holds. */
+export const memberCount = (g: CandidateGroup): number => (g.next ? Math.max(0, lastRun(g) - g.next.first + 1) : 1);
+
 /**
- * A test that is true the first time a set of heads is seen: candidates are filed by a hash of their head set
- * (the same whatever the order), and compared in full only with those of the same hash. No key string per
- * candidate is kept.
+ * A key per group that is the same for two groups with the same whole lines and the same next line: a 53-bit
+ * hash of the base's head numbers (order-independent) and the next line's id.
  */
-function distinctAreas(fam: LineFamily): (c: Candidate) => boolean {
+function distinctKeys(fam: LineFamily): (g: CandidateGroup) => string {
   const numberOf = new Map<string, number>();
   for (const line of fam.lines) for (const h of line.heads) numberOf.set(h.id, numberOf.size);
-  const byHash = new Map<number, Candidate[]>();
-  return (c) => {
-    // Two 32-bit mixes of each head's number, summed and xor-ed (order-independent), make a 53-bit hash.
+  return (g) => {
     let sum = 0;
     let xor = 0;
-    for (const id of c.headIds) {
+    for (const id of g.base) {
       const x = Math.imul((numberOf.get(id) ?? -1) + 1, 0x9e3779b1);
       sum = (sum + (x ^ (x >>> 15))) | 0;
       xor ^= Math.imul(x ^ (x >>> 13), 0x85ebca6b);
     }
-    const hash = (sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff);
-    const same = byHash.get(hash);
-    if (!same) {
-      byHash.set(hash, [c]);
-      return true;
-    }
-    if (same.some((o) => sameHeads(o.headIds, c.headIds))) return false;
-    same.push(c);
-    return true;
+    return `${(sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff)}:${g.base.length}:${g.next?.line ?? ''}:${g.next?.size ?? 0}`;
   };
-}
-
-/** Whether two lists of distinct head ids hold the same heads. */
-function sameHeads(a: string[], b: string[]): boolean {
-  if (a.length !== b.length) return false;
-  const inA = new Set(a);
-  return b.every((id) => inA.has(id));
 }

@@ -2,7 +2,6 @@
 // and the designer's drawn areas; each with its shape figures and a full hydraulic calculation.
 
 import type { Settings } from '../config/settings.js';
-import { clipPolygon } from '../geometry/clip.js';
 import { dot, type Point } from '../geometry/point.js';
 import type { AreaHydraulics } from '../hydraulics/calculate.js';
 import { calculateArea } from '../hydraulics/calculate.js';
@@ -13,7 +12,8 @@ import type { Outline } from '../read/types.js';
 import type { Coverage } from '../coverage/coverage.js';
 import { basisOfHead, type Zoning } from '../zones/zones.js';
 import { containsPoint, signedArea } from '../geometry/polygon.js';
-import { candidatesOf, lineFamilies, type LineFamily } from './candidates.js';
+import { floorOf } from './floor.js';
+import { candidateGroupsOf, lineFamilies, type LineFamily } from './candidates.js';
 import type { DesignBasis } from '../basis/design-basis.js';
 import { searchMostDemanding, type SearchOutcome } from './search.js';
 import type { AreaShape } from './shape.js';
@@ -26,18 +26,28 @@ export interface DesignAreaResult {
   /** The system (its source's handle) and the zone (its id) the area belongs to; null where it has none. */
   system: string | null;
   zone: string | null;
+  /** How findings name the area's system and zone, where the drawing has more than one of them; else null. */
+  place: string | null;
   /** The design basis the area is calculated with, and the shape it must have. */
   basis: DesignBasis;
   shape: AreaShape | null;
   headIds: string[];
   lineIds: string[];
-  /** Length along the branch lines, width across them, ft; actual area = sum of the heads' S × L, ft². */
+  /**
+   * Length along the branch lines (a searched area's longest run on one line; a drawn outline's extent), width
+   * across them, ft; the floor its heads protect (each head's cell half-way to its neighbours, or to the wall),
+   * ft², which a searched outline encloses; and the sum of the heads' S × L, ft², the standard's count.
+   */
   length: number;
   width: number;
   actualArea: number;
+  coveredArea: number;
   /** Area of the drawn outline, ft² (drawn areas only). */
   outlineArea: number | null;
-  outline: Point[];
+  /** The outline's rings: a searched area whose leftover heads lie apart from its rectangle has two. */
+  outline: Point[][];
+  /** Where findings about the area are marked: a corner of its outline. */
+  at: Point;
   handle: string | null;
   hydraulics: AreaHydraulics | null;
   /** What the reviewer should know of the area: why hydraulics are missing, or that the whole system flows. */
@@ -88,9 +98,11 @@ export function evaluateDesignAreas(
     const node = network.headNode[id];
     return node === undefined ? undefined : systemOfNode.get(node);
   };
-  const groups = groupsOf(network, zoning);
+  // Each group with the family of parallel lines its search runs on.
+  const groups = groupsOf(network, zoning).map((g) => ({ ...g, fam: mainFamily(network, g, plan, coverage) }));
   const out: DesignAreas = { groups: [], areas: [], drawnCount: plan.designAreas.length, notes: [] };
   const mode = settings.design.areaMode;
+  const measuring: Measuring = { headById, coverage, areaOf, roomOf };
 
   if (mode !== 'search') {
     for (const outline of plan.designAreas) {
@@ -99,7 +111,7 @@ export function evaluateDesignAreas(
       const zone = mostCommon(ids.map((id) => zoning.zoneOfHead.get(id) ?? null));
       const group = groups.find((g) => g.system.id === system && g.zone === zone);
       const basis = group?.basis ?? (ids.length ? basisOf(ids[0]!).design : zoning.design.design);
-      const fam = group ? mainFamily(network, group, plan, coverage) : null;
+      const fam = group?.fam ?? null;
       const fed = ids.filter((id) => systemOf(id)?.id === system);
       let hydraulics: AreaHydraulics | null = null;
       let note: string | null = null;
@@ -113,10 +125,11 @@ export function evaluateDesignAreas(
         }
       }
       out.areas.push({
-        ...measureDrawn(outline, ids, fam, areaOf, network),
+        ...measureDrawn(outline, ids, fam, zoning.design.limits.maxArea, network, measuring),
         rank: null,
         system,
         zone,
+        place: null,
         basis,
         shape: fam?.shape ?? null,
         hydraulics,
@@ -126,7 +139,7 @@ export function evaluateDesignAreas(
   }
 
   for (const group of groups) {
-    const fam = mainFamily(network, group, plan, coverage);
+    const { fam } = group;
     const stats: AreaGroup = {
       system: group.system.id,
       zone: group.zone,
@@ -138,12 +151,12 @@ export function evaluateDesignAreas(
     };
     out.groups.push(stats);
     if (mode === 'drawn') continue;
-    const where = groupName(group, zoning);
+    const name = groupName(group, zoning);
     if (!fam) {
-      out.notes.push(`no branch lines with heads${where}: the design area could not be searched`);
+      out.notes.push(`no branch lines with heads in ${name}: the design area could not be searched`);
       continue;
     }
-    const place = { system: group.system.id, zone: group.zone, basis: group.basis, shape: fam.shape };
+    const place = { system: group.system.id, zone: group.zone, basis: group.basis, shape: fam.shape, place: null };
     const source = group.system.sourceNodeId;
     const total = group.headIds.reduce((s, id) => s + areaOf(id), 0);
     if (group.headIds.length < fam.shape.totalHeads || total < group.basis.area - 1e-6) {
@@ -155,22 +168,20 @@ export function evaluateDesignAreas(
             group.headIds,
             fam.lines.map((l) => l.id),
             fam,
-            headById,
-            areaOf,
-            roomOf,
+            measuring,
           ),
           ...place,
           rank: 'most-demanding',
           hydraulics,
-          note: `the design area (${round(group.basis.area)} ft²) is larger than${where || ' the system'} (${group.headIds.length} heads, ${round(total)} ft²): every head flows`,
+          note: `the design area (${round(group.basis.area)} ft²) is larger than ${name} (${group.headIds.length} heads, ${round(total)} ft²): every head flows`,
         });
       } catch (err) {
-        out.notes.push(`design-area calculation failed${where}: ${err instanceof Error ? err.message : String(err)}`);
+        out.notes.push(`design-area calculation failed in ${name}: ${err instanceof Error ? err.message : String(err)}`);
       }
       continue;
     }
     try {
-      const candidates = candidatesOf(fam, areaOf, group.basis.area);
+      const candidates = candidateGroupsOf(fam, areaOf, group.basis.area);
       const found = searchMostDemanding(network, source, candidates, flowingOf, settings, group.basis.hoseAllowance);
       stats.search = {
         candidates: found.candidates,
@@ -185,7 +196,7 @@ export function evaluateDesignAreas(
       ] as const) {
         if (!s) continue;
         out.areas.push({
-          ...measureSearched(s.candidate.headIds, s.candidate.lineIds, fam, headById, areaOf, roomOf),
+          ...measureSearched(s.candidate.headIds, s.candidate.lineIds, fam, measuring),
           ...place,
           rank,
           hydraulics: s.hydraulics,
@@ -193,8 +204,13 @@ export function evaluateDesignAreas(
         });
       }
     } catch (err) {
-      out.notes.push(`design-area search failed${where}: ${err instanceof Error ? err.message : String(err)}`);
+      out.notes.push(`design-area search failed in ${name}: ${err instanceof Error ? err.message : String(err)}`);
     }
+  }
+  const several = out.groups.length > 1;
+  for (const a of out.areas) {
+    const system = network.systems.find((x) => x.id === a.system);
+    a.place = several && system ? groupName({ system, zone: a.zone }, zoning) : null;
   }
   return out;
 }
@@ -205,7 +221,9 @@ function groupsOf(network: Network, zoning: Zoning): { system: NetSystem; zone: 
     const byZone = new Map<string | null, string[]>();
     for (const id of system.headIds) {
       const zone = zoning.zoneOfHead.get(id) ?? null;
-      byZone.set(zone, [...(byZone.get(zone) ?? []), id]);
+      const list = byZone.get(zone);
+      if (list) list.push(id);
+      else byZone.set(zone, [id]);
     }
     return [...byZone.entries()].map(([zone, headIds]) => ({
       system,
@@ -216,11 +234,10 @@ function groupsOf(network: Network, zoning: Zoning): { system: NetSystem; zone: 
   });
 }
 
-/** How notes name a group: nothing where the drawing has one system and no zone. */
+/** How notes name a group: the system fed from a source, or a zone of it. */
 function groupName(group: { system: NetSystem; zone: string | null }, zoning: Zoning): string {
   const zone = group.zone === null ? null : zoning.zones.find((z) => z.id === group.zone)!;
-  const zoneName = zone ? ` zone ${zone.label ?? zone.id}` : '';
-  return zone || zoning.zones.length ? ` in system ${group.system.id}${zoneName}` : ` in system ${group.system.id}`;
+  return zone ? `the zone ${zone.label ?? zone.id} of system ${group.system.id}` : `the system fed from ${group.system.id}`;
 }
 
 /** The family of parallel branch lines that holds most of a group's lines, its lines cut to the group's heads. */
@@ -261,61 +278,68 @@ function mostCommon<T>(xs: (T | null)[]): T | null {
 
 const round = (x: number) => Math.round(x);
 
-type Measured = Omit<DesignAreaResult, 'hydraulics' | 'note' | 'rank' | 'system' | 'zone' | 'basis' | 'shape'>;
+type Measured = Omit<DesignAreaResult, 'hydraulics' | 'note' | 'rank' | 'system' | 'zone' | 'basis' | 'shape' | 'place'>;
 
-function measureSearched(
-  ids: string[],
-  lineIds: string[],
-  fam: LineFamily,
-  headById: Map<string, Head>,
-  areaOf: (id: string) => number,
-  roomOf: (p: Point) => Outline | null,
-): Measured {
-  const lines = fam.lines.filter((l) => lineIds.includes(l.id));
-  const spacingAcross = lines.length > 1 ? Math.abs(lines[1]!.offset - lines[0]!.offset) : fam.perHead / fam.spacing;
-  const bands = lines
-    .map((l) => {
-      const ts = l.heads.filter((h) => ids.includes(h.id)).map((h) => h.t);
-      return { lo: minOf(ts) - fam.spacing / 2, hi: maxOf(ts) + fam.spacing / 2, o: l.offset };
-    })
-    .sort((a, b) => a.o - b.o);
-  const half = spacingAcross / 2;
-  const toWorld = (t: number, o: number): Point => ({ x: fam.u.x * t + fam.v.x * o, y: fam.u.y * t + fam.v.y * o });
-  const outline = [
-    ...bands.flatMap((b) => [toWorld(b.lo, b.o - half), toWorld(b.lo, b.o + half)]),
-    ...[...bands].reverse().flatMap((b) => [toWorld(b.hi, b.o + half), toWorld(b.hi, b.o - half)]),
-  ];
-  const ts = ids.map((id) => dot(headById.get(id)!.position, fam.u));
-  // Drawn inside the room that holds its heads (the S × L bands may reach past a wall).
-  const room = roomOf(headById.get(ids[0]!)!.position);
+/** What measures an area: the heads, their coverage, the room they are in and the frame of the lines. */
+interface Measuring {
+  headById: Map<string, Head>;
+  coverage: Map<string, Coverage>;
+  areaOf: (id: string) => number;
+  roomOf: (p: Point) => Outline | null;
+}
+
+/** The half-spacings a head's cell takes where it has neither a neighbour nor a wall in reach. */
+const fallbackOf = (fam: LineFamily | null, maxArea: number) =>
+  fam
+    ? { along: fam.spacing / 2, across: fam.perHead / fam.spacing / 2 }
+    : { along: Math.sqrt(maxArea) / 2, across: Math.sqrt(maxArea) / 2 };
+
+function measureSearched(ids: string[], lineIds: string[], fam: LineFamily, m: Measuring): Measured {
+  const floor = floorOf(
+    ids.map((id) => m.headById.get(id)!),
+    m.coverage,
+    fam,
+    m.roomOf,
+    fallbackOf(fam, 0),
+  );
   return {
     source: 'search',
     headIds: ids,
     lineIds,
     handle: null,
-    outline: room ? clipPolygon(outline, room.points) : outline,
+    outline: floor.outline,
+    at: floor.outline[0]?.[0] ?? m.headById.get(ids[0]!)!.position,
     outlineArea: null,
-    length: maxOf(ts) - minOf(ts) + fam.spacing,
-    width: bands.length ? bands[bands.length - 1]!.o - bands[0]!.o + spacingAcross : 0,
-    actualArea: ids.reduce((s, id) => s + areaOf(id), 0),
+    length: floor.length,
+    width: floor.width,
+    actualArea: floor.area,
+    coveredArea: ids.reduce((s, id) => s + m.areaOf(id), 0),
   };
 }
 
-function measureDrawn(outline: Outline, ids: string[], fam: LineFamily | null, areaOf: (id: string) => number, network: Network): Measured {
-  const u = fam?.u ?? { x: 1, y: 0 };
-  const v = fam?.v ?? { x: 0, y: 1 };
-  const ts = outline.points.map((p) => dot(p, u));
-  const os = outline.points.map((p) => dot(p, v));
+function measureDrawn(outline: Outline, ids: string[], fam: LineFamily | null, maxArea: number, network: Network, m: Measuring): Measured {
+  const frame = fam ?? { u: { x: 1, y: 0 }, v: { x: 0, y: 1 } };
+  const ts = outline.points.map((p) => dot(p, frame.u));
+  const os = outline.points.map((p) => dot(p, frame.v));
   const lineIds = network.branchLines.filter((b) => b.headIds.some((h) => ids.includes(h))).map((b) => b.id);
+  const floor = floorOf(
+    ids.map((id) => m.headById.get(id)!),
+    m.coverage,
+    frame,
+    m.roomOf,
+    fallbackOf(fam, maxArea),
+  );
   return {
     source: 'drawn',
     headIds: ids,
     lineIds,
     handle: outline.handle,
-    outline: outline.points,
+    outline: [outline.points],
+    at: outline.points[0]!,
     outlineArea: Math.abs(signedArea(outline.points)),
     length: maxOf(ts) - minOf(ts),
     width: maxOf(os) - minOf(os),
-    actualArea: ids.reduce((s, id) => s + areaOf(id), 0),
+    actualArea: floor.area,
+    coveredArea: ids.reduce((s, id) => s + m.areaOf(id), 0),
   };
 }

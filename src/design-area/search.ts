@@ -12,8 +12,8 @@ import { AreaCalculator, type AreaDemand, type AreaHydraulics } from '../hydraul
 import type { FlowingHead } from '../hydraulics/model.js';
 import { availablePressure } from '../hydraulics/water-supply.js';
 import type { Network } from '../network/types.js';
-import type { Candidate } from './candidates.js';
-import { spanningTreeModel, treeBound } from '../hydraulics/k-factor-walk.js';
+import { lastRun, memberCount, membersOf, unionOf, type Candidate, type CandidateGroup } from './candidates.js';
+import { spanningTreeModel, treeBound, type Demand } from '../hydraulics/k-factor-walk.js';
 
 export interface ScoredArea {
   candidate: Candidate;
@@ -46,31 +46,25 @@ const SCORE_TOL = 1e-5;
 export function searchMostDemanding(
   network: Network,
   sourceNodeId: string,
-  candidates: Candidate[],
+  groups: CandidateGroup[],
   flowingOf: (ids: string[]) => FlowingHead[],
   settings: Settings,
   hose: number,
   options: { prune?: boolean } = {},
 ): SearchOutcome {
+  const candidates = groups.reduce((n, g) => n + memberCount(g), 0);
   // Every head any candidate flows (a set filled head by head: the flat list of all candidates' heads would be
   // twenty times as long as the set).
   const anyArea = new Set<string>();
-  for (const c of candidates) for (const id of c.headIds) anyArea.add(id);
+  for (const g of groups) for (const id of unionOf(g)) anyArea.add(id);
   const all = flowingOf([...anyArea]);
-  if (all.length === 0)
-    return { best: null, runnerUp: null, candidates: candidates.length, evaluated: 0, screened: 0, solves: 0, pruned: false };
+  if (all.length === 0) return { best: null, runnerUp: null, candidates, evaluated: 0, screened: 0, solves: 0, pruned: false };
   const prune = options.prune !== false;
   const calculator = new AreaCalculator(network, sourceNodeId, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
   const supply = settings.supply;
   const scoreAt = (pressure: number, flow: number) => (supply ? pressure - availablePressure(supply, flow + hose) : pressure);
-  const upper = candidates.map((c) => {
-    const b = bound?.bound(c.headIds);
-    return b ? scoreAt(b.pressure, b.flow) : Infinity;
-  });
-  // Without a bound (looped systems) the same walk on a spanning tree estimates which areas are demanding, so
-  // that a demanding runner-up is found early and rules out the rest.
-  const estimate = bound ? upper : estimateOnTree(calculator.model, candidates, scoreAt);
+  const scoreOf = (d: Demand | null | undefined) => (d ? scoreAt(d.pressure, d.flow) : null);
   /** The two most demanding areas calculated so far. */
   const top: { best: Scored | null; runnerUp: Scored | null } = { best: null, runnerUp: null };
   let evaluated = 0;
@@ -100,15 +94,12 @@ export function searchMostDemanding(
     }
     return false;
   };
-
-  const order = candidates.map((_, i) => i).sort((a, b) => estimate[b]! - estimate[a]! || upper[b]! - upper[a]!);
-  for (const i of order) {
-    const c = candidates[i]!;
-    // On trees the order is by bound: once it cannot beat the runner-up, neither can any candidate left.
-    if (top.runnerUp && upper[i]! + SCORE_TOL <= top.runnerUp.score) break;
-    if (prune && ruledOut(c.headIds)) {
+  const beaten = (upper: number) => top.runnerUp !== null && upper + SCORE_TOL <= top.runnerUp.score;
+  /** A candidate: ruled out by its bound or a proof, else calculated. */
+  const consider = (c: Candidate, upper: number) => {
+    if (prune && (beaten(upper) || ruledOut(c.headIds))) {
       screened++;
-      continue;
+      return;
     }
     const demand = calculator.demand(c.headIds);
     evaluated++;
@@ -118,24 +109,64 @@ export function searchMostDemanding(
       top.runnerUp = top.best;
       top.best = scored;
     } else if (!top.runnerUp || scored.score > top.runnerUp.score) top.runnerUp = scored;
+  };
+
+  if (bound) {
+    // Trees: groups in order of a bound that holds for all their candidates (every placement of the leftover);
+    // once a group cannot beat the runner-up, neither can any group left.
+    const upperOfGroup = (g: CandidateGroup, first: number, last: number) =>
+      scoreOf(g.next ? bound.boundAlong(g.base, g.next.heads, first, last, g.next.size) : bound.bound(g.base)) ?? Infinity;
+    const upper = groups.map((g) => upperOfGroup(g, g.next?.first ?? 0, lastRun(g)));
+    const order = groups.map((_, i) => i).sort((a, b) => upper[b]! - upper[a]!);
+    /** A group's placements `first` … `last`, halved while their common bound beats the runner-up (the more demanding half first). */
+    const explore = (g: CandidateGroup, first: number, last: number, bounded: number): void => {
+      if (beaten(bounded)) {
+        screened += last - first + 1;
+        return;
+      }
+      const next = g.next;
+      if (!next || first === last) {
+        consider(
+          {
+            headIds: next ? [...g.base, ...next.heads.slice(first, first + next.size)] : g.base,
+            lineIds: next ? [...g.lines, next.line] : g.lines,
+          },
+          bounded,
+        );
+        return;
+      }
+      const mid = (first + last) >> 1;
+      const halves = [
+        { a: first, b: mid, upper: upperOfGroup(g, first, mid) },
+        { a: mid + 1, b: last, upper: upperOfGroup(g, mid + 1, last) },
+      ].sort((x, y) => y.upper - x.upper);
+      for (const h of halves) explore(g, h.a, h.b, h.upper);
+    };
+    for (let at = 0; at < order.length; at++) {
+      const g = groups[order[at]!]!;
+      if (beaten(upper[order[at]!]!)) {
+        for (const rest of order.slice(at)) screened += memberCount(groups[rest]!);
+        break;
+      }
+      explore(g, g.next?.first ?? 0, lastRun(g), upper[order[at]!]!);
+    }
+  } else {
+    // Looped systems (or no pruning): every candidate, in order of the same walk on a spanning tree, which
+    // estimates which areas are demanding, so that a demanding runner-up is found early and proofs rule out the rest.
+    const walk = prune ? treeBound(spanningTreeModel(calculator.model)) : null;
+    const members = groups.flatMap(membersOf);
+    const estimate = members.map((c) => scoreOf(walk?.bound(c.headIds)) ?? 0);
+    for (const k of members.map((_, i) => i).sort((a, b) => estimate[b]! - estimate[a]!)) consider(members[k]!, Infinity);
   }
   const withTables = (x: Scored | null): ScoredArea | null =>
     x && { candidate: x.candidate, score: x.score, hydraulics: calculator.hydraulicsOf(x.demand, hose) };
   return {
     best: withTables(top.best),
     runnerUp: withTables(top.runnerUp),
-    candidates: candidates.length,
+    candidates,
     evaluated,
     screened,
     solves,
     pruned: bound !== null,
   };
-}
-
-function estimateOnTree(model: AreaCalculator['model'], candidates: Candidate[], scoreAt: (p: number, q: number) => number): number[] {
-  const walk = treeBound(spanningTreeModel(model));
-  return candidates.map((c) => {
-    const b = walk?.bound(c.headIds);
-    return b ? scoreAt(b.pressure, b.flow) : 0;
-  });
 }

@@ -13,12 +13,32 @@ const square = (x: number, y: number, s: number) => [
 
 describe('clipPolygon', () => {
   it('keeps the overlap of two squares: 10 × 10 and 10 × 10 offset by (5, 5) share 25', () => {
-    expect(Math.abs(signedArea(clipPolygon(square(0, 0, 10), square(5, 5, 10))))).toBeCloseTo(25, 9);
+    expect(clipPolygon(square(0, 0, 10), square(5, 5, 10)).map((p) => Math.abs(signedArea(p)))).toEqual([expect.closeTo(25, 9)]);
   });
   it('returns a polygon inside the clip unchanged in area', () => {
-    expect(Math.abs(signedArea(clipPolygon(square(2, 2, 3), square(0, 0, 10))))).toBeCloseTo(9, 9);
+    expect(clipPolygon(square(2, 2, 3), square(0, 0, 10)).map((p) => Math.abs(signedArea(p)))).toEqual([expect.closeTo(9, 9)]);
   });
-  it('returns the subject when they do not overlap', () => {
-    expect(clipPolygon(square(0, 0, 1), square(5, 5, 1))).toEqual(square(0, 0, 1));
+  it('returns no piece when they do not overlap', () => {
+    expect(clipPolygon(square(0, 0, 1), square(5, 5, 1))).toEqual([]);
+  });
+  it('returns both pieces of a bar across an L: a 10 × 2 bar over an L of two 4-wide arms keeps 4 × 2 twice', () => {
+    const l = [
+      { x: 0, y: 0 },
+      { x: 10, y: 0 },
+      { x: 10, y: 10 },
+      { x: 6, y: 10 },
+      { x: 6, y: 4 },
+      { x: 4, y: 4 },
+      { x: 4, y: 10 },
+      { x: 0, y: 10 },
+    ];
+    const bar = [
+      { x: -1, y: 6 },
+      { x: 11, y: 6 },
+      { x: 11, y: 8 },
+      { x: -1, y: 8 },
+    ];
+    const pieces = clipPolygon(bar, l).map((p) => Math.abs(signedArea(p)));
+    expect(pieces.sort()).toEqual([expect.closeTo(8, 9), expect.closeTo(8, 9)]);
   });
 });

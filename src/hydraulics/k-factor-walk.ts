@@ -6,9 +6,21 @@ import type { Emitter, HydraulicModel } from './model.js';
 import { buildSkeleton, type Skeleton } from './skeleton.js';
 import { maxOf, minOf } from '../arrays.js';
 
+export interface Demand {
+  pressure: number;
+  flow: number;
+}
+
 export interface TreeBound {
   /** Upper bounds on the required source pressure (psi) and the source flow (gpm), or null where none holds. */
-  bound(headIds: string[]): { pressure: number; flow: number } | null;
+  bound(headIds: string[]): Demand | null;
+  /**
+   * Upper bounds that hold for every set `base` ∪ `run`, where a run is `size` heads in a row of `line` starting at
+   * `first` … `last` (the placements of a design area's leftover heads): the runs, summed up where the line's water
+   * first meets other water, enter the walk as one input that asks at least the pressure of each and, at any higher
+   * pressure, draws at least the flow of each. `line` is the heads of a line in order, the same array every call.
+   */
+  boundAlong(base: string[], line: readonly string[], first: number, last: number, size: number): Demand | null;
 }
 
 /**
@@ -132,103 +144,205 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
   const pressureAt = (v: number) => P[v]! + (R[v]! > 0 ? R[v]! * pow(Q[v]!, HW_EXPONENT) : 0);
   /** Resistance of chain `c` between interior positions x and y (0 and length + 1 are its ends). */
   const resistance = (c: number, x: number, y: number) => Math.abs(sk.chains[c]!.cumR[y]! - sk.chains[c]!.cumR[x]!);
-  return {
-    bound(headIds) {
-      epoch++;
-      touched = 0;
-      levelSeen = false;
-      headCount = 0;
-      for (const id of headIds) {
-        const e = emitterOf.get(id);
-        if (!e) return null;
-        heads[headCount++] = e;
-        const anchor = sk.anchorOf[e.node]!;
-        if (anchor >= 0) {
-          if (!touch(anchor)) return null;
-          continue;
-        }
-        const c = sk.chainOf[e.node]!;
+  /** Where a head's water first enters an anchor: its own anchor, or the upper end of its chain. */
+  const entryOf = (e: Emitter) => {
+    const anchor = sk.anchorOf[e.node]!;
+    if (anchor >= 0) return anchor;
+    const c = sk.chainOf[e.node]!;
+    const chain = sk.chains[c]!;
+    return upAnchor[upChain[chain.a] === c ? chain.a : chain.b]!;
+  };
+  /**
+   * The walk of the open heads `headIds` towards the source: the source's pressure and flow, or the anchor
+   * `stopAt`'s once every head below it has arrived; `extra` joins at its anchor as one more input.
+   */
+  const walk = (headIds: string[], stopAt: number, extra: { anchor: number; pressure: number; flow: number } | null): Demand | null => {
+    epoch++;
+    touched = 0;
+    levelSeen = false;
+    headCount = 0;
+    if (extra && !touch(extra.anchor)) return null;
+    for (const id of headIds) {
+      const e = emitterOf.get(id);
+      if (!e) return null;
+      heads[headCount++] = e;
+      const anchor = sk.anchorOf[e.node]!;
+      if (anchor >= 0) {
+        if (!touch(anchor)) return null;
+        continue;
+      }
+      const c = sk.chainOf[e.node]!;
+      const indices = chainHeadIndex[c]!;
+      const emitters = chainHeadEmitter[c]!;
+      if (chainStamp[c] !== epoch) {
+        chainStamp[c] = epoch;
+        chainHeadCount[c] = 0;
+      }
+      // Kept in order along the chain (a few heads: an insertion, no sort).
+      const index = sk.indexInChain[e.node]!;
+      let k = chainHeadCount[c]!++;
+      for (; k > 0 && indices[k - 1]! > index; k--) {
+        indices[k] = indices[k - 1]!;
+        emitters[k] = emitters[k - 1]!;
+      }
+      indices[k] = index;
+      emitters[k] = e;
+      // The chain's lower end: the anchor whose way to the source runs through it.
+      const chain = sk.chains[c]!;
+      if (!touch(upChain[chain.a] === c ? chain.a : chain.b)) return null;
+    }
+    for (let h = 0; h < headCount; h++) {
+      const e = heads[h]!;
+      const anchor = sk.anchorOf[e.node]!;
+      if (anchor < 0) continue;
+      scratch[0] = P[anchor]!;
+      scratch[1] = Q[anchor]!;
+      join(e.required, e.k * Math.sqrt(e.required));
+      P[anchor] = scratch[0]!;
+      Q[anchor] = scratch[1]!;
+    }
+    // Deepest first: in breadth-first order from the source, read backwards (typed sort, in place).
+    touchedRanks.subarray(0, touched).sort();
+    for (let x = touched - 1; x >= 0; x--) {
+      const v = order[touchedRanks[x]!]!;
+      if (extra && v === extra.anchor) {
+        // Every input from below has arrived: the extra one joins.
+        scratch[0] = Q[v]! > 0 ? pressureAt(v) : 0;
+        scratch[1] = Q[v]!;
+        join(extra.pressure, extra.flow);
+        P[v] = scratch[0]!;
+        Q[v] = scratch[1]!;
+        R[v] = 0;
+      }
+      if (v === stopAt) return { pressure: pressureAt(v), flow: Q[v]! };
+      const u = upAnchor[v]!;
+      if (u < 0) return { pressure: pressureAt(v), flow: Q[v]! };
+      // Up the chain from v to u, joining its open heads on the way.
+      const c = upChain[v]!;
+      const chain = sk.chains[c]!;
+      const fromA = chain.a === v;
+      const end = fromA ? chain.nodes.length + 1 : 0;
+      const rise = PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
+      let p: number;
+      let q: number;
+      let r: number;
+      if (chainStamp[c] === epoch) {
+        let pos = fromA ? 0 : chain.nodes.length + 1;
+        scratch[0] = Q[v]! > 0 ? pressureAt(v) : 0;
+        scratch[1] = Q[v]!;
         const indices = chainHeadIndex[c]!;
         const emitters = chainHeadEmitter[c]!;
-        if (chainStamp[c] !== epoch) {
-          chainStamp[c] = epoch;
-          chainHeadCount[c] = 0;
+        const count = chainHeadCount[c]!;
+        for (let h = 0; h < count; h++) {
+          const k = fromA ? h : count - 1 - h;
+          const e = emitters[k]!;
+          if (scratch[1]! > 0) scratch[0] = scratch[0]! + resistance(c, pos, indices[k]! + 1) * pow(scratch[1]!, HW_EXPONENT);
+          join(e.required, e.k * Math.sqrt(e.required));
+          pos = indices[k]! + 1;
         }
-        // Kept in order along the chain (a few heads: an insertion, no sort).
-        const index = sk.indexInChain[e.node]!;
-        let k = chainHeadCount[c]!++;
-        for (; k > 0 && indices[k - 1]! > index; k--) {
-          indices[k] = indices[k - 1]!;
-          emitters[k] = emitters[k - 1]!;
-        }
-        indices[k] = index;
-        emitters[k] = e;
-        // The chain's lower end: the anchor whose way to the source runs through it.
-        const chain = sk.chains[c]!;
-        if (!touch(upChain[chain.a] === c ? chain.a : chain.b)) return null;
+        p = scratch[0]! + rise;
+        q = scratch[1]!;
+        r = resistance(c, pos, end);
+      } else {
+        p = P[v]! + rise;
+        q = Q[v]!;
+        r = R[v]! + resistance(c, fromA ? 0 : chain.nodes.length + 1, end);
       }
-      for (let h = 0; h < headCount; h++) {
-        const e = heads[h]!;
-        const anchor = sk.anchorOf[e.node]!;
-        if (anchor < 0) continue;
-        scratch[0] = P[anchor]!;
-        scratch[1] = Q[anchor]!;
-        join(e.required, e.k * Math.sqrt(e.required));
-        P[anchor] = scratch[0]!;
-        Q[anchor] = scratch[1]!;
+      if (q === 0) continue;
+      if (Q[u] === 0) {
+        P[u] = p;
+        Q[u] = q;
+        R[u] = r;
+        continue;
       }
-      // Deepest first: in breadth-first order from the source, read backwards (typed sort, in place).
-      touchedRanks.subarray(0, touched).sort();
-      for (let x = touched - 1; x >= 0; x--) {
-        const v = order[touchedRanks[x]!]!;
-        const u = upAnchor[v]!;
-        if (u < 0) return { pressure: pressureAt(v), flow: Q[v]! };
-        // Up the chain from v to u, joining its open heads on the way.
-        const c = upChain[v]!;
-        const chain = sk.chains[c]!;
-        const fromA = chain.a === v;
-        const end = fromA ? chain.nodes.length + 1 : 0;
-        const rise = PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
-        let p: number;
-        let q: number;
-        let r: number;
-        if (chainStamp[c] === epoch) {
-          let pos = fromA ? 0 : chain.nodes.length + 1;
-          scratch[0] = Q[v]! > 0 ? pressureAt(v) : 0;
-          scratch[1] = Q[v]!;
-          const indices = chainHeadIndex[c]!;
-          const emitters = chainHeadEmitter[c]!;
-          const count = chainHeadCount[c]!;
-          for (let h = 0; h < count; h++) {
-            const k = fromA ? h : count - 1 - h;
-            const e = emitters[k]!;
-            if (scratch[1]! > 0) scratch[0] = scratch[0]! + resistance(c, pos, indices[k]! + 1) * pow(scratch[1]!, HW_EXPONENT);
-            join(e.required, e.k * Math.sqrt(e.required));
-            pos = indices[k]! + 1;
-          }
-          p = scratch[0]! + rise;
-          q = scratch[1]!;
-          r = resistance(c, pos, end);
-        } else {
-          p = P[v]! + rise;
-          q = Q[v]!;
-          r = R[v]! + resistance(c, fromA ? 0 : chain.nodes.length + 1, end);
+      scratch[0] = pressureAt(u);
+      scratch[1] = Q[u]!;
+      join(p + r * pow(q, HW_EXPONENT), q);
+      P[u] = scratch[0]!;
+      Q[u] = scratch[1]!;
+      R[u] = 0;
+    }
+    return null;
+  };
+  /** Anchors by depth below the source, for meeting points. */
+  const depth = new Int32Array(nA);
+  for (const v of order) if (upAnchor[v]! >= 0) depth[v] = depth[upAnchor[v]!]! + 1;
+  const meet = (a: number, b: number) => {
+    while (a !== b) {
+      if (depth[a]! >= depth[b]!) a = upAnchor[a]!;
+      else b = upAnchor[b]!;
+    }
+    return a;
+  };
+  /**
+   * What a line's runs share in every group: where its water meets other water (`top`), the anchors and chains
+   * its water passes below that (marked), and each run's pressure and flow at `top`, by size and first head.
+   */
+  interface LineWater {
+    top: number;
+    belowAnchor: Uint8Array;
+    belowChain: Uint8Array;
+    runs: Map<number, (Demand | null)[]>;
+  }
+  const lines = new WeakMap<readonly string[], LineWater | null>();
+  const lineWater = (line: readonly string[]): LineWater | null => {
+    if (lines.has(line)) return lines.get(line)!;
+    const emitters = line.map((id) => emitterOf.get(id));
+    let water: LineWater | null = null;
+    if (emitters.every((e) => e !== undefined)) {
+      const top = (emitters as Emitter[]).map(entryOf).reduce(meet);
+      const belowAnchor = new Uint8Array(nA);
+      const belowChain = new Uint8Array(nC);
+      for (const e of emitters as Emitter[]) {
+        let v = sk.anchorOf[e.node]!;
+        if (v < 0) {
+          belowChain[sk.chainOf[e.node]!] = 1;
+          v = entryOf(e);
         }
-        if (q === 0) continue;
-        if (Q[u] === 0) {
-          P[u] = p;
-          Q[u] = q;
-          R[u] = r;
-          continue;
+        for (; v !== top && v >= 0; v = upAnchor[v]!) {
+          belowAnchor[v] = 1;
+          if (upChain[v]! >= 0) belowChain[upChain[v]!] = 1;
         }
-        scratch[0] = pressureAt(u);
-        scratch[1] = Q[u]!;
-        join(p + r * pow(q, HW_EXPONENT), q);
-        P[u] = scratch[0]!;
-        Q[u] = scratch[1]!;
-        R[u] = 0;
       }
-      return null;
+      water = { top, belowAnchor, belowChain, runs: new Map() };
+    }
+    lines.set(line, water);
+    return water;
+  };
+  /** Whether a base head's water meets the line's below its `top` (then the runs cannot be summed up there). */
+  const meetsBelow = (e: Emitter, w: LineWater) => {
+    const onChain = sk.anchorOf[e.node]! < 0;
+    if (onChain && w.belowChain[sk.chainOf[e.node]!]) return true;
+    for (let v = onChain ? entryOf(e) : sk.anchorOf[e.node]!; v >= 0 && depth[v]! > depth[w.top]!; v = upAnchor[v]!) {
+      if (w.belowAnchor[v] || (upChain[v]! >= 0 && w.belowChain[upChain[v]!])) return true;
+    }
+    return false;
+  };
+  return {
+    bound: (headIds) => walk(headIds, -1, null),
+    boundAlong(base, line, first, last, size) {
+      if (first >= last) return walk([...base, ...line.slice(first, first + size)], -1, null);
+      const w = lineWater(line);
+      const union = () => walk([...base, ...line.slice(first, last + size)], -1, null);
+      if (!w) return null;
+      for (const id of base) {
+        const e = emitterOf.get(id);
+        if (!e) return null;
+        if (meetsBelow(e, w)) return union();
+      }
+      let each = w.runs.get(size);
+      if (!each) w.runs.set(size, (each = new Array<Demand | null>(line.length)));
+      let pressure = 0;
+      for (let k = first; k <= last; k++) {
+        // A run's sum at `top` is the same in every group it is a placement of.
+        let d = each[k];
+        if (d === undefined) each[k] = d = walk(line.slice(k, k + size), w.top, null);
+        if (!d) return null;
+        pressure = Math.max(pressure, d.pressure);
+      }
+      let flow = 0;
+      for (let k = first; k <= last; k++) flow = Math.max(flow, each[k]!.flow * pow(pressure / each[k]!.pressure, raiseExponent));
+      return walk(base, -1, { anchor: w.top, pressure, flow });
     },
   };
 }

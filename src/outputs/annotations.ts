@@ -90,9 +90,10 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
   const areaColor = { drawn: 2, 'most-demanding': 6, 'runner-up': 4 };
   for (const area of a.design.areas) {
     const key = area.rank ?? 'drawn';
-    if (area.outline.length < 3) continue;
-    prims.push({ kind: 'polyline', layer: LAYERS.area.name, points: area.outline, closed: true, color: areaColor[key] });
-    const top = boundsOf(area.outline);
+    const rings = area.outline.filter((r) => r.length >= 3);
+    if (!rings.length) continue;
+    for (const ring of rings) prims.push({ kind: 'polyline', layer: LAYERS.area.name, points: ring, closed: true, color: areaColor[key] });
+    const top = boundsOf(rings.flat());
     const hy = area.hydraulics;
     const numbers = hy ? `, ${fmt.pressure(hy.sourcePressure)} at ${fmt.flow(hy.sourceFlow)} at the source` : '';
     prims.push({

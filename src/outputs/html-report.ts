@@ -76,10 +76,16 @@ function planSvg(result: Reviewed): string {
     parts,
     plan.walls.map((s) => `<path class="wall" d="${path([s.a, ...s.via, s.b], false)}"/>`),
   );
-  for (const a of design.areas) {
-    if (a.outline.length < 3) continue;
+  for (const z of result.zoning.zones) {
     parts.push(
-      `<path class="area area-${a.rank ?? 'drawn'}" d="${path(a.outline, true)}"><title>${esc(a.rank ?? 'drawn')} design area: ${a.headIds.length} heads</title></path>`,
+      `<path class="zone" d="${path(z.outline, true)}"><title>zone ${esc(z.label ?? z.id)}: ${esc(z.hazard)}${z.pattern === null ? ' (no basis given: the design)' : ''}</title></path>`,
+    );
+  }
+  for (const a of design.areas) {
+    const rings = a.outline.filter((r) => r.length >= 3);
+    if (!rings.length) continue;
+    parts.push(
+      `<path class="area area-${a.rank ?? 'drawn'}" d="${rings.map((r) => path(r, true)).join(' ')}"><title>${esc(a.rank ?? 'drawn')} design area: ${a.headIds.length} heads</title></path>`,
     );
   }
   // Few large paths, not one element per pipe or head: a plan of 20,000 heads stays smooth to zoom and pan.
@@ -147,7 +153,7 @@ function designAreasHtml(result: Reviewed, fmt: ReturnType<typeof formatterFor>)
   const rows = design.areas.map((a) => {
     const hy = a.hydraulics;
     return (
-      `<tr><td>${esc(a.rank ?? 'drawn')}</td><td>${esc(a.system ?? '-')}</td><td>${esc(zoneName(a.zone) || '-')}</td><td>${a.headIds.length}</td><td>${esc(fmt.length(a.length))}</td><td>${esc(fmt.length(a.width))}</td><td>${esc(fmt.area(a.actualArea))}</td>` +
+      `<tr><td>${esc(a.rank ?? 'drawn')}</td><td>${esc(a.system ?? '-')}</td><td>${esc(zoneName(a.zone) || '-')}</td><td>${a.headIds.length}</td><td>${esc(fmt.length(a.length))}</td><td>${esc(fmt.length(a.width))}</td><td>${esc(fmt.area(a.actualArea))}</td><td>${esc(fmt.area(a.coveredArea))}</td>` +
       `<td>${hy ? esc(fmt.pressure(hy.sourcePressure)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.sourceFlow)) : '-'}</td><td>${hy ? esc(fmt.flow(hy.totalDemand)) : '-'}</td>` +
       `<td>${hy?.supplyAvailable != null ? esc(fmt.pressure(hy.supplyAvailable)) : '-'}</td><td>${hy?.margin != null ? esc(fmt.pressure(hy.margin)) : '-'}</td>` +
       `<td>${hy?.handMethod ? esc(fmt.pressure(hy.handMethod.sourcePressure)) : '-'}</td><td>${esc(a.note ?? '')}</td></tr>`
@@ -176,7 +182,7 @@ function designAreasHtml(result: Reviewed, fmt: ReturnType<typeof formatterFor>)
 <details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>`;
   });
   return `<section><h2>Design areas</h2>${head}${groups.length ? `<ul>${groups.join('')}</ul>` : ''}
-<div class="scroll"><table id="areas"><thead><tr><th>area</th><th>system</th><th>zone</th><th>heads</th><th>length</th><th>width</th><th>actual area</th><th>source pressure</th><th>source flow</th><th>with hose</th><th>supply</th><th>margin</th><th>hand method</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table></div>
+<div class="scroll"><table id="areas"><thead><tr><th>area</th><th>system</th><th>zone</th><th>heads</th><th>length</th><th>width</th><th>floor area</th><th>S × L</th><th>source pressure</th><th>source flow</th><th>with hose</th><th>supply</th><th>margin</th><th>hand method</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table></div>
 ${tables.join('\n')}</section>`;
 }
 
@@ -206,7 +212,7 @@ h1{font-size:1.4rem;margin:.3em 0}h2{font-size:1.15rem;border-bottom:1px solid #
 .caution{font-size:.9rem;background:#fff6d6;padding:6px 8px;border-radius:4px}
 .planbox{width:100%;height:70vh;border:1px solid #ccc;background:#fff;overflow:hidden;touch-action:none;cursor:grab}
 #plan{width:100%;height:100%;display:block;transform-origin:0 0;will-change:transform}
-.room{fill:#f4f4f4;stroke:#555;stroke-width:1.2px;vector-effect:non-scaling-stroke}.wall{stroke:#555;fill:none;stroke-width:1.2px;vector-effect:non-scaling-stroke}
+.zone{fill:#e8eefc;fill-opacity:.5;stroke:#5b6fa8;stroke-dasharray:6 3;stroke-width:1px;vector-effect:non-scaling-stroke}.room{fill:#f4f4f4;stroke:#555;stroke-width:1.2px;vector-effect:non-scaling-stroke}.wall{stroke:#555;fill:none;stroke-width:1.2px;vector-effect:non-scaling-stroke}
 .pipe{fill:none;stroke-width:2px;stroke-linecap:round;vector-effect:non-scaling-stroke}
 .head{fill:#fff;stroke:#c62828;stroke-width:1px;vector-effect:non-scaling-stroke}.head.flowing{fill:#c62828}
 .area{fill:none;stroke-width:1.6px;stroke-dasharray:8 4;vector-effect:non-scaling-stroke}

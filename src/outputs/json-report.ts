@@ -148,7 +148,10 @@ export interface ReportDesignArea {
   heads: string[];
   headIds: string[];
   branchLines: string[];
-  outline: { x: number; y: number }[];
+  /** The outline's rings (two where the leftover heads lie apart from the rectangle). */
+  outline: { x: number; y: number }[][];
+  /** Sum of the heads' S × L (actualArea is the floor the outline encloses). */
+  coveredArea: number;
   handle: string | null;
   note: string | null;
   hydraulics: null | {
@@ -376,7 +379,8 @@ function designAreasOf(r: ReportInput, c: Converter): ReportDesignArea[] {
       heads: [...new Set(a.headIds.map((id) => handleOf.get(id)!))],
       headIds: a.headIds,
       branchLines: a.lineIds,
-      outline: a.outline.map((p) => ({ x: round(c.length(p.x)), y: round(c.length(p.y)) })),
+      outline: a.outline.map((ring) => ring.map((p) => ({ x: round(c.length(p.x)), y: round(c.length(p.y)) }))),
+      coveredArea: round(c.area(a.coveredArea)),
       handle: a.handle,
       note: a.note,
       hydraulics: h && {

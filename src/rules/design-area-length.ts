@@ -18,7 +18,7 @@ export const designAreaLength: Rule<'design-area-length'> = {
         finding(this.meta, {
           params: { length: a.length, min },
           handles: a.handle ? [a.handle] : [],
-          at: a.outline[0]!,
+          at: a.at,
           measured: a.length,
           limit: min,
           quantity: 'length',

@@ -30,7 +30,7 @@ export const designAreaMissing: Rule<'design-area-missing'> = {
           severity: 'warning',
           params: { kind: 'not-calculated', source: a.source, note: a.note ?? '' },
           handles: a.handle ? [a.handle] : [],
-          at: a.outline[0] ?? at,
+          at: a.at,
         }),
       );
     }

@@ -2,7 +2,7 @@
 // (2019 edition), 28.2.4.1); differences under 0.5 psi at the source count as equal (common practice, no source).
 
 import { expect } from 'vitest';
-import { areaConfig, areaLayout, nearRiser, searchedOutline } from '../../test/support/design-area-layout.js';
+import { areaConfig, areaLayout, nearRiser, remoteOutline } from '../../test/support/design-area-layout.js';
 import { ruleTester } from '../../test/support/rule-tester.js';
 import { designAreaNotRemote } from './design-area-not-remote.js';
 
@@ -11,7 +11,11 @@ const config = areaConfig;
 
 ruleTester(designAreaNotRemote, {
   valid: [
-    { name: 'the drawn area is the searched one', layout: { ...layout, drawnArea: searchedOutline() }, config },
+    {
+      name: 'the remote area drawn, its 13th head under the rectangle (0.04 psi short of the searched one)',
+      layout: { ...layout, drawnArea: remoteOutline },
+      config,
+    },
     { name: 'no drawn area', layout, config },
   ],
   invalid: [

@@ -14,12 +14,13 @@ export const designAreaNotRemote: Rule<'design-area-not-remote'> = {
     reference: 'NFPA 13 (2019 edition), 28.2.4.1: the hydraulically most demanding design area (from memory)',
   },
   check({ design, settings }) {
-    const best = design.areas.find((a) => a.rank === 'most-demanding');
-    if (!best?.hydraulics) return [];
-    const bh = best.hydraulics;
     return design.areas
       .filter((a) => a.source === 'drawn' && a.hydraulics)
       .flatMap((a) => {
+        // Compared with the most demanding area of its own system and zone.
+        const best = design.areas.find((b) => b.rank === 'most-demanding' && b.system === a.system && b.zone === a.zone);
+        if (!best?.hydraulics) return [];
+        const bh = best.hydraulics;
         const h = a.hydraulics!;
         const worse = settings.supply
           ? h.margin! - bh.margin! > PRESSURE_TOLERANCE_PSI
@@ -33,9 +34,10 @@ export const designAreaNotRemote: Rule<'design-area-not-remote'> = {
               bestFlow: bh.sourceFlow,
               drawnPressure: h.sourcePressure,
               drawnFlow: h.sourceFlow,
+              place: best.place,
             },
             handles: a.handle ? [a.handle] : [],
-            at: best.outline[0]!,
+            at: best.at,
             measured: h.sourcePressure,
             limit: bh.sourcePressure,
             quantity: 'pressure',

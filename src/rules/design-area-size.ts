@@ -15,15 +15,15 @@ export const designAreaSize: Rule<'design-area-size'> = {
       .filter((a) => a.source === 'drawn')
       .flatMap((a) => {
         const need = a.shape?.totalHeads ?? 0;
-        const at = a.outline[0]!;
+        const at = a.at;
         const handles = a.handle ? [a.handle] : [];
-        if (a.actualArea < a.basis.area - 1e-6) {
+        if (a.coveredArea < a.basis.area - 1e-6) {
           return [
             finding(this.meta, {
-              params: { kind: 'area', area: a.actualArea, heads: a.headIds.length, required: a.basis.area },
+              params: { kind: 'area', area: a.coveredArea, heads: a.headIds.length, required: a.basis.area },
               handles,
               at,
-              measured: a.actualArea,
+              measured: a.coveredArea,
               limit: a.basis.area,
               quantity: 'area',
             }),

@@ -42,12 +42,20 @@ export interface FindingParams {
   };
   'design-area-size': { kind: 'area'; area: number; heads: number; required: number } | { kind: 'count'; heads: number; required: number };
   'design-area-length': { length: number; min: number };
-  'design-area-not-remote': { heads: string[]; bestPressure: number; bestFlow: number; drawnPressure: number; drawnFlow: number };
+  'design-area-not-remote': {
+    heads: string[];
+    bestPressure: number;
+    bestFlow: number;
+    drawnPressure: number;
+    drawnFlow: number;
+    place: string | null;
+  };
   'supply-short':
     | { kind: 'no-supply' }
     | {
         kind: 'short' | 'low-margin';
         area: 'drawn' | 'most-demanding' | 'runner-up';
+        place: string | null;
         pressure: number;
         demand: number;
         available: number;
@@ -152,12 +160,12 @@ export const MESSAGES: Templates = {
   'design-area-length': (p, fmt) =>
     `the drawn design area is ${fmt.length(p.length)} along the branch lines, under 1.2·√A = ${fmt.length(p.min)}`,
   'design-area-not-remote': (p, fmt) =>
-    `a more demanding area exists (heads ${listed(p.heads)}): it needs ${fmt.pressure(p.bestPressure)} at ${fmt.flow(p.bestFlow)} at the source, ` +
+    `a more demanding area exists${p.place === null ? '' : ` in ${p.place}`} (heads ${listed(p.heads)}): it needs ${fmt.pressure(p.bestPressure)} at ${fmt.flow(p.bestFlow)} at the source, ` +
     `the drawn one ${fmt.pressure(p.drawnPressure)} at ${fmt.flow(p.drawnFlow)} (${fmt.pressure(p.bestPressure - p.drawnPressure)}, ${fmt.flow(p.bestFlow - p.drawnFlow)} more)`,
   'supply-short': (p, fmt) => {
     if (p.kind === 'no-supply') return 'no flow test given (config "supply"): the supply was not compared with the demand';
     const dry = p.dryAt !== null ? ` (its flow test reaches zero pressure at ${fmt.flow(p.dryAt)})` : '';
-    const text = `${AREA_SAID[p.area]} needs ${fmt.pressure(p.pressure)} at ${fmt.flow(p.demand)} with hose streams; the supply gives ${fmt.pressure(p.available)}${dry}`;
+    const text = `${AREA_SAID[p.area]}${p.place === null ? '' : ` of ${p.place}`} needs ${fmt.pressure(p.pressure)} at ${fmt.flow(p.demand)} with hose streams; the supply gives ${fmt.pressure(p.available)}${dry}`;
     return p.kind === 'short' ? `${text}: short by ${fmt.pressure(-p.margin)}` : `${text}: a margin of only ${fmt.pressure(p.margin)}`;
   },
   'design-area-missing': (p) => {

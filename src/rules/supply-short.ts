@@ -18,7 +18,7 @@ export const supplyShort: Rule<'supply-short'> = {
   check({ design, settings }) {
     if (!settings.supply) {
       const any = design.areas.find((a) => a.hydraulics);
-      return any ? [finding(this.meta, { severity: 'info', params: { kind: 'no-supply' }, handles: [], at: any.outline[0]! })] : [];
+      return any ? [finding(this.meta, { severity: 'info', params: { kind: 'no-supply' }, handles: [], at: any.at })] : [];
     }
     const supply = settings.supply;
     return design.areas
@@ -30,6 +30,7 @@ export const supplyShort: Rule<'supply-short'> = {
         const params = {
           kind: margin < 0 ? ('short' as const) : ('low-margin' as const),
           area: a.rank ?? ('drawn' as const),
+          place: a.place,
           pressure: h.sourcePressure,
           demand: h.totalDemand,
           available: h.supplyAvailable!,
@@ -42,7 +43,7 @@ export const supplyShort: Rule<'supply-short'> = {
             ? finding(this.meta, {
                 params,
                 handles,
-                at: a.outline[0]!,
+                at: a.at,
                 measured: h.sourcePressure,
                 limit: h.supplyAvailable,
                 quantity: 'pressure',
@@ -51,7 +52,7 @@ export const supplyShort: Rule<'supply-short'> = {
                 severity: 'warning',
                 params,
                 handles,
-                at: a.outline[0]!,
+                at: a.at,
                 measured: margin,
                 limit: SAFETY_MARGIN_PSI,
                 quantity: 'pressure',

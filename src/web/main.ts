@@ -45,6 +45,13 @@ function configFromForm(): Record<string, unknown> {
   if (num('density') !== undefined) design['density'] = num('density');
   if (num('area') !== undefined) design['area'] = num('area');
   const config: Record<string, unknown> = { design };
+  // "OFFICE*=LH; *STORAGE*=OH2": zone label patterns and their hazard (the validator says what is wrong with one).
+  const zones = v('zones')
+    .split(';')
+    .map((pair) => pair.split('=').map((x) => x.trim()))
+    .filter(([pattern]) => pattern);
+  if (zones.length)
+    config['zones'] = Object.fromEntries(zones.map(([pattern, hazard]) => [pattern, { hazard: (hazard ?? '').toUpperCase() }]));
   const defaults: Record<string, unknown> = {};
   if (num('kFactor') !== undefined) defaults['kFactor'] = num('kFactor');
   if (v('pipeSize')) defaults['pipeSize'] = v('pipeSize');
