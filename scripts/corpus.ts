@@ -92,7 +92,7 @@ export async function runCorpus(
       const config = given ? ['--config', given] : ['--no-config'];
       const limit = options.timeoutS ?? 120;
       const layers = await runOnce(['layers', file, ...config], limit);
-      const check = await runOnce(['check', file, ...config], limit);
+      const check = await runOnce(['check', file, '--quiet', ...config], limit);
       rows[i] = { file: files[i]!, bytes: statSync(file).size, layers, check };
     }
   };

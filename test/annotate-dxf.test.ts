@@ -11,6 +11,8 @@ import { FORMATS } from '../src/check/formats.js';
 import { runCheck } from '../src/check/run-check.js';
 import { parseSettings } from '../src/config/settings.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
+import { layoutDxf } from '../src/demo/generated-layout.js';
+import { ANNOTATION_COLORS } from '../src/outputs/annotations.js';
 import { GroupCursor } from '../src/read/dxf/groups.js';
 import { readDrawing } from '../src/read/read-drawing.js';
 import { describeWith, hasCommand, hasEzdxf, SYSTEM_PYTHON } from './support/external.js';
@@ -120,6 +122,75 @@ describeWith('python3-ezdxf', hasEzdxf(), 'annotated drawings in ezdxf', () => {
       }
       expect(rep.hcEntities).toBeGreaterThan(5);
       expect(rep.blocks).toContain('HC-LEGEND');
+    }
+  });
+});
+
+describeWith('python3-ezdxf', hasEzdxf(), 'annotation texts measured by ezdxf', () => {
+  // The demo, the buildings, and a crowded plan: heads 3 ft apart (every one a finding), a drawn area beside the
+  // searched ones, tags of close heads. Text boxes by ezdxf's text-size tool (its monospace font without Matplotlib:
+  // each character as wide as the text is high), the legend by its frame.
+  const crowded = layoutDxf({
+    s: 3,
+    l: 3,
+    heads: 10,
+    lines: 6,
+    drawnArea: [
+      { x: 0, y: 0 },
+      { x: 15, y: 0 },
+      { x: 15, y: 18 },
+      { x: 0, y: 18 },
+    ],
+  });
+  const more = [
+    ...['two-risers', 'zones', 'l-room'].map((n) => ({
+      name: `building-${n}`,
+      bytes: new Uint8Array(readFileSync(`fixtures/building-${n}.dxf`)),
+      config: {},
+    })),
+    { name: 'crowded', bytes: new TextEncoder().encode(crowded), config: { design: { area: 300 } } },
+  ];
+  it.each([...cases, ...more].map((c) => [c.name, c] as const))('%s: no two HC- texts overlap, none overlaps the legend', (_, c) => {
+    const dir = mkdtempSync(join(tmpdir(), 'hc-texts-'));
+    const file = join(dir, `${c.name}.dxf`);
+    writeFileSync(file, annotate(c).out);
+    const r = spawnSync(SYSTEM_PYTHON, ['scripts/ezdxf-texts.py', file], { encoding: 'utf8', timeout: 120_000 });
+    expect(r.status, r.stderr).toBe(0);
+    const { texts, legends } = JSON.parse(r.stdout) as { texts: { text: string; box: number[] }[]; legends: number[][] };
+    expect(texts.length).toBeGreaterThan(3);
+    expect(legends).toHaveLength(1);
+    const overlap = (a: number[], b: number[]) =>
+      a[0]! < b[2]! - 1e-9 && b[0]! < a[2]! - 1e-9 && a[1]! < b[3]! - 1e-9 && b[1]! < a[3]! - 1e-9;
+    const clashes: string[] = [];
+    texts.forEach((t, i) => {
+      for (const u of texts.slice(i + 1)) if (overlap(t.box, u.box)) clashes.push(`"${t.text}" over "${u.text}"`);
+      if (overlap(t.box, legends[0]!)) clashes.push(`"${t.text}" over the legend`);
+    });
+    expect(clashes).toEqual([]);
+  });
+
+  it('every annotation colour reads on white and on black paper: contrast ratio at least 3.5 on both (WCAG 2 formula, ezdxf palette)', () => {
+    const r = spawnSync(
+      SYSTEM_PYTHON,
+      [
+        '-c',
+        `import json; from ezdxf.colors import aci2rgb; print(json.dumps([aci2rgb(i) for i in ${JSON.stringify([...ANNOTATION_COLORS])}]))`,
+      ],
+      {
+        encoding: 'utf8',
+        timeout: 60_000,
+      },
+    );
+    expect(r.status, r.stderr).toBe(0);
+    const luminance = (rgb: number[]) => {
+      const [R, G, B] = rgb.map((c) => (c / 255 <= 0.03928 ? c / 255 / 12.92 : ((c / 255 + 0.055) / 1.055) ** 2.4));
+      return 0.2126 * R! + 0.7152 * G! + 0.0722 * B!;
+    };
+    for (const [i, rgb] of (JSON.parse(r.stdout) as number[][]).entries()) {
+      const L = luminance(rgb);
+      const color = ANNOTATION_COLORS[i];
+      if (color === 7) continue; // black on white paper, white on black: by the background itself
+      expect(Math.min(1.05 / (L + 0.05), (L + 0.05) / 0.05), `ACI ${color}`).toBeGreaterThanOrEqual(3.5);
     }
   });
 });

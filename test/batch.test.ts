@@ -63,6 +63,17 @@ describe('headcheck batch', () => {
     const index = readFileSync(join(out, 'index.html'), 'utf8');
     expect(index.indexOf('broken.dxf')).toBeLessThan(index.indexOf('clean.dxf')); // worst first
     expect(index).toMatch(/authority having jurisdiction/);
+    // the Markdown summary only when asked for
+    expect(files.filter((f) => f.endsWith('.md'))).toEqual([]);
+  });
+
+  it('writes a review summary per drawing with --md', () => {
+    const out = join(set, 'out-md');
+    const r = run(join(set, 'clean.dxf'), '--out', out, '--md', '--no-dxf', '--no-html');
+    expect(r.status, r.stderr).toBe(0);
+    const md = readdirSync(out).filter((f) => f.endsWith('.md'));
+    expect(md).toHaveLength(1);
+    expect(readFileSync(join(out, md[0]!), 'utf8')).toMatch(/\*\*Verdict: PASS\*\*[\s\S]*authority having jurisdiction/);
   });
 
   it('reuses unchanged results, never a drawing that could not be checked, redoes changed ones, and all with --force', () => {

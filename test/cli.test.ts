@@ -39,6 +39,24 @@ describe('headcheck check', () => {
     expect(report.caution).toMatch(/authority having jurisdiction/);
   });
 
+  it('prints each error and warning finding on a line, then the verdict; --quiet only the verdict; --md the summary', async () => {
+    const md = join(dir, 'bay2.md');
+    const r = await run('check', 'fixtures/bay2-r2000.dxf', '--md', md);
+    const report = JSON.parse(readFileSync(join(dir, 'bay2.json'), 'utf8'));
+    const lines = r.out.split('\n');
+    expect(lines).toHaveLength(report.summary.errors + report.summary.warnings + 1);
+    expect(lines.at(-1)).toMatch(/^fixtures\/bay2-r2000\.dxf: FAIL: 13 heads/);
+    for (const line of lines.slice(0, -1))
+      expect(line).toMatch(/^fixtures\/bay2-r2000\.dxf: (error|warning) [a-z-]+ at \(-?\d+\.\d, -?\d+\.\d\) ft: .+/);
+    expect((await run('check', 'fixtures/bay2-r2000.dxf', '--quiet')).out.split('\n')).toHaveLength(1);
+    const text = readFileSync(md, 'utf8');
+    expect(text).toMatch(/^# Review summary: fixtures\/bay2-r2000\.dxf\n/);
+    expect(text).toContain('**Verdict: FAIL**');
+    expect(text).toMatch(/> headcheck is a screening aid .* authority having jurisdiction/);
+    for (const f of report.findings) for (const h of f.handles) expect(text).toContain(h);
+    expect(text).toContain('## Design areas');
+  });
+
   it('exits 0 on a clean layout', async () => {
     const file = join(dir, 'clean.dxf');
     writeFileSync(file, layoutDxf({ s: 12, l: 10, heads: 4, lines: 3 }));

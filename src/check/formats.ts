@@ -5,6 +5,7 @@
 import { annotateDxf } from '../outputs/annotate-dxf.js';
 import { buildAnnotations } from '../outputs/annotations.js';
 import { htmlReport } from '../outputs/html-report.js';
+import { markdownReport } from '../outputs/markdown-report.js';
 import type { Reviewed } from '../outputs/reviewed.js';
 import { formatterFor } from '../quantities/format.js';
 
@@ -17,6 +18,8 @@ export interface OutputFormat {
   /** The file name ending batch outputs and page downloads take. */
   extension: string;
   mediaType: string;
+  /** Whether `batch` writes it for each drawing unless told not to (`--no-NAME`); else only when asked (`--NAME`). */
+  inBatch: boolean;
   make(reviewed: Reviewed): OutputData;
 }
 
@@ -25,12 +28,14 @@ export const FORMATS = {
     description: 'the JSON report',
     extension: '.json',
     mediaType: 'application/json',
+    inBatch: true,
     make: (r) => `${JSON.stringify(r.report, null, 2)}\n`,
   },
   dxf: {
     description: 'the annotated drawing (DXF)',
     extension: '.annotated.dxf',
     mediaType: 'application/dxf',
+    inBatch: true,
     // In pieces, most of them views of the input's bytes.
     make: (r) =>
       annotateDxf(
@@ -50,7 +55,14 @@ export const FORMATS = {
         }),
       ),
   },
-  html: { description: 'the HTML report', extension: '.html', mediaType: 'text/html', make: (r) => htmlReport(r) },
+  html: { description: 'the HTML report', extension: '.html', mediaType: 'text/html', inBatch: true, make: (r) => htmlReport(r) },
+  md: {
+    description: 'the review summary (Markdown)',
+    extension: '.md',
+    mediaType: 'text/markdown',
+    inBatch: false,
+    make: (r) => markdownReport(r),
+  },
 } satisfies Record<string, OutputFormat>;
 
 export type FormatName = keyof typeof FORMATS;

@@ -16,7 +16,7 @@ import { collectBetweenStages } from '../io/collect.js';
 import { findConfig, loadSettings, type FoundConfig } from '../io/config-file.js';
 import { assertNotInput, cleanUpOnSignals, readInputFile, sha256Hex, writeAllAtomically } from '../io/files.js';
 import { layersReport, layersText, starterConfig } from './layers-table.js';
-import { summaryLine } from './summary-line.js';
+import { findingLines, summaryLine } from './summary-line.js';
 
 interface BatchCliOptions extends Partial<Record<FormatName, boolean>> {
   out: string;
@@ -39,7 +39,7 @@ interface DrawingOptions {
   requireHydraulics?: boolean;
 }
 
-type CheckOptions = DrawingOptions & Partial<Record<FormatName, string>> & { units: UnitSystem };
+type CheckOptions = DrawingOptions & Partial<Record<FormatName, string>> & { units: UnitSystem; quiet?: boolean };
 
 /** A config the command found by itself (not given): said on stderr when the command ends. */
 const lookup: { found: FoundConfig | null } = { found: null };
@@ -77,6 +77,7 @@ async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: str
   const result = withFile(file, () => runCheck(input));
   // Each output is made when its turn to be written comes, and is garbage once written.
   await writeAllAtomically(wanted.map((f) => ({ path: opts[f]!, data: () => withFile(file, () => FORMATS[f].make(result)) })));
+  if (!opts.quiet) for (const line of findingLines(file, result.report)) io.out(line);
   io.out(summaryLine(file, result.report));
   return result.report.summary.pass ? 0 : 1;
 }
@@ -119,6 +120,7 @@ export async function main(
     new Option('--require-hydraulics', 'a drawing without piping or a source fed by it is unusable (exit 2), not a warning');
   const check = configOptions(program.command('check <drawing>').description('audit one drawing')).addOption(requireHydraulicsOption());
   for (const f of FORMAT_NAMES) check.option(`--${f} <file>`, `write ${FORMATS[f].description}`);
+  check.option('--quiet', 'print only the summary line, not the error and warning findings');
   check.addOption(unitsOption()).action(async (drawing: string, opts: CheckOptions) => {
     code = await checkCommand(drawing, opts, io);
   });
@@ -135,7 +137,10 @@ export async function main(
     .option('--time-limit <s>', 'seconds per drawing', '300')
     .option('--memory-limit <mb>', 'heap per worker, MB', '4096')
     .option('--force', 'check every drawing again, even unchanged ones');
-  for (const f of FORMAT_NAMES) batch.option(`--no-${f}`, `skip ${FORMATS[f].description} of each drawing`);
+  for (const f of FORMAT_NAMES) {
+    if (FORMATS[f].inBatch) batch.option(`--no-${f}`, `skip ${FORMATS[f].description} of each drawing`);
+    else batch.option(`--${f}`, `write ${FORMATS[f].description} of each drawing too`);
+  }
   batch.action(async (inputs: string[], opts: BatchCliOptions) => {
     const positive = (v: string, name: string) => {
       const n = Number(v);
@@ -155,7 +160,10 @@ export async function main(
       ...(opts.drawingUnits ? { drawingUnits: opts.drawingUnits } : {}),
       requireHydraulics: opts.requireHydraulics === true,
       units: opts.units,
-      outputs: Object.fromEntries(FORMAT_NAMES.map((f) => [f, opts[f] !== false])) as Record<FormatName, boolean>,
+      outputs: Object.fromEntries(FORMAT_NAMES.map((f) => [f, FORMATS[f].inBatch ? opts[f] !== false : opts[f] === true])) as Record<
+        FormatName,
+        boolean
+      >,
       workers: Math.floor(positive(opts.workers, '--workers')),
       timeLimit: positive(opts.timeLimit, '--time-limit'),
       memoryLimit: positive(opts.memoryLimit, '--memory-limit'),

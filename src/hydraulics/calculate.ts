@@ -3,10 +3,10 @@
 
 import type { Settings } from '../config/settings.js';
 import type { Network } from '../network/types.js';
-import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
+import { frictionPsiPerFt, HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
 import { buildModel, type FlowingHead, type HydraulicModel } from './model.js';
-import { NetworkSolver, type SolveResult } from './solver.js';
+import { NetworkSolver, type FlowState, type SolveResult } from './solver.js';
 import { availablePressure } from './water-supply.js';
 import { maxOf } from '../arrays.js';
 
@@ -18,13 +18,69 @@ export interface AreaHydraulics {
   supplyAvailable: number | null;
   margin: number | null;
   criticalHeadId: string;
+  /** Handle of the head that sets the pressure: it gets exactly its required pressure. */
+  controllingHead: string;
+  /** The calculation a reader follows, one pipe a step from the controlling head up to the source. */
+  steps: CalculationStep[];
+  /** Every flowing head of the area. */
+  heads: FlowingHeadResult[];
   nodes: { id: string; pressure: number; flow: number; elevation: number }[];
-  pipes: { id: string; flow: number; velocity: number; frictionLoss: number; length: number; fittingsLength: number; fittings: string[] }[];
+  pipes: {
+    id: string;
+    from: string;
+    to: string;
+    nominalSize: string;
+    innerDiameter: number;
+    cFactor: number;
+    flow: number;
+    velocity: number;
+    frictionPerLength: number;
+    frictionLoss: number;
+    /** Plan length plus fittings, ft, and the fittings' share. */
+    length: number;
+    fittingsLength: number;
+    fittings: string[];
+  }[];
   riser: HydraulicModel['riser'];
   /** The classic hand method (K-factor balancing at junctions) on tree systems, for comparison; null otherwise. */
   handMethod: { sourcePressure: number; sourceFlow: number } | null;
   solves: number;
   iterations: number;
+}
+
+/**
+ * One pipe of the way from the controlling head to the source, against the flow: the pressure at its upstream end
+ * (`to`) is the pressure at `from` plus its friction and the pressure the rise from `to` up to `from` costs.
+ */
+export interface CalculationStep {
+  pipe: string;
+  from: string;
+  to: string;
+  nominalSize: string;
+  innerDiameter: number;
+  /** Plan length and the equivalent length of its fittings, ft. */
+  length: number;
+  fittingsLength: number;
+  fittings: string[];
+  cFactor: number;
+  flow: number;
+  /** Hazen-Williams friction, psi/ft, and over length + fittings, psi. */
+  frictionPerLength: number;
+  friction: number;
+  /** 0.433 psi/ft × (elevation of `from` − elevation of `to`), psi. */
+  elevationChange: number;
+  pressureFrom: number;
+  pressureTo: number;
+  velocity: number;
+}
+
+export interface FlowingHeadResult {
+  handle: string;
+  node: string;
+  kFactor: number;
+  requiredPressure: number;
+  pressure: number;
+  flow: number;
 }
 
 /** The source pressure is found to within this many psi (stated tolerance). */
@@ -63,6 +119,7 @@ export class AreaCalculator {
   readonly model: HydraulicModel;
   readonly solver: NetworkSolver;
   private readonly emitterOf: Map<string, number>;
+  private readonly handleOf: Map<string, string>;
   private readonly hand: ReturnType<typeof kFactorWalk>;
   private lastPressure: number | undefined;
 
@@ -76,6 +133,7 @@ export class AreaCalculator {
     if (this.model.emitters.length === 0) throw new Error('no flowing head is connected to the source');
     this.solver = new NetworkSolver(this.model);
     this.emitterOf = new Map(this.model.emitters.map((e, k) => [e.headId, k]));
+    this.handleOf = new Map(mayFlow.map((f) => [f.head.id, f.head.handle]));
     this.hand = kFactorWalk(this.model, HAND_METHOD_EXPONENT, this.solver.skeleton);
   }
 
@@ -168,6 +226,21 @@ export class AreaCalculator {
       supplyAvailable,
       margin: supplyAvailable === null ? null : supplyAvailable - P,
       criticalHeadId: d.criticalHeadId,
+      controllingHead: this.handleOf.get(d.criticalHeadId)!,
+      steps: stepsToSource(model, s, this.emitterOf.get(d.criticalHeadId)!),
+      heads: d.state.open.length
+        ? Array.from(d.state.open, (k) => {
+            const e = model.emitters[k]!;
+            return {
+              handle: this.handleOf.get(e.headId)!,
+              node: model.nodes[e.node]!.id,
+              kFactor: e.k,
+              requiredPressure: e.required,
+              pressure: s.pressure[e.node]!,
+              flow: s.emitterFlow[k]!,
+            };
+          })
+        : [],
       nodes: model.nodes.flatMap((n, i) => {
         if (!onBusy.has(i)) return [];
         const k = emitterAtNode.get(i);
@@ -178,8 +251,14 @@ export class AreaCalculator {
           ? [
               {
                 id: p.id,
+                from: model.nodes[p.from]!.id,
+                to: model.nodes[p.to]!.id,
+                nominalSize: p.nominalSize,
+                innerDiameter: p.diameter,
+                cFactor: p.c,
                 flow: s.flow[k]!,
                 velocity: velocityFtPerS(s.flow[k]!, p.diameter),
+                frictionPerLength: frictionPsiPerFt(s.flow[k]!, p.c, p.diameter),
                 frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
                 length: p.length,
                 fittingsLength: p.fittingsLength,
@@ -194,6 +273,51 @@ export class AreaCalculator {
       iterations: d.iterations,
     };
   }
+}
+
+/**
+ * The way from emitter `k`'s node to the source against the flow: at each node the pipe bringing it the most
+ * water (flow runs from higher to lower head, so the way never turns back), one step per pipe.
+ */
+function stepsToSource(model: HydraulicModel, s: FlowState, k: number): CalculationStep[] {
+  const incident: number[][] = model.nodes.map(() => []);
+  model.pipes.forEach((p, i) => {
+    incident[p.from]!.push(i);
+    incident[p.to]!.push(i);
+  });
+  const steps: CalculationStep[] = [];
+  const seen = new Set<number>();
+  for (let v = model.emitters[k]!.node; v !== model.source && !seen.has(v); ) {
+    seen.add(v);
+    // The flow into v along pipe i: its flow runs from → to, so into v where v is `to` and the flow is positive.
+    const inflow = (i: number) => (model.pipes[i]!.to === v ? s.flow[i]! : -s.flow[i]!);
+    const i = incident[v]!.reduce((a, b) => (inflow(b) > inflow(a) ? b : a));
+    if (!(inflow(i) > 0)) break;
+    const p = model.pipes[i]!;
+    const u = p.to === v ? p.from : p.to;
+    const flow = inflow(i);
+    const perLength = frictionPsiPerFt(flow, p.c, p.diameter);
+    steps.push({
+      pipe: p.id,
+      from: model.nodes[v]!.id,
+      to: model.nodes[u]!.id,
+      nominalSize: p.nominalSize,
+      innerDiameter: p.diameter,
+      length: p.length - p.fittingsLength,
+      fittingsLength: p.fittingsLength,
+      fittings: p.fittings,
+      cFactor: p.c,
+      flow,
+      frictionPerLength: perLength,
+      friction: p.r * flow ** HW_EXPONENT,
+      elevationChange: PSI_PER_FT * (model.nodes[v]!.elevation - model.nodes[u]!.elevation),
+      pressureFrom: s.pressure[v]!,
+      pressureTo: s.pressure[u]!,
+      velocity: velocityFtPerS(flow, p.diameter),
+    });
+    v = u;
+  }
+  return steps;
 }
 
 /**

@@ -3,6 +3,7 @@
 
 import type { Settings } from '../config/settings.js';
 import type { Network } from '../network/types.js';
+import type { NominalSize } from '../quantities/pipe-sizes.js';
 import type { Head } from '../read/plan.js';
 import { EQUIVALENT_LENGTH_FT, fittingFactor } from './fittings.js';
 import { resistance } from './hazen-williams.js';
@@ -19,6 +20,7 @@ export interface ModelPipe {
   length: number;
   fittingsLength: number;
   fittings: string[];
+  nominalSize: NominalSize;
   diameter: number;
   c: number;
   r: number;
@@ -81,6 +83,7 @@ export function buildModel(network: Network, sourceNodeId: string, flowing: Flow
         length,
         fittingsLength,
         fittings: list,
+        nominalSize: p.nominalSize,
         diameter: p.innerDiameter,
         c: p.cFactor,
         r: resistance(length, p.cFactor, p.innerDiameter),
@@ -109,6 +112,7 @@ export function buildModel(network: Network, sourceNodeId: string, flowing: Flow
       length,
       fittingsLength: 0,
       fittings: [],
+      nominalSize: feed.nominalSize,
       diameter: feed.innerDiameter,
       c: feed.cFactor,
       r: resistance(length, feed.cFactor, feed.innerDiameter),

@@ -12,6 +12,7 @@ const pipe = (from: number, to: number, r: number) => ({
   length: 1,
   fittingsLength: 0,
   fittings: [],
+  nominalSize: '1' as const,
   diameter: 1,
   c: 120,
   r,

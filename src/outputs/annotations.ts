@@ -4,13 +4,16 @@
 import type { DesignBasis } from '../basis/design-basis.js';
 import type { Zone } from '../zones/zones.js';
 import type { DesignAreas } from '../design-area/evaluate.js';
+import { placeLabels, type Box } from '../geometry/labels.js';
 import { boundsOf, type Point } from '../geometry/point.js';
+import { pushAll } from '../arrays.js';
 import type { Network } from '../network/types.js';
 import type { Formatter } from '../quantities/format.js';
 import type { Plan } from '../read/plan.js';
 import type { Finding } from '../rules/types.js';
 import { TOOL } from '../version.js';
 import { CAUTION } from './caution.js';
+import { headsNamed, measuredText } from './finding-values.js';
 
 export type Primitive =
   | { kind: 'circle'; layer: string; center: Point; radius: number; color: number }
@@ -24,17 +27,34 @@ export interface Annotations {
   legend: { block: string; layer: string; at: Point; primitives: Primitive[] };
 }
 
+/**
+ * AutoCAD colour indexes readable on a white and on a black background alike: each has a contrast ratio of at
+ * least 3.5 against both (WCAG's formula on ezdxf's palette; 7 is black or white by the background itself).
+ */
 const LAYERS = {
   findings: { name: 'HC-FINDINGS', color: 1 },
-  area: { name: 'HC-DESIGN-AREA', color: 6 },
-  heads: { name: 'HC-HEAD-TAGS', color: 3 },
-  pipes: { name: 'HC-PIPE-TAGS', color: 5 },
-  zones: { name: 'HC-ZONES', color: 8 },
+  area: { name: 'HC-DESIGN-AREA', color: 230 },
+  heads: { name: 'HC-HEAD-TAGS', color: 94 },
+  pipes: { name: 'HC-PIPE-TAGS', color: 142 },
+  zones: { name: 'HC-ZONES', color: 193 },
   legend: { name: 'HC-LEGEND', color: 7 },
 } as const;
 
-/** AutoCAD colour index per severity: red, orange, cyan. */
-const SEVERITY_COLOR = { error: 1, warning: 30, info: 4 } as const;
+/** Per severity: red, brown-orange, blue. */
+const SEVERITY_COLOR = { error: 1, warning: 32, info: 150 } as const;
+/** Per design area: ochre (drawn), rose (most demanding), teal (runner-up). */
+const AREA_COLOR = { drawn: 42, 'most-demanding': 230, 'runner-up': 134 } as const;
+export const ANNOTATION_COLORS: readonly number[] = [
+  ...Object.values(LAYERS).map((l) => l.color),
+  ...Object.values(SEVERITY_COLOR),
+  ...Object.values(AREA_COLOR),
+];
+
+/**
+ * A text's box as readers measure it without the font: each character as wide as the text is high, a third of the
+ * height below the baseline (ezdxf's monospace measure).
+ */
+const textBox = (text: string, height: number) => ({ width: text.length * height, height: (4 / 3) * height, below: height / 3 });
 
 export interface AnnotationInput {
   fileName: string;
@@ -49,6 +69,16 @@ export interface AnnotationInput {
   fmt: Formatter;
 }
 
+/** A text waiting for its place: near `anchor`, at least `clear` away from it. */
+interface Label {
+  layer: string;
+  anchor: Point;
+  clear: number;
+  height: number;
+  text: string;
+  color: number;
+}
+
 export function buildAnnotations(a: AnnotationInput): Annotations {
   const pts = [...a.plan.heads.map((h) => h.position), ...a.network.nodes.map((n) => n.position), ...a.plan.rooms.flatMap((r) => r.points)];
   const b = boundsOf(pts.length ? pts : [{ x: 0, y: 0 }]);
@@ -56,53 +86,48 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
   // Text about 1/200 of the plan, between 3 in and 2 ft (common practice for plotted review comments).
   const h = Math.min(2, Math.max(0.25, extent / 200));
   const prims: Primitive[] = [];
+  // Texts in order of importance: the findings take the nearest free places, then areas, zones and tags.
+  const labels: Label[] = [];
   const { fmt } = a;
   for (const f of a.findings) {
     const color = SEVERITY_COLOR[f.severity];
     prims.push({ kind: 'circle', layer: LAYERS.findings.name, center: f.at, radius: 2 * h, color });
-    prims.push({
-      kind: 'text',
-      layer: LAYERS.findings.name,
-      at: { x: f.at.x + 2.2 * h, y: f.at.y + 1.2 * h },
-      height: h,
-      text: findingLabel(f, fmt),
-      color,
-    });
-  }
-  for (const zone of a.zones) {
-    prims.push({ kind: 'polyline', layer: LAYERS.zones.name, points: zone.outline, closed: true, color: LAYERS.zones.color });
-    const box = boundsOf(zone.outline);
-    const basis = `${zone.hazard}, ${fmt.density(zone.design.density)} over ${fmt.area(zone.design.area)}`;
-    prims.push({
-      kind: 'text',
-      layer: LAYERS.zones.name,
-      at: { x: box.minX + h, y: box.minY + h },
-      height: h,
-      text: `ZONE ${zone.label ?? zone.id}: ${zone.pattern === null ? `no basis given, design ${basis}` : basis}`,
-      color: LAYERS.zones.color,
-    });
+    labels.push({ layer: LAYERS.findings.name, anchor: f.at, clear: 2 * h, height: h, text: findingLabel(f, fmt), color });
   }
   const areaName = {
     drawn: 'DRAWN DESIGN AREA',
     'most-demanding': 'MOST DEMANDING AREA (searched)',
     'runner-up': 'RUNNER-UP AREA (searched)',
   };
-  const areaColor = { drawn: 2, 'most-demanding': 6, 'runner-up': 4 };
   for (const area of a.design.areas) {
     const key = area.rank ?? 'drawn';
     const rings = area.outline.filter((r) => r.length >= 3);
     if (!rings.length) continue;
-    for (const ring of rings) prims.push({ kind: 'polyline', layer: LAYERS.area.name, points: ring, closed: true, color: areaColor[key] });
+    for (const ring of rings) prims.push({ kind: 'polyline', layer: LAYERS.area.name, points: ring, closed: true, color: AREA_COLOR[key] });
     const top = boundsOf(rings.flat());
     const hy = area.hydraulics;
     const numbers = hy ? `, ${fmt.pressure(hy.sourcePressure)} at ${fmt.flow(hy.sourceFlow)} at the source` : '';
-    prims.push({
-      kind: 'text',
+    const where = area.place ? ` - ${area.place}` : '';
+    labels.push({
       layer: LAYERS.area.name,
-      at: { x: top.minX, y: top.maxY + (key === 'runner-up' ? 2.8 : key === 'drawn' ? 4.4 : 1.2) * h },
+      anchor: { x: top.minX, y: top.maxY },
+      clear: 0.5 * h,
       height: h,
-      text: `${areaName[key]}: ${area.headIds.length} heads, ${fmt.area(area.actualArea)}${numbers}`,
-      color: areaColor[key],
+      text: `${areaName[key]}${where}: ${area.headIds.length} heads, ${fmt.area(area.actualArea)}${numbers}`,
+      color: AREA_COLOR[key],
+    });
+  }
+  for (const zone of a.zones) {
+    prims.push({ kind: 'polyline', layer: LAYERS.zones.name, points: zone.outline, closed: true, color: LAYERS.zones.color });
+    const box = boundsOf(zone.outline);
+    const basis = `${zone.hazard}, ${fmt.density(zone.design.density)} over ${fmt.area(zone.design.area)}`;
+    labels.push({
+      layer: LAYERS.zones.name,
+      anchor: { x: box.minX, y: box.minY },
+      clear: 0.5 * h,
+      height: h,
+      text: `ZONE ${zone.label ?? zone.id}: ${zone.pattern === null ? `no basis given, design ${basis}` : basis}`,
+      color: LAYERS.zones.color,
     });
   }
   const nodeAt = new Map(a.network.nodes.map((n) => [n.id, n]));
@@ -114,10 +139,10 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
     for (const n of best.nodes.filter((x) => x.flow > 0)) {
       const node = nodeAt.get(n.id);
       if (!node) continue;
-      prims.push({
-        kind: 'text',
+      labels.push({
         layer: LAYERS.heads.name,
-        at: { x: node.position.x + 0.6 * h, y: node.position.y - 1.6 * h },
+        anchor: node.position,
+        clear: 0.5 * h,
         height: 0.7 * h,
         text: `${headOfNode.get(n.id) ?? n.id} ${fmt.pressure(n.pressure)} ${fmt.flow(n.flow)}`,
         color: LAYERS.heads.color,
@@ -132,67 +157,86 @@ export function buildAnnotations(a: AnnotationInput): Annotations {
         pipe.points.length === 2
           ? { x: (pipe.points[0]!.x + pipe.points[1]!.x) / 2, y: (pipe.points[0]!.y + pipe.points[1]!.y) / 2 }
           : { x: (mid.x + prev.x) / 2, y: (mid.y + prev.y) / 2 };
-      prims.push({
-        kind: 'text',
+      labels.push({
         layer: LAYERS.pipes.name,
-        at: { x: at.x, y: at.y + 0.5 * h },
+        anchor: at,
+        clear: 0.3 * h,
         height: 0.6 * h,
         text: `${pipe.id} ${pipe.nominalSize}" ${fmt.flow(Math.abs(p.flow))}`,
         color: LAYERS.pipes.color,
       });
     }
   }
+  const legendAt = { x: b.maxX + 6 * h, y: b.maxY };
+  const legendPrims = legend(a, h);
+  const frame = boundsOf(legendPrims.flatMap((p) => (p.kind === 'polyline' ? p.points : [])));
+  pushAll(
+    prims,
+    placed(
+      labels,
+      [{ minX: legendAt.x + frame.minX, minY: legendAt.y + frame.minY, maxX: legendAt.x + frame.maxX, maxY: legendAt.y + frame.maxY }],
+      h,
+    ),
+  );
   return {
     layers: Object.values(LAYERS),
     primitives: prims,
-    legend: { block: 'HC-LEGEND', layer: LAYERS.legend.name, at: { x: b.maxX + 6 * h, y: b.maxY }, primitives: legend(a, h) },
+    legend: { block: 'HC-LEGEND', layer: LAYERS.legend.name, at: legendAt, primitives: legendPrims },
   };
 }
 
+/** The labels as texts where none overlaps another or the kept-clear boxes, with a leader line where one had to move. */
+function placed(labels: Label[], keepClear: Box[], h: number): Primitive[] {
+  const boxes = labels.map((l) => textBox(l.text, l.height));
+  const spots = placeLabels(
+    labels.map((l, i) => ({ at: l.anchor, width: boxes[i]!.width, height: boxes[i]!.height, clear: l.clear })),
+    keepClear,
+    0.25 * h,
+  );
+  return labels.flatMap((l, i): Primitive[] => {
+    const spot = spots[i]!;
+    const text: Primitive = {
+      kind: 'text',
+      layer: l.layer,
+      at: { x: spot.minX, y: spot.minY + boxes[i]!.below },
+      height: l.height,
+      text: l.text,
+      color: l.color,
+    };
+    if (!spot.moved) return [text];
+    const to = { x: Math.min(Math.max(l.anchor.x, spot.minX), spot.maxX), y: Math.min(Math.max(l.anchor.y, spot.minY), spot.maxY) };
+    return [text, { kind: 'polyline', layer: l.layer, points: [l.anchor, to], closed: false, color: l.color }];
+  });
+}
+
+/** A finding's label on the drawing: severity, rule, the heads it names, measured against the limit. */
 function findingLabel(f: Finding, fmt: Formatter): string {
-  const show = (v: number | null) => {
-    if (v === null) return '';
-    switch (f.quantity) {
-      case 'length':
-        return fmt.length(v);
-      case 'area':
-        return fmt.area(v);
-      case 'pressure':
-        return fmt.pressure(v);
-      case 'flow':
-        return fmt.flow(v);
-      case 'kFactor':
-        return fmt.kFactor(v);
-      case 'density':
-        return fmt.density(v);
-      default:
-        return String(Math.round(v * 100) / 100);
-    }
-  };
-  const values = f.measured !== null && f.limit !== null ? `: ${show(f.measured)} (limit ${show(f.limit)})` : '';
-  return `${f.severity.toUpperCase()} ${f.rule}${values}`;
+  const heads = headsNamed(f);
+  const shown = heads.length > 4 ? `${heads.slice(0, 3).join(' ')} +${heads.length - 3}` : heads.join(' ');
+  const values = measuredText(f, fmt);
+  return `${f.severity.toUpperCase()} ${f.rule}${shown ? ` ${shown}` : ''}${values ? `: ${values}` : ''}`;
 }
 
 /** Legend lines, top-down from the block's base point (its top-left corner). */
 function legend(a: AnnotationInput, h: number): Primitive[] {
   const errors = a.findings.filter((f) => f.severity === 'error').length;
   const warnings = a.findings.filter((f) => f.severity === 'warning').length;
-  const best = a.design.areas.find((x) => x.rank === 'most-demanding')?.hydraulics;
+  const demanding = a.design.areas.filter((x) => x.rank === 'most-demanding' && x.hydraulics);
   const lines = [
     `HEADCHECK REVIEW (${TOOL.name} ${TOOL.version})`,
     `Drawing: ${a.fileName.split(/[\\/]/).pop()}`,
     `Verdict: ${errors ? 'FAIL' : 'PASS'} - ${errors} errors, ${warnings} warnings`,
     `Limits: ${a.edition}; ${a.basis.hazard}, density ${a.fmt.density(a.basis.density)} over ${a.fmt.area(a.basis.area)}`,
-    ...(best
-      ? [
-          `Most demanding area: ${a.fmt.pressure(best.sourcePressure)} at ${a.fmt.flow(best.sourceFlow)} + ${a.fmt.flow(best.hoseAllowance)} hose`,
-        ]
-      : []),
-    ...(best && best.supplyAvailable !== null
-      ? [`Supply: ${a.fmt.pressure(best.supplyAvailable)} at ${a.fmt.flow(best.totalDemand)}; margin ${a.fmt.pressure(best.margin!)}`]
-      : []),
-    'Layers: HC-FINDINGS rings red = error, orange = warning, cyan = info; HC-DESIGN-AREA outlines;',
-    'HC-HEAD-TAGS pressure and flow of flowing heads; HC-PIPE-TAGS pipe size and flow.',
+    ...demanding.flatMap((x) => {
+      const hy = x.hydraulics!;
+      const where = x.place ? ` (${x.place})` : '';
+      return [
+        `Most demanding area${where}: ${a.fmt.pressure(hy.sourcePressure)} at ${a.fmt.flow(hy.sourceFlow)} + ${a.fmt.flow(hy.hoseAllowance)} hose` +
+          (hy.supplyAvailable !== null ? `; supply ${a.fmt.pressure(hy.supplyAvailable)}, margin ${a.fmt.pressure(hy.margin!)}` : ''),
+      ];
+    }),
+    'Layers: HC-FINDINGS rings red = error, brown = warning, blue = info; HC-DESIGN-AREA outlines;',
+    'HC-ZONES hazard zones; HC-HEAD-TAGS pressure and flow of flowing heads; HC-PIPE-TAGS pipe size and flow.',
     ...wrap(CAUTION, 90),
   ];
   const prims: Primitive[] = lines.map((t, i) => ({
@@ -203,7 +247,7 @@ function legend(a: AnnotationInput, h: number): Primitive[] {
     text: t,
     color: i === 0 ? 7 : 256,
   }));
-  const width = Math.max(...lines.map((l) => l.length)) * 0.75 * h + 2 * h;
+  const width = Math.max(...lines.map((l, i) => textBox(l, i === 0 ? 1.2 * h : h).width)) + 2 * h;
   const height = (lines.length + 0.8) * 1.8 * h;
   prims.push({
     kind: 'polyline',

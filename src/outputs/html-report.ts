@@ -5,8 +5,11 @@ import type { Reviewed } from './reviewed.js';
 import { boundsOf, type Point } from '../geometry/point.js';
 import type { PipeRole } from '../network/types.js';
 import { converterFor, REPORT_UNITS } from '../quantities/convert.js';
-import { formatterFor } from '../quantities/format.js';
+import { formatterFor, type Formatter } from '../quantities/format.js';
+import type { Finding } from '../rules/types.js';
 import { CAUTION } from './caution.js';
+import { calculationHtml, type HeadNames } from './calculation-html.js';
+import { valueText } from './finding-values.js';
 import { escapeHtml as esc } from './html-escape.js';
 import { REPORT_SCRIPT } from './report-script.generated.js';
 import { sha256Base64 } from './sha256.js';
@@ -36,9 +39,9 @@ export function htmlReport(result: Reviewed): string {
     `<p class="caution">${esc(CAUTION)}</p></header>`,
     '<section><h2>Plan</h2><div class="tools"><button type="button" id="fit">Fit</button> <span>wheel or pinch to zoom, drag to pan</span></div>',
     planSvg(result),
-    legendHtml(),
+    legendHtml(result),
     '</section>',
-    findingsTable(r.findings),
+    findingsTable(r.findings, result.findings, fmt),
     designAreasHtml(result, fmt),
     supplyHtml(result, c, u),
     `<footer><p>${esc(r.tool.name)} ${esc(r.tool.version)} · drawing SHA-256 ${esc(r.input.sha256)} · ${esc(r.input.dxfVersion)}, units ${esc(r.input.drawingUnits)}</p></footer>`,
@@ -96,7 +99,7 @@ function planSvg(result: Reviewed): string {
         `<path class="pipe" data-role="${role}" data-count="${mine.length}" stroke="${ROLE_COLOR[role]}" d="${mine.map((p) => path(p.points, false)).join(' ')}"/>`,
       );
   }
-  const flowing = new Set(design.areas.find((a) => a.rank === 'most-demanding')?.headIds ?? []);
+  const flowing = new Set(design.areas.filter((a) => a.rank === 'most-demanding').flatMap((a) => a.headIds));
   const r = unit * 1.1;
   const ring = (p: Point) =>
     `M${(Number(X(p)) - r).toFixed(3)} ${Y(p)}a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(2 * r).toFixed(3)} 0a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(-2 * r).toFixed(3)} 0`;
@@ -116,17 +119,43 @@ function planSvg(result: Reviewed): string {
   return `<div class="planbox"><svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg></div>`;
 }
 
-function legendHtml(): string {
-  const roles = (Object.entries(ROLE_COLOR) as [PipeRole, string][]).filter(([r]) => r !== 'riser');
-  return `<p class="key">${roles.map(([r, col]) => `<span><i style="background:${col}"></i>${esc(r)}</span>`).join(' ')}
-<span><i class="k-head"></i>head</span> <span><i class="k-flow"></i>flowing head</span> <span><i class="k-err"></i>error</span> <span><i class="k-warn"></i>warning</span> <span><i class="k-info"></i>info</span></p>`;
+/**
+ * The key to every kind of line, outline and mark the plan draws, each with a small drawn swatch (drawn, not a
+ * background colour: printing keeps it).
+ */
+function legendHtml(result: Reviewed): string {
+  const { plan, network, design, findings, zoning } = result;
+  const swatch = (inner: string) => `<svg width="22" height="12" viewBox="0 0 22 12" aria-hidden="true">${inner}</svg>`;
+  const line = (color: string, dash = '') =>
+    swatch(`<path d="M1 6H21" stroke="${color}" stroke-width="3"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`);
+  const box = (cls: string) => swatch(`<rect class="${cls}" x="1.5" y="1.5" width="19" height="9"/>`);
+  const dot = (fill: string, stroke: string) =>
+    swatch(`<circle cx="11" cy="6" r="4" fill="${fill}" stroke="${stroke}" stroke-width="1.5"/>`);
+  const entries: [string, string, string][] = [];
+  if (plan.rooms.length) entries.push(['room', box('room'), 'room']);
+  if (zoning.zones.length) entries.push(['zone', box('zone'), 'hazard zone']);
+  const areaNames = { drawn: 'drawn design area', 'most-demanding': 'most demanding area', 'runner-up': 'runner-up area' } as const;
+  for (const kind of ['drawn', 'most-demanding', 'runner-up'] as const) {
+    if (design.areas.some((a) => (a.rank ?? 'drawn') === kind && a.outline.length))
+      entries.push([`area-${kind}`, box(`area area-${kind}`), areaNames[kind]]);
+  }
+  for (const [role, color] of Object.entries(ROLE_COLOR) as [PipeRole, string][]) {
+    if (network.pipes.some((p) => p.role === role)) entries.push([`pipe-${role}`, line(color), role]);
+  }
+  entries.push(['head', dot('#fff', '#c62828'), 'head']);
+  if (design.areas.some((a) => a.rank === 'most-demanding')) entries.push(['head-flowing', dot('#c62828', '#c62828'), 'flowing head']);
+  const markColor = { error: '#b3261e', warning: '#ef6c00', info: '#0277bd' } as const;
+  for (const severity of ['error', 'warning', 'info'] as const) {
+    if (findings.some((f) => f.severity === severity)) entries.push([`marker-${severity}`, dot('none', markColor[severity]), severity]);
+  }
+  return `<p class="key">${entries.map(([key, sw, label]) => `<span data-key="${key}">${sw}${esc(label)}</span>`).join(' ')}</p>`;
 }
 
-function findingsTable(findings: Reviewed['report']['findings']): string {
+function findingsTable(findings: Reviewed['report']['findings'], data: Finding[], fmt: Formatter): string {
   if (!findings.length) return '<section><h2>Findings</h2><p>None.</p></section>';
   const rows = findings.map(
     (f, i) =>
-      `<tr class="${f.severity}" data-finding="${i}" tabindex="0"><td>${esc(f.severity)}</td><td><code>${esc(f.rule)}</code></td><td>${esc(f.message)}</td><td>${f.measured ?? ''}</td><td>${f.limit ?? ''}</td><td>${esc(f.handles.join(' '))}</td><td class="ref">${esc(f.reference)}</td></tr>`,
+      `<tr class="${f.severity}" data-finding="${i}" tabindex="0"><td>${esc(f.severity)}</td><td><code>${esc(f.rule)}</code></td><td>${esc(f.message)}</td><td>${esc(valueText(data[i]!, data[i]!.measured, fmt))}</td><td>${esc(valueText(data[i]!, data[i]!.limit, fmt))}</td><td>${esc(f.handles.join(' '))}</td><td class="ref">${esc(f.reference)}</td></tr>`,
   );
   return `<section><h2>Findings (${findings.length})</h2><div class="scroll"><table id="findings"><thead><tr><th>severity</th><th>rule</th><th>message</th><th>measured</th><th>limit</th><th>handles</th><th>reference</th></tr></thead><tbody>${rows.join('')}</tbody></table></div></section>`;
 }
@@ -159,31 +188,27 @@ function designAreasHtml(result: Reviewed, fmt: ReturnType<typeof formatterFor>)
       `<td>${hy?.handMethod ? esc(fmt.pressure(hy.handMethod.sourcePressure)) : '-'}</td><td>${esc(a.note ?? '')}</td></tr>`
     );
   });
-  const c = converterFor(fmt.system);
-  const demanding = design.areas.filter((a) => a.rank === 'most-demanding' && a.hydraulics);
-  const shown = demanding.length ? demanding : design.areas.filter((a) => a.hydraulics).slice(0, 1);
-  const tables = shown.map((a, k) => {
-    const best = a.hydraulics!;
-    const nodeRows = best.nodes
-      .map(
-        (n) =>
-          `<tr><td>${esc(n.id)}</td><td>${esc(fmt.pressure(n.pressure))}</td><td>${n.flow > 0 ? esc(fmt.flow(n.flow)) : ''}</td><td>${esc(fmt.length(n.elevation))}</td></tr>`,
-      )
-      .join('');
-    const pipeRows = best.pipes
-      .map(
-        (p) =>
-          `<tr><td>${esc(p.id)}</td><td>${esc(fmt.flow(Math.abs(p.flow)))}</td><td>${c.velocity(p.velocity).toFixed(2)}</td><td>${esc(fmt.pressure(p.frictionLoss))}</td><td>${esc(fmt.length(p.length))}</td><td>${esc(p.fittings.join(', '))}</td></tr>`,
-      )
-      .join('');
-    const where = shown.length > 1 || design.groups.length > 1 ? ` (${esc(groupName(a.system, a.zone))})` : '';
-    return `<h3>Hydraulics of the ${a.rank ? 'most demanding' : 'drawn'} area${where}${best.riser.modelled === 'virtual' ? ` (riser modelled as a vertical ${esc(best.riser.nominalSize)}" pipe of ${esc(fmt.length(best.riser.length))}: static head and friction)` : ''}</h3>
-<details${k === 0 ? ' open' : ''}><summary>Nodes (${best.nodes.length})</summary><div class="scroll"><table><thead><tr><th>node</th><th>pressure</th><th>flow</th><th>elevation</th></tr></thead><tbody>${nodeRows}</tbody></table></div></details>
-<details><summary>Pipes (${best.pipes.length})</summary><div class="scroll"><table><thead><tr><th>pipe</th><th>flow</th><th>velocity (${fmt.system === 'us' ? 'ft/s' : 'm/s'})</th><th>friction loss</th><th>equivalent length</th><th>fittings</th></tr></thead><tbody>${pipeRows}</tbody></table></div></details>`;
-  });
+  // Every calculated area gets its calculation: the drawn (submitted) one and each most demanding one unfolded.
+  const names = headNames(result);
+  const several = design.groups.length > 1;
+  const tables = design.areas
+    .filter((a) => a.hydraulics)
+    .map((a, k) => {
+      const kind = a.rank === null ? 'drawn design area' : a.rank === 'most-demanding' ? 'most demanding area' : 'runner-up area';
+      const title = `Calculation of the ${kind}${several ? ` (${groupName(a.system, a.zone)})` : ''}`;
+      return calculationHtml(a.hydraulics!, title, k === 0 || a.rank !== 'runner-up', fmt, names);
+    });
   return `<section><h2>Design areas</h2>${head}${groups.length ? `<ul>${groups.join('')}</ul>` : ''}
 <div class="scroll"><table id="areas"><thead><tr><th>area</th><th>system</th><th>zone</th><th>heads</th><th>length</th><th>width</th><th>floor area</th><th>S × L</th><th>source pressure</th><th>source flow</th><th>with hose</th><th>supply</th><th>margin</th><th>hand method</th><th>note</th></tr></thead><tbody>${rows.join('')}</tbody></table></div>
 ${tables.join('\n')}</section>`;
+}
+
+/** Heads by node and by handle, as the calculation names them (H29 on node N40, handle 1B3). */
+function headNames(result: Reviewed): HeadNames {
+  const byId = new Map(result.plan.heads.map((h) => [h.id, h]));
+  const onNode = new Map<string, string>();
+  for (const [headId, node] of Object.entries(result.network.headNode)) onNode.set(node, `${headId} (${byId.get(headId)!.handle})`);
+  return { onNode, byHandle: new Map(result.plan.heads.map((h) => [h.handle, h.id])) };
 }
 
 function supplyHtml(result: Reviewed, c: ReturnType<typeof converterFor>, u: (typeof REPORT_UNITS)['us']): string {
@@ -192,7 +217,7 @@ function supplyHtml(result: Reviewed, c: ReturnType<typeof converterFor>, u: (ty
     a.hydraulics
       ? [
           {
-            label: a.rank ?? 'drawn',
+            label: `${a.rank ?? 'drawn'}${a.place ? ` (${a.place.replace(/^the /, '')})` : ''}`,
             flow: a.hydraulics.sourceFlow,
             withHose: a.hydraulics.totalDemand,
             pressure: a.hydraulics.sourcePressure,
@@ -219,17 +244,19 @@ h1{font-size:1.4rem;margin:.3em 0}h2{font-size:1.15rem;border-bottom:1px solid #
 .area-most-demanding{stroke:#c2185b;fill:rgba(194,24,91,.06)}.area-runner-up{stroke:#00838f}.area-drawn{stroke:#f9a825}
 .marker{fill:none;stroke-width:1.6px;cursor:pointer;vector-effect:non-scaling-stroke}.marker.error{stroke:#b3261e}.marker.warning{stroke:#ef6c00}.marker.info{stroke:#0277bd}
 .marker.hl{stroke-width:4px;fill:rgba(255,214,0,.35)}
-.key span{margin-right:10px;white-space:nowrap}.key i{display:inline-block;width:14px;height:4px;margin-right:4px;vertical-align:middle}
-.k-head{border:2px solid #c62828;border-radius:50%;width:8px!important;height:8px!important}.k-flow{background:#c62828;border-radius:50%;width:10px!important;height:10px!important}
-.k-err{border:2px solid #b3261e;border-radius:50%;width:10px!important;height:10px!important}.k-warn{border:2px solid #ef6c00;border-radius:50%;width:10px!important;height:10px!important}.k-info{border:2px solid #0277bd;border-radius:50%;width:10px!important;height:10px!important}
+.key span{margin-right:12px;white-space:nowrap;display:inline-block}.key svg{vertical-align:middle;margin-right:4px}
+.key .area{stroke-dasharray:5 2}.key .room,.key .zone,.key .area{vector-effect:none}
+details.calc{margin:8px 0;border-left:3px solid #c2185b;padding-left:8px}details.calc>summary{font-weight:600;cursor:pointer}
+table.steps td,table.steps th{text-align:right;white-space:nowrap}table.steps td:nth-child(2),table.steps td:nth-child(3),table.steps th:nth-child(3){text-align:left}
+.sum{font-size:.9rem;color:#333}tr.controlling{background:#fde7ef}
 table{border-collapse:collapse;width:100%;font-size:.88rem}th,td{border-bottom:1px solid #e2e2e2;padding:3px 6px;text-align:left;vertical-align:top}
 tr.error td:first-child{color:#b3261e;font-weight:600}tr.warning td:first-child{color:#ef6c00}tr.info td:first-child{color:#0277bd}
 tr[data-finding]{cursor:pointer}tr.hl{background:#fff3b0}.ref{font-size:.78rem;color:#555}.scroll{overflow-x:auto}
 .chart{width:100%;max-width:760px}.chart text{font-size:11px}.chart .axis{stroke:#333}.chart .grid{stroke:#e5e5e5}.chart .supply{stroke:#1f6fd1;stroke-width:2;fill:none}
-.chart .demand{fill:#c2185b}.chart .hose{stroke:#c2185b;stroke-dasharray:4 3}
+.chart .demand{fill:#c2185b}.chart .hose{stroke:#c2185b;stroke-dasharray:4 3}.chart .leader{stroke:#999;stroke-width:.8}
 footer{font-size:.8rem;color:#666;margin-top:24px}
 @media (max-width:640px){.planbox{height:50vh}td.ref,th:last-child{display:none}}
-@media print{.tools{display:none}.planbox{height:auto;border:none}#plan{height:auto;max-height:60vh}details{display:block}details>*{display:block}
+@media print{*{-webkit-print-color-adjust:exact;print-color-adjust:exact}.tools{display:none}.scroll{overflow:visible}table{font-size:.68rem}th,td{padding:2px 3px}.planbox{height:auto;border:none}#plan{height:auto;max-height:60vh}details{display:block}details>*{display:block}
 section{break-inside:avoid-page}header{border-left-width:4px}a{color:inherit}}
 `;
 

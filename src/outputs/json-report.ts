@@ -162,6 +162,27 @@ export interface ReportDesignArea {
     supplyAvailable: number | null;
     margin: number | null;
     criticalHead: string;
+    /** Handle of the head that sets the pressure. */
+    controllingHead: string;
+    steps: {
+      pipe: string;
+      from: string;
+      to: string;
+      nominalSize: string;
+      innerDiameter: number;
+      length: number;
+      fittingsLength: number;
+      fittings: string[];
+      cFactor: number;
+      flow: number;
+      frictionPerLength: number;
+      friction: number;
+      elevationChange: number;
+      pressureFrom: number;
+      pressureTo: number;
+      velocity: number;
+    }[];
+    heads: { handle: string; node: string; kFactor: number; requiredPressure: number; pressure: number; flow: number }[];
     riser: { modelled: string; length: number; nominalSize: string };
     handMethod: { sourcePressure: number; sourceFlow: number } | null;
     nodes: { id: string; pressure: number; flow: number; elevation: number }[];
@@ -391,6 +412,33 @@ function designAreasOf(r: ReportInput, c: Converter): ReportDesignArea[] {
         supplyAvailable: h.supplyAvailable === null ? null : round(c.pressure(h.supplyAvailable)),
         margin: h.margin === null ? null : round(c.pressure(h.margin)),
         criticalHead: h.criticalHeadId,
+        controllingHead: h.controllingHead,
+        steps: h.steps.map((x) => ({
+          pipe: x.pipe,
+          from: x.from,
+          to: x.to,
+          nominalSize: x.nominalSize,
+          innerDiameter: round(c.diameter(x.innerDiameter), 3),
+          length: round(c.length(x.length)),
+          fittingsLength: round(c.length(x.fittingsLength)),
+          fittings: x.fittings,
+          cFactor: x.cFactor,
+          flow: round(c.flow(x.flow)),
+          frictionPerLength: round(c.pressure(x.frictionPerLength) / c.length(1), 6),
+          friction: round(c.pressure(x.friction)),
+          elevationChange: round(c.pressure(x.elevationChange)),
+          pressureFrom: round(c.pressure(x.pressureFrom)),
+          pressureTo: round(c.pressure(x.pressureTo)),
+          velocity: round(c.velocity(x.velocity)),
+        })),
+        heads: h.heads.map((x) => ({
+          handle: x.handle,
+          node: x.node,
+          kFactor: round(c.kFactor(x.kFactor), 3),
+          requiredPressure: round(c.pressure(x.requiredPressure)),
+          pressure: round(c.pressure(x.pressure)),
+          flow: round(c.flow(x.flow)),
+        })),
         riser: { modelled: h.riser.modelled, length: round(c.length(h.riser.length)), nominalSize: h.riser.nominalSize },
         handMethod: h.handMethod && {
           sourcePressure: round(c.pressure(h.handMethod.sourcePressure)),

@@ -4,6 +4,7 @@
 import { availablePressure, flowAtZeroPressure, type FlowTest } from '../hydraulics/water-supply.js';
 import type { Converter, ReportUnits } from '../quantities/convert.js';
 import { escapeHtml as esc } from './html-escape.js';
+import { placeLabels } from '../geometry/labels.js';
 
 export interface DemandPoint {
   label: string;
@@ -60,6 +61,23 @@ export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[]
     );
     parts.push(`<circle class="test" cx="${x(supply.flow).toFixed(1)}" cy="${y(supply.residual).toFixed(1)}" r="3.5" fill="#1f6fd1"/>`);
   }
+  // Labels beside their with-hose point, moved where they would overprint another label or a point.
+  const points = demands.flatMap((d) => [
+    { x: x(d.flow), y: y(d.pressure) },
+    { x: x(d.withHose), y: y(d.pressure) },
+  ]);
+  const placed = placeLabels(
+    demands.map((d) => ({ at: { x: x(d.withHose), y: y(d.pressure) }, width: 6.2 * d.label.length, height: 12 })),
+    [
+      ...points.map((q) => ({ minX: q.x - 4, minY: q.y - 4, maxX: q.x + 4, maxY: q.y + 4 })),
+      // outside the plot: the axis labels' side, above and beyond the right edge
+      { minX: -1e6, minY: -1e6, maxX: L, maxY: 1e6 },
+      { minX: W - 2, minY: -1e6, maxX: 1e6, maxY: 1e6 },
+      { minX: -1e6, minY: -1e6, maxX: 1e6, maxY: 0 },
+      { minX: -1e6, minY: T + ph, maxX: 1e6, maxY: 1e6 },
+    ],
+    4,
+  );
   demands.forEach((d, i) => {
     parts.push(
       `<line class="hose" x1="${x(d.flow).toFixed(1)}" y1="${y(d.pressure).toFixed(1)}" x2="${x(d.withHose).toFixed(1)}" y2="${y(d.pressure).toFixed(1)}"/>`,
@@ -68,7 +86,14 @@ export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[]
       `<circle class="demand" cx="${x(d.flow).toFixed(1)}" cy="${y(d.pressure).toFixed(1)}" r="4"><title>${esc(d.label)}: ${c.pressure(d.pressure).toFixed(2)} at ${c.flow(d.flow).toFixed(1)}</title></circle>`,
     );
     parts.push(`<circle class="demand" cx="${x(d.withHose).toFixed(1)}" cy="${y(d.pressure).toFixed(1)}" r="3" fill-opacity="0.5"/>`);
-    parts.push(`<text x="${(x(d.withHose) + 6).toFixed(1)}" y="${(y(d.pressure) - 6 - 12 * i).toFixed(1)}">${esc(d.label)}</text>`);
+    const b = placed[i]!;
+    if (b.moved) {
+      const toX = Math.min(Math.max(x(d.withHose), b.minX), b.maxX);
+      parts.push(
+        `<line class="leader" x1="${x(d.withHose).toFixed(1)}" y1="${y(d.pressure).toFixed(1)}" x2="${toX.toFixed(1)}" y2="${(b.minY + 6).toFixed(1)}"/>`,
+      );
+    }
+    parts.push(`<text class="demand-label" x="${b.minX.toFixed(1)}" y="${(b.maxY - 2).toFixed(1)}">${esc(d.label)}</text>`);
   });
   return `<svg class="chart" id="supply" viewBox="0 0 ${W} ${H}" role="img" aria-label="water supply graph" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg>`;
 }

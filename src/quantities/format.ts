@@ -1,5 +1,5 @@
-// Formats internal values (ft, ft², gpm, psi) for messages in the report's unit system.
-// Rules call these so a finding reads the same units as the numbers beside it.
+// Formats internal values (ft, ft², gpm, psi) in the report's unit system, the one place that rounds them:
+// with their unit for messages, and as bare numbers at stated places for tables (units in the column heads).
 
 import { converterFor, REPORT_UNITS, type UnitSystem } from './convert.js';
 
@@ -13,7 +13,13 @@ export interface Formatter {
   pressure(psi: number): string;
   density(gpmPerFt2: number): string;
   kFactor(kUs: number): string;
+  /** Bare numbers for table cells, each at the places that show what matters of it. */
+  cell: Record<CellQuantity, (v: number) => string>;
+  /** The unit of each kind of cell, for column heads. */
+  unit: Record<CellQuantity, string>;
 }
+
+export type CellQuantity = 'length' | 'area' | 'flow' | 'pressure' | 'perLength' | 'diameter' | 'velocity' | 'kFactor' | 'density';
 
 export function formatterFor(system: UnitSystem): Formatter {
   const c = converterFor(system);
@@ -28,5 +34,41 @@ export function formatterFor(system: UnitSystem): Formatter {
     pressure: (v) => `${c.pressure(v).toFixed(system === 'us' ? 1 : 3)} ${u.pressure}`,
     density: (v) => (system === 'us' ? `${v.toFixed(2)} gpm/ft²` : `${c.density(v).toFixed(2)} mm/min`),
     kFactor: (v) => (system === 'us' ? `K ${v.toFixed(1)} gpm/psi½` : `K ${c.kFactor(v).toFixed(1)} L/min/bar½`),
+    // Pressures to 0.01 psi (0.001 bar): a calculation's steps must visibly add up.
+    cell: {
+      length: (v) => c.length(v).toFixed(system === 'us' ? 1 : 2),
+      area: (v) => c.area(v).toFixed(system === 'us' ? 0 : 1),
+      flow: (v) => c.flow(v).toFixed(1),
+      pressure: (v) => c.pressure(v).toFixed(system === 'us' ? 2 : 3),
+      perLength: (v) => (system === 'us' ? v.toFixed(4) : (c.pressure(v) / c.length(1)).toFixed(5)),
+      diameter: (v) => c.diameter(v).toFixed(system === 'us' ? 3 : 1),
+      velocity: (v) => c.velocity(v).toFixed(1),
+      kFactor: (v) => c.kFactor(v).toFixed(1),
+      density: (v) => (system === 'us' ? v.toFixed(2) : c.density(v).toFixed(2)),
+    },
+    unit:
+      system === 'us'
+        ? {
+            length: 'ft',
+            area: 'ft²',
+            flow: 'gpm',
+            pressure: 'psi',
+            perLength: 'psi/ft',
+            diameter: 'in',
+            velocity: 'ft/s',
+            kFactor: 'gpm/psi½',
+            density: 'gpm/ft²',
+          }
+        : {
+            length: 'm',
+            area: 'm²',
+            flow: 'L/min',
+            pressure: 'bar',
+            perLength: 'bar/m',
+            diameter: 'mm',
+            velocity: 'm/s',
+            kFactor: 'L/min/bar½',
+            density: 'mm/min',
+          },
   };
 }
