@@ -12,6 +12,7 @@ import { TOOL } from '../version.js';
 import { CAUTION } from './caution.js';
 import type { Limits } from '../basis/limits.js';
 import type { SearchStats } from '../design-area/evaluate.js';
+import type { CalculationStep, FlowingHeadResult } from '../hydraulics/calculate.js';
 import type { Reviewed } from './reviewed.js';
 
 export interface ReportFinding {
@@ -164,25 +165,9 @@ export interface ReportDesignArea {
     criticalHead: string;
     /** Handle of the head that sets the pressure. */
     controllingHead: string;
-    steps: {
-      pipe: string;
-      from: string;
-      to: string;
-      nominalSize: string;
-      innerDiameter: number;
-      length: number;
-      fittingsLength: number;
-      fittings: string[];
-      cFactor: number;
-      flow: number;
-      frictionPerLength: number;
-      friction: number;
-      elevationChange: number;
-      pressureFrom: number;
-      pressureTo: number;
-      velocity: number;
-    }[];
-    heads: { handle: string; node: string; kFactor: number; requiredPressure: number; pressure: number; flow: number }[];
+    /** In the report's units, as the calculation has them. */
+    steps: CalculationStep[];
+    heads: FlowingHeadResult[];
     riser: { modelled: string; length: number; nominalSize: string };
     handMethod: { sourcePressure: number; sourceFlow: number } | null;
     nodes: { id: string; pressure: number; flow: number; elevation: number }[];
