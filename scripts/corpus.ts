@@ -76,12 +76,13 @@ export function runOnce(args: string[], timeoutS: number): Promise<CorpusRun> {
 /** Every drawing of `folder` through both commands, `workers` at a time, in file-name order. */
 export async function runCorpus(
   folder: string,
-  options: { workers?: number; timeoutS?: number; configs?: string; onlyWithConfig?: boolean } = {},
+  options: { workers?: number; timeoutS?: number; configs?: string; onlyWithConfig?: boolean; extensions?: string[] } = {},
 ): Promise<CorpusRow[]> {
   const configOf = (f: string) =>
     options.configs && existsSync(join(options.configs, `${f}.json`)) ? join(options.configs, `${f}.json`) : null;
   const files = readdirSync(folder)
     .filter((f) => statSync(join(folder, f)).isFile() && (!options.onlyWithConfig || configOf(f)))
+    .filter((f) => !options.extensions || options.extensions.some((ext) => f.toLowerCase().endsWith(ext)))
     .sort();
   const rows: CorpusRow[] = new Array(files.length);
   let next = 0;

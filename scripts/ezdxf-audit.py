@@ -11,6 +11,13 @@ import sys
 import ezdxf
 
 
+def layer_of(e):
+    try:
+        return e.dxf.get("layer", "0")
+    except ezdxf.DXFAttributeError:  # a type ezdxf 0.18 keeps without its layer (ACAD_TABLE)
+        return ""
+
+
 def audit(path):
     try:
         doc = ezdxf.readfile(path)
@@ -18,7 +25,7 @@ def audit(path):
         return {"file": path, "readError": f"{type(err).__name__}: {err}"}
     auditor = doc.audit()
     msp = doc.modelspace()
-    hc = [e for e in msp if e.dxf.layer.upper().startswith("HC-")]
+    hc = [e for e in msp if layer_of(e).upper().startswith("HC-")]
     return {
         "file": path,
         "dxfversion": doc.dxfversion,
@@ -28,6 +35,7 @@ def audit(path):
         "hcEntities": len(hc),
         "hcTypes": sorted({e.dxftype() for e in hc}),
         "modelspace": len(msp),
+        "handles": sorted(e.dxf.handle for e in msp),
         "handseed": doc.header.get("$HANDSEED"),
         "blocks": sorted(b.name for b in doc.blocks),
     }

@@ -15,7 +15,8 @@ import { layoutDxf } from '../src/demo/generated-layout.js';
 import { ANNOTATION_COLORS } from '../src/outputs/annotations.js';
 import { GroupCursor } from '../src/read/dxf/groups.js';
 import { readDrawing } from '../src/read/read-drawing.js';
-import { describeWith, hasCommand, hasEzdxf, SYSTEM_PYTHON } from './support/external.js';
+import { describeWith, hasEzdxf, SYSTEM_PYTHON } from './support/external.js';
+import { canRender, inkShare, renderPdf } from './support/render.js';
 
 const cases: { name: string; bytes: Uint8Array; config: Record<string, unknown> }[] = [
   { name: 'bay2-r12', bytes: new Uint8Array(readFileSync('fixtures/bay2-r12.dxf')), config: { units: 'in' } },
@@ -195,38 +196,13 @@ describeWith('python3-ezdxf', hasEzdxf(), 'annotation texts measured by ezdxf', 
   });
 });
 
-const canRender = hasCommand('librecad') && hasCommand('pdftoppm');
-
-/** Share of dark pixels of page 1 of a PDF, from pdftoppm's greyscale PGM output. */
-function inkShare(pdf: string): number {
-  const base = pdf.replace(/\.pdf$/, '');
-  const r = spawnSync('pdftoppm', ['-r', '5', '-gray', '-singlefile', pdf, base], { timeout: 60_000 });
-  expect(r.status).toBe(0);
-  const pgm = readFileSync(`${base}.pgm`);
-  const header = pgm.subarray(0, 64).toString('latin1').split(/\s+/);
-  const [w, h] = [Number(header[1]), Number(header[2])];
-  const pixels = pgm.subarray(pgm.length - w * h);
-  let dark = 0;
-  for (const p of pixels) if (p < 200) dark++;
-  return dark / pixels.length;
-}
-
-describeWith('librecad and poppler-utils', canRender, 'annotated drawing in LibreCAD', () => {
+describeWith('librecad and poppler-utils', canRender(), 'annotated drawing in LibreCAD', () => {
   it('renders with dxf2pdf, and the annotations add visible ink', () => {
     const dir = mkdtempSync(join(tmpdir(), 'hc-render-'));
     const c = cases.find((x) => x.name === 'demo')!;
     writeFileSync(join(dir, 'plain.dxf'), c.bytes);
     writeFileSync(join(dir, 'annotated.dxf'), annotate(c).out);
-    for (const name of ['plain', 'annotated']) {
-      // dxf2pdf writes NAME.pdf beside the drawing; it can hang on broken files, hence the timeout.
-      const r = spawnSync('librecad', ['dxf2pdf', '-a', join(dir, `${name}.dxf`)], {
-        cwd: dir,
-        timeout: 90_000,
-        env: { ...process.env, QT_QPA_PLATFORM: 'offscreen' },
-        encoding: 'utf8',
-      });
-      expect(r.error).toBeUndefined();
-    }
+    for (const name of ['plain', 'annotated']) renderPdf(dir, name);
     expect(
       readdirSync(dir)
         .filter((f) => f.endsWith('.pdf'))

@@ -1,4 +1,4 @@
-// Finds the drawings of a batch: DXF files in folders (recursively, extension in any case) and files named
+// Finds the drawings of a batch: DXF and DWG files in folders (recursively, extension in any case) and files named
 // directly, each with the root it was found under, in a stable order; and each drawing's config file.
 
 import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
@@ -58,7 +58,7 @@ const realOrSelf = (p: string) => {
   }
 };
 
-const isDrawingName = (name: string) => extname(name).toLowerCase() === '.dxf';
+const isDrawingName = (name: string) => ['.dxf', '.dwg'].includes(extname(name).toLowerCase());
 
 /**
  * Drawings under `dir`. A symbolic link is followed where it points inside the batch folder (a folder once only),
@@ -105,7 +105,7 @@ const isBatchOutput = (dir: string) => existsSync(join(dir, '.results')) && exis
 function outputName(rel: string, abs: string): string {
   const readable =
     rel
-      .replace(/\.dxf$/i, '')
+      .replace(/\.(dxf|dwg)$/i, '')
       .replace(/[^A-Za-z0-9._-]+/g, '_')
       .replace(/^[._]+/, '')
       .slice(0, 80) || 'drawing';

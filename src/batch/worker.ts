@@ -8,6 +8,7 @@ import type { LengthUnit } from '../config/settings.js';
 import { loadSettings } from '../io/config-file.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
+import { dwgVersionTag } from '../read/dwg/version.js';
 import { collectBetweenStages } from '../io/collect.js';
 import { readInputFile, sha256Hex, writeAllAtomically } from '../io/files.js';
 
@@ -64,12 +65,21 @@ export default async function checkOne(task: BatchTask): Promise<BatchRow> {
   try {
     const settings = loadSettings(task.config);
     if (task.drawingUnits) settings.units = task.drawingUnits;
-    const bytes = readInputFile(task.file, settings.inputLimits.fileMB);
+    const raw = readInputFile(task.file, settings.inputLimits.fileMB);
+    // A DWG is converted here: this worker already runs under the batch's time and memory limits.
+    const dwgVersion = dwgVersionTag(raw);
+    const bytes = dwgVersion
+      ? await (await import('../io/dwg.js')).dwgAsDxfHere(raw, {
+          seconds: settings.inputLimits.dwgSeconds,
+          memoryMB: settings.inputLimits.dwgMemoryMB,
+        })
+      : raw;
     const onStage = collectBetweenStages(bytes.length);
     const input = {
       bytes,
       fileName: task.file,
-      sha256: sha256Hex(bytes),
+      sha256: sha256Hex(raw),
+      dwgVersion,
       settings,
       reportUnits: task.units,
       requireHydraulics: task.requireHydraulics,

@@ -22,8 +22,10 @@ export interface CheckInput {
   bytes: Uint8Array;
   /** Name of the drawing as the report states it. */
   fileName: string;
-  /** SHA-256 of the bytes, hex (computed by the caller: Node crypto or Web Crypto). */
+  /** SHA-256 of the file as given, hex (computed by the caller: Node crypto or Web Crypto). */
   sha256: string;
+  /** The version tag of a DWG drawing whose DXF conversion `bytes` is (null or absent: the file is DXF). */
+  dwgVersion?: string | null;
   settings: Settings;
   reportUnits: UnitSystem;
   /** Stop (an input error) where no hydraulic calculation can be made, instead of a warning. */

@@ -30,16 +30,17 @@ export interface LayersReport {
 /** Blocks listed per layer. */
 const BLOCKS_SHOWN = 8;
 
-export function layersReport(bytes: Uint8Array, settings: Settings): LayersReport {
+/** `dwgVersion`: the DWG's version tag where `bytes` are its DXF conversion. */
+export function layersReport(bytes: Uint8Array, settings: Settings, dwgVersion: string | null = null): LayersReport {
   const inspection = inspectDrawing(bytes, {
     layers: settings.layers,
     limits: settings.inputLimits,
     ...(settings.units ? { units: settings.units } : {}),
   });
-  return reportOf(inspection);
+  return reportOf(inspection, dwgVersion);
 }
 
-function reportOf(x: Inspection): LayersReport {
+function reportOf(x: Inspection, dwgVersion: string | null): LayersReport {
   const roleOf = new Map<string, LayerRole>();
   for (const role of LAYER_ROLES) for (const l of x.roles[role].layers) roleOf.set(l, role);
   const inchesPerUnit = x.units ? FEET_PER_UNIT[x.units] * 12 : null;
@@ -56,7 +57,9 @@ function reportOf(x: Inspection): LayersReport {
     return { name: l.name, entities: l.counts, blocks, tags, role, reason: role ? x.roles[role].reason : null };
   });
   return {
-    drawing: { format: x.source.format.toUpperCase(), version: x.source.header.version, encoding: x.source.encoding },
+    drawing: dwgVersion
+      ? { format: 'DWG', version: dwgVersion, encoding: x.source.encoding }
+      : { format: x.source.format.toUpperCase(), version: x.source.header.version, encoding: x.source.encoding },
     units: x.units,
     layers,
     roles: Object.fromEntries(

@@ -12,6 +12,7 @@ import { LENGTH_UNITS, parseSettings, type LengthUnit, type Settings } from '../
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
 import { TOOL } from '../version.js';
+import { dwgVersionTag } from '../read/dwg/version.js';
 import { collectBetweenStages } from '../io/collect.js';
 import { findConfig, loadSettings, type FoundConfig } from '../io/config-file.js';
 import { assertNotInput, cleanUpOnSignals, readInputFile, sha256Hex, writeAllAtomically } from '../io/files.js';
@@ -63,12 +64,13 @@ async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: str
   const wanted = FORMAT_NAMES.filter((f) => opts[f]);
   for (const f of wanted) assertNotInput(opts[f]!, file);
   const settings = settingsFor(file, opts);
-  const bytes = readInputFile(file, settings.inputLimits.fileMB);
+  const { bytes, sha256, dwgVersion } = await drawingBytes(file, settings);
   const onStage = collectBetweenStages(bytes.length);
   const input = {
     bytes,
     fileName: file,
-    sha256: sha256Hex(bytes),
+    sha256,
+    dwgVersion,
     settings,
     reportUnits: opts.units,
     requireHydraulics: opts.requireHydraulics === true,
@@ -80,6 +82,24 @@ async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: str
   if (!opts.quiet) for (const line of findingLines(file, result.report)) io.out(line);
   io.out(summaryLine(file, result.report));
   return result.report.summary.pass ? 0 : 1;
+}
+
+/**
+ * The drawing's bytes as the reader takes them, with the hash of the file as given: a DWG (told by its first
+ * bytes) is converted to DXF in a worker thread, whose module loads only then.
+ */
+async function drawingBytes(file: string, settings: Settings): Promise<{ bytes: Uint8Array; sha256: string; dwgVersion: string | null }> {
+  const raw = readInputFile(file, settings.inputLimits.fileMB);
+  const dwgVersion = dwgVersionTag(raw);
+  if (!dwgVersion) return { bytes: raw, sha256: sha256Hex(raw), dwgVersion };
+  const { dwgAsDxf } = await import('../io/dwg.js');
+  const limits = { seconds: settings.inputLimits.dwgSeconds, memoryMB: settings.inputLimits.dwgMemoryMB };
+  try {
+    return { bytes: await dwgAsDxf(raw, limits), sha256: sha256Hex(raw), dwgVersion };
+  } catch (err) {
+    if (err instanceof InputError) throw new InputError(`${file}: ${err.message}`);
+    throw err;
+  }
 }
 
 /** Prefixes an InputError from the pipeline with the drawing's name. */
@@ -127,7 +147,7 @@ export async function main(
 
   const batch = program
     .command('batch <inputs...>')
-    .description('audit many drawings (folders are searched for .dxf files); one bad file never stops the rest')
+    .description('audit many drawings (folders are searched for .dxf and .dwg files); one bad file never stops the rest')
     .requiredOption('--out <dir>', 'folder for the reports and summaries')
     .option('--config <file>', 'config JSON for drawings without their own')
     .addOption(drawingUnitsOption())
@@ -184,8 +204,8 @@ export async function main(
     .action(async (drawing: string, opts: DrawingOptions & { json?: string; configOut?: string }) => {
       for (const o of [opts.json, opts.configOut]) if (o) assertNotInput(o, drawing);
       const settings = settingsFor(drawing, opts);
-      const bytes = readInputFile(drawing, settings.inputLimits.fileMB);
-      const report = withFile(drawing, () => layersReport(bytes, settings));
+      const { bytes, dwgVersion } = await drawingBytes(drawing, settings);
+      const report = withFile(drawing, () => layersReport(bytes, settings, dwgVersion));
       const files: { path: string; data: string }[] = [];
       if (opts.json) files.push({ path: opts.json, data: `${JSON.stringify(report, null, 2)}\n` });
       if (opts.configOut) files.push({ path: opts.configOut, data: `${JSON.stringify(starterConfig(report, drawing), null, 2)}\n` });

@@ -76,13 +76,13 @@ const defaulted = (system: UnitSystem, meta: QuantityMeta & { default: number },
   v.optional(quantity(system, meta, description), from(meta.kind, system)(meta.default));
 const optionalQuantity = (system: UnitSystem, meta: QuantityMeta, description: string) => v.optional(quantity(system, meta, description));
 
-/** A whole number greater than zero (the input limits). */
-const count = (fallback: number, description: string) =>
+/** A whole number greater than zero, or from `least` up (the input limits). */
+const count = (fallback: number, description: string, least?: { value: number; why: string }) =>
   v.optional(
     v.pipe(
       v.number('must be a number'),
       v.integer('must be a whole number'),
-      v.gtValue(0, 'must be greater than 0'),
+      least ? v.minValue(least.value, `must be at least ${least.value} (${least.why})`) : v.gtValue(0, 'must be greater than 0'),
       v.description<number, string>(description),
     ),
     fallback,
@@ -337,6 +337,11 @@ export function configSchema(system: UnitSystem) {
             heads: count(100_000, 'Most head symbols on the head layers'),
             textLength: count(65_536, 'Longest value (a text, a name), characters'),
             networkNodes: count(1_000_000, 'Most nodes of the rebuilt piping'),
+            dwgSeconds: count(120, 'Longest a DWG drawing may take to read, seconds'),
+            dwgMemoryMB: count(2048, 'Most memory reading a DWG drawing may take, MiB (its reader reserves 1 GiB at start)', {
+              value: 1024,
+              why: 'the DWG reader reserves 1 GiB of address space at start and uses what the drawing needs of it',
+            }),
           },
           'How much a drawing may cost before it is refused (each far above real plans)',
         ),

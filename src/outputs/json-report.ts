@@ -34,6 +34,9 @@ export interface Report {
     drawingUnits: string;
     layersUsed: Record<LayerRole, string[]>;
     dxfVersion: string;
+    /** The file's format; a DWG is read through its DXF conversion (`dxfVersion` is the conversion's). */
+    format: 'dxf' | 'dwg';
+    dwgVersion: string | null;
     encoding: string;
   };
   units: ReportUnits;
@@ -176,7 +179,7 @@ export interface ReportDesignArea {
 }
 
 /** What the report is made of: the reviewed drawing (before its report) and the hash of its bytes. */
-export type ReportInput = Omit<Reviewed, 'report' | 'bytes'> & { sha256: string };
+export type ReportInput = Omit<Reviewed, 'report' | 'bytes'> & { sha256: string; dwgVersion?: string | null };
 
 /** Rounds to `digits` decimals, keeping -0 out of the output. */
 export const round = (v: number, digits = 4): number => {
@@ -231,6 +234,8 @@ export function buildReport(r: ReportInput): Report {
       drawingUnits: r.drawing.units,
       layersUsed,
       dxfVersion: r.drawing.version,
+      format: r.dwgVersion ? 'dwg' : 'dxf',
+      dwgVersion: r.dwgVersion ?? null,
       encoding: r.drawing.encoding,
     },
     units: REPORT_UNITS[r.reportUnits],

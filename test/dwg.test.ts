@@ -1,0 +1,102 @@
+// DWG input told by its first bytes, refused in one line when its version is not read or its content is broken,
+// and held to its time limit; batch picks DWG files up beside DXF ones.
+
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { dwgAsDxf, libreDwgModule } from '../src/io/dwg.js';
+import { dwgToDxf } from '../src/read/dwg/dwg-to-dxf.js';
+import { dwgRelease, dwgVersionTag } from '../src/read/dwg/version.js';
+import { parseSettings } from '../src/config/settings.js';
+import { describeWith } from './support/external.js';
+
+const bytesOf = (s: string, pad = 0) => new Uint8Array([...Buffer.from(s, 'latin1'), ...new Uint8Array(pad)]);
+
+function cli(...args: string[]) {
+  return spawnSync(process.execPath, ['bin/headcheck.js', ...args], { encoding: 'utf8', timeout: 120_000 });
+}
+
+describe('telling a DWG', () => {
+  it.each([
+    // The version tags: Open Design Alliance, "Open Design Specification for .dwg files" (version 5.4.1), section 2.
+    ['AC1009', 'R11/R12', null],
+    ['AC1012', 'R13', 'R13'],
+    ['AC1014', 'R14', 'R14'],
+    ['AC1015', '2000', '2000'],
+    ['AC1018', '2004', '2004'],
+    ['AC1021', '2007', '2007'],
+    ['AC1024', '2010', '2010'],
+    ['AC1027', '2013', '2013'],
+    ['AC1032', '2018', '2018'],
+    ['AC1040', 'a later one (invented tag)', null],
+  ])('%s (%s)', (tag, _release, read) => {
+    expect(dwgVersionTag(bytesOf(tag, 100))).toBe(tag);
+    expect(dwgRelease(tag)).toBe(read);
+  });
+
+  it('by its bytes, not its name: a DXF is no DWG, nor is a short or a text file', () => {
+    expect(dwgVersionTag(bytesOf('  0\nSECTION\n'))).toBeNull();
+    expect(dwgVersionTag(bytesOf('AC10'))).toBeNull();
+    expect(dwgVersionTag(bytesOf('ACAD15 drawing'))).toBeNull();
+  });
+});
+
+describe('DWG limits in the config', () => {
+  it('dwgMemoryMB starts at 1024: the reader reserves 1 GiB of address space at start', () => {
+    expect(() => parseSettings({ inputLimits: { dwgMemoryMB: 512 } })).toThrow(/"inputLimits.dwgMemoryMB" must be at least 1024/);
+    expect(parseSettings({ inputLimits: { dwgMemoryMB: 1024 } }).inputLimits.dwgMemoryMB).toBe(1024);
+  });
+});
+
+describe('DWG refused in one line', () => {
+  it.each([
+    ['an R12 DWG', bytesOf('AC1009', 4000), /DWG version AC1009 is not supported \(R13 to 2018 are\)/],
+    ['a version after 2018', bytesOf('AC1040', 4000), /DWG version AC1040 is not supported/],
+    ['a 2000 header over zeros', bytesOf('AC1015', 4000), /the DWG could not be read/],
+    ['a 2018 header over text', bytesOf(`AC1032${'not a drawing '.repeat(300)}`), /the DWG could not be read/],
+  ])(
+    '%s',
+    async (_what, bytes, message) => {
+      await expect(dwgToDxf(bytes, await libreDwgModule(), { memoryMB: 2048 })).rejects.toThrow(message);
+      const dir = mkdtempSync(join(tmpdir(), 'hc-dwg-bad-'));
+      const file = join(dir, 'plan.dxf'); // named .dxf: the bytes decide
+      writeFileSync(file, bytes);
+      for (const command of ['check', 'layers']) {
+        const r = cli(command, file, '--no-config');
+        expect(r.status).toBe(2);
+        const lines = r.stderr.trim().split('\n');
+        expect(lines).toHaveLength(1);
+        expect(lines[0]).toContain(file);
+        expect(lines[0]).toMatch(message);
+      }
+      expect(readdirSync(dir)).toEqual(['plan.dxf']);
+    },
+    120_000,
+  );
+});
+
+const SAMPLE = '../shared/real-dwg/2018_Dynblocks.dwg';
+describeWith('../shared/real-dwg (the DWG samples)', existsSync(SAMPLE), 'DWG limits', () => {
+  it('time: a worker past inputLimits.dwgSeconds is ended, with the limit named', async () => {
+    const bytes = new Uint8Array(readFileSync(SAMPLE));
+    await expect(dwgAsDxf(bytes, { seconds: 0.05, memoryMB: 2048 })).rejects.toThrow(/longer than 0.05 s \(inputLimits.dwgSeconds\)/);
+  }, 120_000);
+
+  it('batch reads DWG beside DXF and names the format in each report', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'hc-dwg-batch-'));
+    const set = join(dir, 'set');
+    mkdirSync(set);
+    writeFileSync(join(set, 'a.dwg'), readFileSync('../shared/real-dwg/2013_gh44-error.dwg'));
+    writeFileSync(join(set, 'b.dxf'), readFileSync('fixtures/bay2-r2000.dxf'));
+    const r = spawnSync(process.execPath, ['bin/headcheck.js', 'batch', set, '--out', join(dir, 'out')], {
+      encoding: 'utf8',
+      timeout: 180_000,
+    });
+    expect([0, 1]).toContain(r.status);
+    const reports = readdirSync(join(dir, 'out')).filter((f) => f.endsWith('.json') && f !== 'summary.json');
+    const formats = reports.map((f) => JSON.parse(readFileSync(join(dir, 'out', f), 'utf8')).input?.format).sort();
+    expect(formats).toEqual(['dwg', 'dxf']);
+  }, 240_000);
+});
