@@ -1,8 +1,9 @@
 // The benchmark (`npm run bench`): generates layouts of 1,000, 5,000 and 20,000 heads, tree and grid, checks
-// each in its own process, and writes per-stage times, search statistics and peak memory to bench-out/.
+// each in its own process, and writes per-stage times, search statistics and peak memory to bench-out/ (and DWG
+// reading, timed on the real samples of ../shared/real-dwg when present).
 
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { layoutDxf } from '../src/demo/generated-layout.js';
 import { HOSTILE } from '../src/demo/hostile.js';
@@ -154,6 +155,31 @@ if ((process.env['BENCH_HOSTILE'] ?? '1') !== '0') {
   }
 }
 
+// DWG reading (../shared/real-dwg, when present): the three largest samples, converted in a process of their own;
+// targets (issue 17) ≤ 1 s per MB warm and ≤ 300 MiB peak.
+const dwg: Record<string, unknown>[] = [];
+const DWG_SAMPLES = '../shared/real-dwg';
+if ((process.env['BENCH_DWG'] ?? '1') !== '0' && existsSync(DWG_SAMPLES)) {
+  const largest = readdirSync(DWG_SAMPLES)
+    .filter((f) => f.endsWith('.dwg') && f !== 'example_2004.dwg') // the one LibreDWG refuses (test/real-dwg.test.ts)
+    .map((f) => ({ f, size: statSync(join(DWG_SAMPLES, f)).size }))
+    .sort((a, b) => b.size - a.size)
+    .slice(0, 3);
+  for (const { f } of largest) {
+    const run = spawnSync(process.execPath, [join('dist-scripts', 'scripts', 'bench-dwg.js'), join(DWG_SAMPLES, f)], {
+      encoding: 'utf8',
+      timeout: 600_000,
+    });
+    const r = JSON.parse(run.stdout);
+    const mb = r.bytes / 1e6;
+    dwg.push({ ...r, warmSecondsPerMB: r.warmMs / 1000 / mb, coldSecondsPerMB: r.coldMs / 1000 / mb });
+    console.log(
+      `DWG ${f} (${mb.toFixed(2)} MB): cold ${(r.coldMs / 1000).toFixed(2)} s, warm ${(r.warmMs / 1000).toFixed(2)} s = ` +
+        `${(r.warmMs / 1000 / mb).toFixed(2)} s/MB (target ≤ 1), peak ${r.peakRssMb.toFixed(0)} MiB (target ≤ 300)`,
+    );
+  }
+}
+
 // Batch throughput: 200 generated drawings of 60 to 600 heads, checked with 1 and with 2 workers.
 const batch: Record<string, number> = {};
 if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
@@ -181,7 +207,7 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
 }
 writeFileSync(
   join(OUT, 'bench.json'),
-  `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, hostile, batch }, null, 2)}\n`,
+  `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, hostile, dwg, batch }, null, 2)}\n`,
 );
 console.log(`figures written to ${join(OUT, 'bench.json')}`);
 

@@ -1,9 +1,10 @@
 // The local page in Debian chromium (playwright-core): drop the demo drawing, wait for the verdict, compare
 // the page's downloads with what the CLI writes for the same file and config (byte for byte), change the hazard
-// and see the result change; path traversal gets 404. A screenshot is kept in test-artifacts/.
+// and see the result change; path traversal gets 404. A screenshot is kept in test-artifacts/. A dropped DWG loads the
+// DWG reader then (not before) from the local server and gives the CLI's bytes too.
 
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -112,4 +113,49 @@ describeWith('chromium', hasCommand('chromium'), 'headcheck serve', () => {
       await s.close();
     }
   });
+});
+
+const DWG = '../shared/real-dwg/2013_gh44-error.dwg';
+describeWith('chromium and ../shared/real-dwg', hasCommand('chromium') && existsSync(DWG), 'headcheck serve with a DWG', () => {
+  it('reads a dropped DWG in the page, fetching the reader only then, and writes what the CLI writes', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'hc-serve-dwg-'));
+    copyFileSync(DWG, join(dir, 'plan.dwg'));
+    const s = await serve(resolve('dist/web'), 0);
+    const browser = await launchChromium(join(dir, 'profile'), { width: 1280, height: 1400, downloads: true });
+    try {
+      const page = await browser.newPage();
+      const requests: string[] = [];
+      page.on('request', (r) => requests.push(r.url()));
+      await page.goto(s.url);
+      await expect.poll(() => page.locator('#caution').textContent()).toMatch(/authority having jurisdiction/);
+      expect(requests.filter((u) => u.endsWith('.wasm'))).toEqual([]);
+      await page.setInputFiles('#file', join(dir, 'plan.dwg'));
+      // 38 alike symbols on one layer of this drawing pass for heads (test/real-dwg.test.ts).
+      await expect.poll(() => page.locator('#verdict').textContent(), { timeout: 90_000 }).toMatch(/^FAIL: 38 heads/);
+      expect(requests.filter((u) => u.endsWith('.wasm'))).toHaveLength(1);
+      expect(requests.filter((u) => !u.startsWith(s.url) && !u.startsWith('blob:') && !u.startsWith('about:'))).toEqual([]);
+      const save = async (id: string, name: string) => {
+        const [dl] = await Promise.all([page.waitForEvent('download'), page.click(`#${id}`)]);
+        await dl.saveAs(join(dir, name));
+        return readFileSync(join(dir, name));
+      };
+      writeFileSync(join(dir, 'plan.config.json'), await save('dl-config', 'page.config.json'));
+      const json = await save('dl-json', 'page.json');
+      const dxf = await save('dl-dxf', 'page.dxf');
+      const args = ['check', 'plan.dwg', '--config', 'plan.config.json', '--json', 'cli.json', '--dxf', 'cli.dxf'];
+      const cli = spawnSync(process.execPath, [resolve('bin/headcheck.js'), ...args], { cwd: dir, encoding: 'utf8' });
+      expect(cli.status, cli.stderr).toBe(1);
+      expect(json.equals(readFileSync(join(dir, 'cli.json')))).toBe(true);
+      expect(dxf.equals(readFileSync(join(dir, 'cli.dxf')))).toBe(true);
+      expect(JSON.parse(json.toString('utf8')).input).toMatchObject({ format: 'dwg', dwgVersion: 'AC1027' });
+      // Only the worker's script may make functions from text (LibreDWG's bindings); the page may not.
+      const policy = async (path: string) => (await fetch(new URL(path, s.url))).headers.get('content-security-policy') ?? '';
+      const worker = requests.find((u) => /\/assets\/check-worker-[\w-]+\.js$/.test(u))!;
+      expect(await policy('/')).not.toMatch(/unsafe-eval/);
+      expect(await policy(new URL(worker).pathname)).toMatch(/'wasm-unsafe-eval' 'unsafe-eval'/);
+    } finally {
+      await browser.close();
+      await s.close();
+    }
+  }, 180_000);
 });

@@ -15,13 +15,19 @@ const TYPES: Record<string, string> = {
   '.png': 'image/png',
   '.json': 'application/json',
   '.ico': 'image/x-icon',
+  '.wasm': 'application/wasm',
 };
 
-/** Scripts only from the page itself, plus the report's one inline script (shown in an iframe) by its hash. */
-function contentSecurityPolicy(): string {
+/**
+ * Scripts only from the page itself, plus the report's one inline script (shown in an iframe) by its hash. The
+ * check's worker may also compile WebAssembly and make functions from text, both for the DWG reader (LibreDWG's
+ * bindings build their call wrappers so); a dedicated worker runs under its own script's policy, so the page
+ * itself still refuses both.
+ */
+function contentSecurityPolicy(worker: boolean): string {
   return [
     "default-src 'none'",
-    `script-src 'self' '${REPORT_SCRIPT_HASH}'`,
+    `script-src 'self' ${worker ? "'wasm-unsafe-eval' 'unsafe-eval'" : `'${REPORT_SCRIPT_HASH}'`}`,
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' data: blob:",
     "worker-src 'self'",
@@ -68,7 +74,8 @@ function allowedHosts(host: string, port: number): Set<string> {
 export function serve(root: string, port: number, host = '127.0.0.1'): Promise<Serving> {
   if (!existsSync(join(root, 'index.html'))) throw new InputError(`${root}: the page is not built (run "npm run build")`);
   const table = filesOf(root);
-  const csp = contentSecurityPolicy();
+  const csp = contentSecurityPolicy(false);
+  const workerCsp = contentSecurityPolicy(true);
   let hosts = allowedHosts(host, port);
   const server = createServer((req, res) => {
     const headers = {
@@ -95,7 +102,13 @@ export function serve(root: string, port: number, host = '127.0.0.1'): Promise<S
       res.end('not found\n');
       return;
     }
-    res.writeHead(200, { ...headers, 'Content-Type': TYPES[extname(file)] ?? 'application/octet-stream' });
+    // Vite names the worker's bundle after its source, src/web/check-worker.ts.
+    const policy = /^\/assets\/check-worker-[\w-]+\.js$/.test(path) ? workerCsp : csp;
+    res.writeHead(200, {
+      ...headers,
+      'Content-Security-Policy': policy,
+      'Content-Type': TYPES[extname(file)] ?? 'application/octet-stream',
+    });
     res.end(req.method === 'HEAD' ? undefined : readFileSync(file));
   });
   return new Promise((resolvePromise, reject) => {

@@ -116,8 +116,19 @@ function check(): void {
   const config = configFromForm();
   const units = (form.elements.namedItem('units') as HTMLSelectElement).value as UnitSystem;
   status.textContent = `Checking ${drawing.name} …`;
+  let dwgTimer: ReturnType<typeof setTimeout> | undefined;
   worker.onmessage = async (e: MessageEvent<CheckReply>) => {
     const m = e.data;
+    clearTimeout(dwgTimer);
+    if (m.type === 'reading-dwg') {
+      status.textContent = `Reading ${drawing!.name} (DWG) …`;
+      dwgTimer = setTimeout(() => {
+        worker?.terminate();
+        status.textContent = `${drawing!.name}: reading the DWG took longer than ${m.seconds} s (inputLimits.dwgSeconds)`;
+        $('results').hidden = true;
+      }, m.seconds * 1000);
+      return;
+    }
     if (m.type === 'progress') {
       status.textContent = `Checking ${drawing!.name}: ${m.stage} done (${((performance.now() - started) / 1000).toFixed(1)} s)`;
       return;
@@ -137,7 +148,7 @@ function check(): void {
     verdict.className = report.summary.pass ? 'pass' : 'fail';
     verdict.textContent = `${report.summary.pass ? 'PASS' : 'FAIL'}: ${report.summary.heads} heads, ${report.summary.errors} errors, ${report.summary.warnings} warnings`;
     for (const u of urls.splice(0)) URL.revokeObjectURL(u);
-    const base = drawing!.name.replace(/\.dxf$/i, '');
+    const base = drawing!.name.replace(/\.(dxf|dwg)$/i, '');
     const links = m.outputs.map((o) => {
       const a = document.createElement('a');
       a.id = `dl-${o.format}`;
