@@ -107,6 +107,20 @@ const section = <E extends v.ObjectEntries>(entries: E, description: string) =>
 
 const NOT_SOURCED = 'common practice, no source: far outside any real value, so a typo is caught';
 
+const nominalSize = (description: string) =>
+  v.pipe(
+    v.union([v.string(), v.number()], 'must be a pipe size such as "1-1/4"'),
+    v.transform((x) => normaliseSize(String(x))),
+    v.check((x): x is NominalSize => x !== null, `must be a nominal pipe size (${NOMINAL_SIZES.join(', ')} in, or DN)`),
+    v.transform((x) => x as NominalSize),
+    v.description(description),
+  );
+const schedule = v.pipe(
+  v.union([v.picklist(['10', '40']), v.picklist([10, 40])], 'must be 10 or 40'),
+  v.transform((x) => String(x) as Schedule),
+  v.description('Steel pipe schedule for inside diameters: 10 or 40'),
+);
+
 /** The schema of a config whose values are written in `system`'s units. */
 export function configSchema(system: UnitSystem) {
   const q = (meta: QuantityMeta & { default: number }, description: string) => defaulted(system, meta, description);
@@ -123,6 +137,60 @@ export function configSchema(system: UnitSystem) {
   };
   const areaMeta: QuantityMeta = { kind: 'area', above: 0, max: 20_000, example: 1500, rangeSource: NOT_SOURCED };
 
+  /** Points [flow, pressure], flows rising: a device's loss or a pump's boost. */
+  const curve = (what: string) =>
+    v.pipe(
+      v.array(
+        v.tuple(
+          [
+            quantity(system, { kind: 'flow', min: 0, max: 20_000, example: 500, rangeSource: NOT_SOURCED }, 'Flow'),
+            quantity(system, { kind: 'pressure', min: 0, max: 400, example: 7, rangeSource: NOT_SOURCED }, 'Pressure'),
+          ],
+          'must be a pair [flow, pressure]',
+        ),
+        'must be a list of [flow, pressure] pairs',
+      ),
+      v.minLength(1, 'must hold at least one [flow, pressure] pair'),
+      v.check((points) => points.every((p, i) => i === 0 || p[0] > points[i - 1]![0]), 'must list flows rising'),
+      v.description(what),
+    );
+  const pathPart = v.variant(
+    'type',
+    [
+      v.strictObject({
+        type: v.literal('pipe'),
+        length: quantity(system, { kind: 'length', above: 0, max: 50_000, example: 300, rangeSource: NOT_SOURCED }, 'Length of the pipe'),
+        size: nominalSize('Nominal size (inches, e.g. "6", or DN150)'),
+        cFactor: q(
+          {
+            kind: 'number',
+            min: 50,
+            max: 200,
+            default: 140,
+            rangeSource: 'common practice: Hazen-Williams C of pipe lies between 100 and 150',
+          },
+          'Hazen-Williams C (default 140: cement-lined)',
+        ),
+        schedule: v.optional(schedule, '40'),
+        rise: q(
+          { kind: 'length', min: -1000, max: 1000, default: 0, rangeSource: NOT_SOURCED },
+          'Rise from its upstream end to its downstream end',
+        ),
+      }),
+      v.strictObject({
+        type: v.literal('device'),
+        name: text('What the device is', 'backflow preventer'),
+        loss: curve("The device's pressure loss at flows, interpolated between points, held past the last"),
+      }),
+      v.strictObject({
+        type: v.literal('pump'),
+        name: text('What the pump is', 'fire pump'),
+        curve: curve("The pump's pressure boost at flows, interpolated between points; none past the last"),
+      }),
+    ],
+    'must have "type" pipe, device or pump',
+  );
+
   const supply = v.pipe(
     v.strictObject(
       {
@@ -137,10 +205,20 @@ export function configSchema(system: UnitSystem) {
           'Residual pressure while flowing `flow`',
         ),
         flow: quantity(system, { kind: 'flow', above: 0, max: 20_000, example: 1000, rangeSource: NOT_SOURCED }, 'Flow of the flow test'),
+        elevation: maybe(
+          { kind: 'length', min: -1000, max: 3000, example: -4, rangeSource: NOT_SOURCED },
+          "Elevation of the flow-test point, same datum as the source (default: the source's)",
+        ),
+        path: v.optional(
+          v.pipe(
+            v.array(pathPart, 'must be a list of parts (pipe, device, pump)'),
+            v.description('The parts between the flow-test point and the source, in order from the test point'),
+          ),
+        ),
       },
       'must be an object with static, residual and flow',
     ),
-    v.description('A flow test at the source: static pressure, residual pressure while flowing a flow'),
+    v.description('A flow test (at the source unless a path leads from it): static pressure, residual pressure while flowing a flow'),
     v.forward(
       v.check((s) => s.residual < s.static, 'must be lower than "supply.static"'),
       ['residual'],
@@ -186,16 +264,7 @@ export function configSchema(system: UnitSystem) {
               },
               'K-factor of a head without a K attribute',
             ),
-            pipeSize: v.optional(
-              v.pipe(
-                v.union([v.string(), v.number()], 'must be a pipe size such as "1-1/4"'),
-                v.transform((x) => normaliseSize(String(x))),
-                v.check((x): x is NominalSize => x !== null, `must be a nominal pipe size (${NOMINAL_SIZES.join(', ')} in, or DN)`),
-                v.transform((x) => x as NominalSize),
-                v.description('Nominal size of a pipe without a size label (inches, e.g. "1-1/4", or DN32)'),
-              ),
-              '1',
-            ),
+            pipeSize: v.optional(nominalSize('Nominal size of a pipe without a size label (inches, e.g. "1-1/4", or DN32)'), '1'),
             cFactor: q(
               {
                 kind: 'number',
@@ -206,14 +275,7 @@ export function configSchema(system: UnitSystem) {
               },
               'Hazen-Williams C of every pipe',
             ),
-            schedule: v.optional(
-              v.pipe(
-                v.union([v.picklist(['10', '40']), v.picklist([10, 40])], 'must be 10 or 40'),
-                v.transform((x) => String(x) as Schedule),
-                v.description('Steel pipe schedule for inside diameters: 10 or 40'),
-              ),
-              '40',
-            ),
+            schedule: v.optional(schedule, '40'),
             headElevation: q(
               { kind: 'length', min: -1000, max: 3000, default: 12, rangeSource: NOT_SOURCED },
               'Elevation of a head without an ELEV attribute, and of the piping',

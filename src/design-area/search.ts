@@ -5,12 +5,13 @@
 // pressure and every flow (each pipe's and head's flow rises with its pressure difference, and no water is
 // stored: a comparison principle). So if every head of an area gets its required pressure at a trial pressure
 // P, the area needs at most P and then flows at most Q(P): its score (source pressure, or pressure short of the
-// supply) is at most P − supply(Q(P) + hose).
+// supply) is at most P − supply(Q(P) + hose), as long as the supply does not rise with flow (a flow test, pipes and
+// devices never do; a pump whose curve rises somewhere does, and then every candidate is calculated).
 
 import type { Settings } from '../config/settings.js';
 import { AreaCalculator, type AreaDemand, type AreaHydraulics } from '../hydraulics/calculate.js';
 import type { FlowingHead } from '../hydraulics/model.js';
-import { availablePressure } from '../hydraulics/water-supply.js';
+import { supplyOf } from '../hydraulics/supply-path.js';
 import type { Network } from '../network/types.js';
 import { lastRun, memberCount, membersOf, unionOf, type Candidate, type CandidateGroup } from './candidates.js';
 import { spanningTreeModel, treeBound, type Demand } from '../hydraulics/k-factor-walk.js';
@@ -59,11 +60,12 @@ export function searchMostDemanding(
   for (const g of groups) for (const id of unionOf(g)) anyArea.add(id);
   const all = flowingOf([...anyArea]);
   if (all.length === 0) return { best: null, runnerUp: null, candidates, evaluated: 0, screened: 0, solves: 0, pruned: false };
-  const prune = options.prune !== false;
+  const supply = supplyOf(settings);
+  // The proof needs a supply that never rises with flow; a pump curve that rises somewhere turns pruning off.
+  const prune = options.prune !== false && (supply === null || supply.nonIncreasing);
   const calculator = new AreaCalculator(network, sourceNodeId, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
-  const supply = settings.supply;
-  const scoreAt = (pressure: number, flow: number) => (supply ? pressure - availablePressure(supply, flow + hose) : pressure);
+  const scoreAt = (pressure: number, flow: number) => (supply ? pressure - supply.available(flow + hose) : pressure);
   const scoreOf = (d: Demand | null | undefined) => (d ? scoreAt(d.pressure, d.flow) : null);
   /** The two most demanding areas calculated so far. */
   const top: { best: Scored | null; runnerUp: Scored | null } = { best: null, runnerUp: null };
@@ -80,7 +82,7 @@ export function searchMostDemanding(
     const r = top.runnerUp.demand;
     // First at the pressure where a guessed flow would tie with the runner-up; then, if the flow there was
     // larger, at the (lower) pressure where that flow ties.
-    let P = supply ? target + availablePressure(supply, (lastFlow ? 1.01 * lastFlow : 1.03 * r.sourceFlow) + hose) : r.sourcePressure;
+    let P = supply ? target + supply.available((lastFlow ? 1.01 * lastFlow : 1.03 * r.sourceFlow) + hose) : r.sourcePressure;
     for (let attempt = 0; attempt < 2; attempt++) {
       const at = calculator.satisfiedAt(heads, P);
       solves++;
@@ -90,7 +92,7 @@ export function searchMostDemanding(
         return true;
       }
       if (!supply) return false;
-      P = target + availablePressure(supply, at.flow + hose);
+      P = target + supply.available(at.flow + hose);
     }
     return false;
   };

@@ -7,7 +7,7 @@ import { frictionPsiPerFt, HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
 import { buildModel, type FlowingHead, type HydraulicModel } from './model.js';
 import { NetworkSolver, type FlowState, type SolveResult } from './solver.js';
-import { availablePressure } from './water-supply.js';
+import { type PathStep, supplyOf } from './supply-path.js';
 import { maxOf } from '../arrays.js';
 
 export interface AreaHydraulics {
@@ -17,6 +17,8 @@ export interface AreaHydraulics {
   totalDemand: number;
   supplyAvailable: number | null;
   margin: number | null;
+  /** The supply path at the total demand, from the flow-test point to the source (empty without a path). */
+  supplyPath: PathStep[];
   criticalHeadId: string;
   /** Handle of the head that sets the pressure: it gets exactly its required pressure. */
   controllingHead: string;
@@ -207,7 +209,8 @@ export class AreaCalculator {
     const s = this.solver.expand(d.state);
     const { sourcePressure: P, sourceFlow } = d;
     const totalDemand = sourceFlow + hoseAllowance;
-    const supplyAvailable = settings.supply ? availablePressure(settings.supply, totalDemand) : null;
+    const supply = supplyOf(settings);
+    const supplyAvailable = supply ? supply.available(totalDemand) : null;
     const busy = model.pipes.map((_, k) => Math.abs(s.flow[k]!) > IDLE_SHARE * sourceFlow);
     const onBusy = new Set<number>([model.source]);
     model.pipes.forEach((p, k) => {
@@ -228,6 +231,7 @@ export class AreaCalculator {
       criticalHeadId: d.criticalHeadId,
       controllingHead: this.handleOf.get(d.criticalHeadId)!,
       steps: stepsToSource(model, s, this.emitterOf.get(d.criticalHeadId)!),
+      supplyPath: supply?.hasPath ? supply.steps(totalDemand) : [],
       heads: d.state.open.length
         ? Array.from(d.state.open, (k) => {
             const e = model.emitters[k]!;

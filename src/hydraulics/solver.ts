@@ -5,7 +5,8 @@
 // exactly, as every Hazen-Williams pipe has the same exponent), and the open heads inside a chain are
 // eliminated along it (a tridiagonal solve), so a design area costs what its junctions and open heads cost.
 
-import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
+import { PSI_PER_FT } from './hazen-williams.js';
+import { EMITTER, HAZEN_WILLIAMS } from './laws.js';
 import type { HydraulicModel } from './model.js';
 import { buildSkeleton, type Skeleton } from './skeleton.js';
 import { SparseSpdSystem } from './sparse-cholesky.js';
@@ -44,6 +45,16 @@ const remaining = (step: number, previous: number): number => {
   const rho = step / previous;
   return rho < MAX_CONTRACTION ? (step * rho) / (1 - rho) : step;
 };
+
+/** What an iteration changed: the sum of flow changes, the largest head change, and the total flow. */
+interface Change {
+  flow: number;
+  head: number;
+  totalFlow: number;
+}
+
+const converged = (change: Change, previous: Change): boolean =>
+  remaining(change.flow, previous.flow) <= FLOW_TOL * Math.max(change.totalFlow, 1) && remaining(change.head, previous.head) <= HEAD_TOL;
 const MAX_ITERATIONS = 200;
 /**
  * Least slope of a link's loss curve in the Newton step, psi per gpm. Near zero flow the Hazen-Williams slope
@@ -73,6 +84,19 @@ interface LivePart {
   peeled: { anchor: number; chain: number }[];
   /** Live chain of each skeleton chain, or −1. */
   liveIndex: Int32Array;
+}
+
+/** One solve in progress: its live part, the solver's buffers, the counts that size them, the source's head. */
+interface Iteration {
+  live: LivePart;
+  w: Workspace;
+  /** Live chains, open heads on chains, open heads on anchors, anchors. */
+  L: number;
+  T: number;
+  nE: number;
+  nA: number;
+  sourceHead: number;
+  iterations: number;
 }
 
 interface Solution {
@@ -218,198 +242,225 @@ export class NetworkSolver {
   /**
    * Solves for a fixed pressure at the source, warm from the last solve. `open` lists the emitters that flow
    * (all when omitted): a closed head is no link at all, so one solver serves many design areas. `keep`
-   * keeps what `expand` needs (a trial solve that is only checked does without).
+   * keeps what `expand` needs (a trial solve that is only checked does without). An iteration is EPANET's:
+   * each link's coefficients from its law, the anchor system assembled, solved, new flows, converged?
    */
   solve(sourcePressure: number, open?: Int32Array, keep = true): SolveResult {
-    const { model, skeleton: sk, system, diagSlot, pairSlot } = this;
-    const live = this.livePart(open ?? Int32Array.from(model.emitters, (_, k) => k));
-    const { chain, aLinked, bLinked, headStart, headIndex, headEmitter, anchorEmitters, liveAnchor } = live;
-    const L = chain.length;
+    const it = this.start(sourcePressure, open ?? Int32Array.from(this.model.emitters, (_, k) => k));
+    for (let previous: Change = { flow: Infinity, head: Infinity, totalFlow: 0 }; ; ) {
+      this.coefficients(it);
+      this.assemble(it);
+      const anchorHeads = this.system.solve(it.w.rhs.subarray(0, it.nA - 1), it.w.solved);
+      const change = this.updateFlows(it, anchorHeads);
+      it.iterations++;
+      if (it.iterations > 1 && converged(change, previous)) break;
+      if (it.iterations >= MAX_ITERATIONS) throw new Error(`hydraulic solve did not converge in ${MAX_ITERATIONS} iterations`);
+      previous = change;
+    }
+    return this.results(it, keep);
+  }
+
+  /** The live part, and each open head's and segment's starting flow (warm from the last solve that had it). */
+  private start(sourcePressure: number, openList: Int32Array): Iteration {
+    const { model, skeleton: sk } = this;
+    const live = this.livePart(openList);
+    const { chain, aLinked, bLinked, headStart, headIndex, headEmitter, anchorEmitters } = live;
     const T = headEmitter.length;
     const nE = anchorEmitters.length;
     if (Math.max(T, nE) > this.work.qH.length) this.work = workspace(Math.max(T, nE), sk.chains.length, sk.anchorNode.length);
-    const nA = sk.anchorNode.length;
-    const src = sk.source;
+    const w = this.work;
     const zOf = (node: number) => PSI_PER_FT * model.nodes[node]!.elevation;
-    const sourceHead = sourcePressure + zOf(sk.anchorNode[src]!);
     const firstFlow = (k: number) => {
       const last = this.lastEmitterFlow[k]!;
       return Number.isFinite(last) ? last : model.emitters[k]!.k * Math.sqrt(Math.max(model.emitters[k]!.required, 1));
     };
-    // Open heads on chains (h) and on anchors (e): flow, K, elevation head, linearization q = g·H + c.
-    const { qH, kH, zH, gE, cE, qA, kA, zA, atA, gA, cA, w, x0, xa, xb, segR, segOn, q, g, s, endA, endB, rhs } = this.work;
     for (let h = 0; h < T; h++) {
       const k = headEmitter[h]!;
-      qH[h] = firstFlow(k);
-      kH[h] = model.emitters[k]!.k;
-      zH[h] = zOf(model.emitters[k]!.node);
+      w.qH[h] = firstFlow(k);
+      w.kH[h] = model.emitters[k]!.k;
+      w.zH[h] = zOf(model.emitters[k]!.node);
     }
     for (let e = 0; e < nE; e++) {
       const k = anchorEmitters[e]!;
-      qA[e] = firstFlow(k);
-      kA[e] = model.emitters[k]!.k;
-      zA[e] = zOf(model.emitters[k]!.node);
-      atA[e] = this.emitterAnchor[k]!;
+      w.qA[e] = firstFlow(k);
+      w.kA[e] = model.emitters[k]!.k;
+      w.zA[e] = zOf(model.emitters[k]!.node);
+      w.atA[e] = this.emitterAnchor[k]!;
     }
-    // Head potentials along chains and at anchors, this iteration's and the next (swapped each iteration).
-    let H = this.work.H.fill(0, 0, T);
-    let nextH = this.work.nextH;
-    let anchorHead = this.work.anchorHead.fill(0);
-    let nextAnchor = this.work.nextAnchor;
-    // Segments: resistance, flow, linearization, and whether the segment exists (reaches a linked end).
-    const S = T + L;
-    for (let i = 0; i < L; i++) {
+    // Segments of each live chain: resistance, whether it reaches a linked end, and a first flow.
+    for (let i = 0; i < chain.length; i++) {
       const c = sk.chains[chain[i]!]!;
-      endA[i] = c.a;
-      endB[i] = c.b;
+      w.endA[i] = c.a;
+      w.endB[i] = c.b;
       const h0 = headStart[i]!;
       const m = headStart[i + 1]! - h0;
       const base = h0 + i;
       let total = 0;
-      for (let h = h0; h < h0 + m; h++) total += qH[h]!;
+      for (let h = h0; h < h0 + m; h++) total += w.qH[h]!;
       const last = this.lastChainFlow[chain[i]!]!;
       let flow = !aLinked[i] ? 0 : !bLinked[i] ? total : Number.isFinite(last) ? last : m ? total / 2 : COLD_FLOW;
       for (let j = 0; j <= m; j++) {
         const from = j === 0 ? 0 : headIndex[h0 + j - 1]! + 1;
         const to = j === m ? c.nodes.length + 1 : headIndex[h0 + j]! + 1;
-        segR[base + j] = c.cumR[to]! - c.cumR[from]!;
-        segOn[base + j] = (j === 0 && !aLinked[i]) || (j === m && !bLinked[i]) ? 0 : 1;
-        q[base + j] = segOn[base + j] ? flow : 0;
-        if (j < m) flow -= qH[h0 + j]!;
+        w.segR[base + j] = c.cumR[to]! - c.cumR[from]!;
+        w.segOn[base + j] = (j === 0 && !aLinked[i]) || (j === m && !bLinked[i]) ? 0 : 1;
+        w.q[base + j] = w.segOn[base + j] ? flow : 0;
+        if (j < m) flow -= w.qH[h0 + j]!;
       }
     }
-    let iterations = 0;
-    let lastDq = Infinity;
-    let lastDh = Infinity;
-    for (; iterations < MAX_ITERATIONS; iterations++) {
-      system.clear();
-      rhs.fill(0, 0, nA - 1);
-      for (let v = 0; v < nA; v++) if (v !== src && !liveAnchor[v]) system.addAt(diagSlot[v]!, 1);
-      // An emitter is a link to the atmosphere at its own elevation: pressure (q/K)², slope 2|q|/K².
-      for (let e = 0; e < nE; e++) {
-        const K2 = kA[e]! * kA[e]!;
-        const ge = 1 / Math.max((2 * Math.abs(qA[e]!)) / K2, MIN_SLOPE);
-        gA[e] = ge;
-        cA[e] = qA[e]! - ((qA[e]! * Math.abs(qA[e]!)) / K2) * ge - ge * zA[e]!;
-        const v = atA[e]!;
-        if (v === src) continue;
-        system.addAt(diagSlot[v]!, ge);
-        rhs[v - 1] = rhs[v - 1]! - cA[e]!;
+    w.H.fill(0, 0, T);
+    w.anchorHead.fill(0);
+    return {
+      live,
+      w,
+      L: chain.length,
+      T,
+      nE,
+      nA: sk.anchorNode.length,
+      sourceHead: sourcePressure + zOf(sk.anchorNode[sk.source]!),
+      iterations: 0,
+    };
+  }
+
+  /** Each link linearised at its present flow by its own law: flow = g·(head difference) + s. */
+  private coefficients(it: Iteration): void {
+    const { w, T, nE, L } = it;
+    linearizeEmitters(w.qA, w.kA, w.zA, w.gA, w.cA, nE);
+    linearizeEmitters(w.qH, w.kH, w.zH, w.gE, w.cE, T);
+    const segments = T + L;
+    for (let x = 0; x < segments; x++) {
+      if (!w.segOn[x]) {
+        w.g[x] = 0;
+        w.s[x] = 0;
+        continue;
       }
-      for (let h = 0; h < T; h++) {
-        const K2 = kH[h]! * kH[h]!;
-        const ge = 1 / Math.max((2 * Math.abs(qH[h]!)) / K2, MIN_SLOPE);
-        gE[h] = ge;
-        cE[h] = qH[h]! - ((qH[h]! * Math.abs(qH[h]!)) / K2) * ge - ge * zH[h]!;
+      const qx = w.q[x]!;
+      const gx = 1 / Math.max(HAZEN_WILLIAMS.slope(w.segR[x]!, qx), MIN_SLOPE);
+      w.g[x] = gx;
+      w.s[x] = qx - HAZEN_WILLIAMS.loss(w.segR[x]!, qx) * gx;
+    }
+  }
+
+  /**
+   * The anchor system: each live chain, its open heads eliminated, is a two-port between its end anchors
+   * (outflow at a: pA·H_a + pAB·H_b + cPa; at b: pBA·H_a + pB·H_b + cPb); anchor heads and idle anchors too.
+   */
+  private assemble(it: Iteration): void {
+    const { system, diagSlot, pairSlot, skeleton: sk } = this;
+    const { w, live, L, nE, nA, sourceHead } = it;
+    const { chain, aLinked, bLinked, headStart, liveAnchor } = live;
+    const { g, s, gE, cE, x0, xa, xb, rhs } = w;
+    const src = sk.source;
+    system.clear();
+    rhs.fill(0, 0, nA - 1);
+    for (let v = 0; v < nA; v++) if (v !== src && !liveAnchor[v]) system.addAt(diagSlot[v]!, 1);
+    for (let e = 0; e < nE; e++) {
+      const v = w.atA[e]!;
+      if (v === src) continue;
+      system.addAt(diagSlot[v]!, w.gA[e]!);
+      rhs[v - 1] = rhs[v - 1]! - w.cA[e]!;
+    }
+    for (let i = 0; i < L; i++) {
+      const h0 = headStart[i]!;
+      const m = headStart[i + 1]! - h0;
+      const base = h0 + i;
+      let pA: number, pB: number, pAB: number, pBA: number, cPa: number, cPb: number;
+      if (m === 0) {
+        pA = pB = g[base]!;
+        pAB = pBA = -g[base]!;
+        cPa = s[base]!;
+        cPb = -s[base]!;
+      } else {
+        eliminateHeads(g, s, base, gE, cE, h0, m, w.pivot, x0, xa, xb);
+        const gFirst = g[base]!;
+        const gLast = g[base + m]!;
+        const hl = h0 + m - 1;
+        pA = gFirst * (1 - xa[h0]!);
+        pAB = -gFirst * xb[h0]!;
+        cPa = s[base]! - gFirst * x0[h0]!;
+        pBA = -gLast * xa[hl]!;
+        pB = gLast * (1 - xb[hl]!);
+        cPb = -s[base + m]! - gLast * x0[hl]!;
       }
-      for (let x = 0; x < S; x++) {
-        if (!segOn[x]) {
-          g[x] = 0;
-          s[x] = 0;
-          continue;
+      const a = w.endA[i]!;
+      const b = w.endB[i]!;
+      const la = aLinked[i] === 1;
+      const lb = bLinked[i] === 1;
+      if (la && lb && a === b) {
+        if (a !== src) {
+          system.addAt(diagSlot[a]!, pA + pAB + pBA + pB);
+          rhs[a - 1] = rhs[a - 1]! - cPa - cPb;
         }
-        const qx = q[x]!;
-        const pow = lossPower(Math.abs(qx));
-        const gx = 1 / Math.max(HW_EXPONENT * segR[x]! * pow, MIN_SLOPE);
-        g[x] = gx;
-        s[x] = qx - segR[x]! * pow * qx * gx;
+        continue;
       }
-      // Each chain becomes a two-port once its open heads are eliminated: the outflow at a is
-      // pA·H_a + pAB·H_b + cPa, at b pBA·H_a + pB·H_b + cPb.
-      for (let i = 0; i < L; i++) {
-        const h0 = headStart[i]!;
-        const m = headStart[i + 1]! - h0;
-        const base = h0 + i;
-        let pA: number, pB: number, pAB: number, pBA: number, cPa: number, cPb: number;
-        if (m === 0) {
-          pA = pB = g[base]!;
-          pAB = pBA = -g[base]!;
-          cPa = s[base]!;
-          cPb = -s[base]!;
-        } else {
-          eliminateHeads(g, s, base, gE, cE, h0, m, w, x0, xa, xb);
-          const gFirst = g[base]!;
-          const gLast = g[base + m]!;
-          const hl = h0 + m - 1;
-          pA = gFirst * (1 - xa[h0]!);
-          pAB = -gFirst * xb[h0]!;
-          cPa = s[base]! - gFirst * x0[h0]!;
-          pBA = -gLast * xa[hl]!;
-          pB = gLast * (1 - xb[hl]!);
-          cPb = -s[base + m]! - gLast * x0[hl]!;
-        }
-        const a = endA[i]!;
-        const b = endB[i]!;
-        const la = aLinked[i] === 1;
-        const lb = bLinked[i] === 1;
-        if (la && lb && a === b) {
-          if (a !== src) {
-            system.addAt(diagSlot[a]!, pA + pAB + pBA + pB);
-            rhs[a - 1] = rhs[a - 1]! - cPa - cPb;
-          }
-          continue;
-        }
-        if (la && a !== src) {
-          system.addAt(diagSlot[a]!, pA);
-          rhs[a - 1] = rhs[a - 1]! - cPa - (lb && b === src ? pAB * sourceHead : 0);
-        }
-        if (lb && b !== src) {
-          system.addAt(diagSlot[b]!, pB);
-          rhs[b - 1] = rhs[b - 1]! - cPb - (la && a === src ? pBA * sourceHead : 0);
-        }
-        if (la && lb && a !== src && b !== src) system.addAt(pairSlot[chain[i]!]!, (pAB + pBA) / 2);
+      if (la && a !== src) {
+        system.addAt(diagSlot[a]!, pA);
+        rhs[a - 1] = rhs[a - 1]! - cPa - (lb && b === src ? pAB * sourceHead : 0);
       }
-      const solved = system.solve(rhs.subarray(0, nA - 1), this.work.solved);
-      let dh = 0;
-      for (let v = 0; v < nA; v++) {
-        nextAnchor[v] = v === src ? sourceHead : liveAnchor[v] ? solved[v - 1]! : 0;
-        dh = Math.max(dh, Math.abs(nextAnchor[v]! - anchorHead[v]!));
+      if (lb && b !== src) {
+        system.addAt(diagSlot[b]!, pB);
+        rhs[b - 1] = rhs[b - 1]! - cPb - (la && a === src ? pBA * sourceHead : 0);
       }
-      let dq = 0;
-      let total = 0;
-      for (let i = 0; i < L; i++) {
-        const h0 = headStart[i]!;
-        const m = headStart[i + 1]! - h0;
-        const base = h0 + i;
-        const Ha = aLinked[i] ? nextAnchor[endA[i]!]! : 0;
-        const Hb = bLinked[i] ? nextAnchor[endB[i]!]! : 0;
-        for (let h = h0; h < h0 + m; h++) {
-          const Hh = x0[h]! + xa[h]! * Ha + xb[h]! * Hb;
-          nextH[h] = Hh;
-          dh = Math.max(dh, Math.abs(Hh - H[h]!));
-          const nq = gE[h]! * Hh + cE[h]!;
-          dq += Math.abs(nq - qH[h]!);
-          total += Math.abs(nq);
-          qH[h] = nq;
-        }
-        for (let j = 0; j <= m; j++) {
-          const x = base + j;
-          if (!segOn[x]) continue;
-          const left = j === 0 ? Ha : nextH[h0 + j - 1]!;
-          const right = j === m ? Hb : nextH[h0 + j]!;
-          const nq = g[x]! * (left - right) + s[x]!;
-          dq += Math.abs(nq - q[x]!);
-          total += Math.abs(nq);
-          q[x] = nq;
-        }
-      }
-      for (let e = 0; e < nE; e++) {
-        const nq = gA[e]! * nextAnchor[atA[e]!]! + cA[e]!;
-        dq += Math.abs(nq - qA[e]!);
+      if (la && lb && a !== src && b !== src) system.addAt(pairSlot[chain[i]!]!, (pAB + pBA) / 2);
+    }
+  }
+
+  /** New anchor heads from the linear solve, then the heads along chains and every link's new flow; the change. */
+  private updateFlows(it: Iteration, solved: Float64Array): Change {
+    const { w, live, L, nE, nA, sourceHead } = it;
+    const { aLinked, bLinked, headStart, liveAnchor } = live;
+    const src = this.skeleton.source;
+    const { anchorHead, nextAnchor, H, nextH, q, qH, qA, g, s, gE, cE, x0, xa, xb, segOn } = w;
+    let head = 0;
+    for (let v = 0; v < nA; v++) {
+      nextAnchor[v] = v === src ? sourceHead : liveAnchor[v] ? solved[v - 1]! : 0;
+      head = Math.max(head, Math.abs(nextAnchor[v]! - anchorHead[v]!));
+    }
+    let dq = 0;
+    let total = 0;
+    for (let i = 0; i < L; i++) {
+      const h0 = headStart[i]!;
+      const m = headStart[i + 1]! - h0;
+      const base = h0 + i;
+      const Ha = aLinked[i] ? nextAnchor[w.endA[i]!]! : 0;
+      const Hb = bLinked[i] ? nextAnchor[w.endB[i]!]! : 0;
+      for (let h = h0; h < h0 + m; h++) {
+        const Hh = x0[h]! + xa[h]! * Ha + xb[h]! * Hb;
+        nextH[h] = Hh;
+        head = Math.max(head, Math.abs(Hh - H[h]!));
+        const nq = gE[h]! * Hh + cE[h]!;
+        dq += Math.abs(nq - qH[h]!);
         total += Math.abs(nq);
-        qA[e] = nq;
+        qH[h] = nq;
       }
-      [anchorHead, nextAnchor] = [nextAnchor, anchorHead];
-      [H, nextH] = [nextH, H];
-      if (iterations > 0 && remaining(dq, lastDq) <= FLOW_TOL * Math.max(total, 1) && remaining(dh, lastDh) <= HEAD_TOL) {
-        iterations++;
-        break;
+      for (let j = 0; j <= m; j++) {
+        const x = base + j;
+        if (!segOn[x]) continue;
+        const left = j === 0 ? Ha : nextH[h0 + j - 1]!;
+        const right = j === m ? Hb : nextH[h0 + j]!;
+        const nq = g[x]! * (left - right) + s[x]!;
+        dq += Math.abs(nq - q[x]!);
+        total += Math.abs(nq);
+        q[x] = nq;
       }
-      lastDq = dq;
-      lastDh = dh;
     }
-    if (iterations >= MAX_ITERATIONS) throw new Error(`hydraulic solve did not converge in ${MAX_ITERATIONS} iterations`);
-    for (let i = 0; i < L; i++) this.lastChainFlow[chain[i]!] = aLinked[i] ? q[headStart[i]! + i]! : Number.NaN;
+    for (let e = 0; e < nE; e++) {
+      const nq = w.gA[e]! * nextAnchor[w.atA[e]!]! + w.cA[e]!;
+      dq += Math.abs(nq - qA[e]!);
+      total += Math.abs(nq);
+      qA[e] = nq;
+    }
+    // This iteration's heads become the present ones (the buffers swap).
+    [w.anchorHead, w.nextAnchor] = [nextAnchor, anchorHead];
+    [w.H, w.nextH] = [nextH, H];
+    return { flow: dq, head, totalFlow: total };
+  }
+
+  /** The open heads' pressures and flows; the warm start for the next solve; what `expand` needs when kept. */
+  private results(it: Iteration, keep: boolean): SolveResult {
+    const { w, live, L, T, nE, nA } = it;
+    const { chain, aLinked, headStart, headEmitter, anchorEmitters } = live;
+    for (let i = 0; i < L; i++) this.lastChainFlow[chain[i]!] = aLinked[i] ? w.q[headStart[i]! + i]! : Number.NaN;
     const pressure = new Float64Array(nE + T);
     const flow = new Float64Array(nE + T);
     const openOut = new Int32Array(nE + T);
@@ -419,15 +470,12 @@ export class NetworkSolver {
       flow[x] = qk;
       this.lastEmitterFlow[k] = qk;
     };
-    for (let e = 0; e < nE; e++) put(e, anchorEmitters[e]!, anchorHead[atA[e]!]!, qA[e]!, zA[e]!);
-    for (let h = 0; h < T; h++) put(nE + h, headEmitter[h]!, H[h]!, qH[h]!, zH[h]!);
-    return {
-      open: openOut,
-      pressure,
-      flow,
-      iterations,
-      solution: keep ? { live, anchorHead: anchorHead.slice(0, nA), headPotential: H.slice(0, T), segmentFlow: q.slice(0, S) } : null,
-    };
+    for (let e = 0; e < nE; e++) put(e, anchorEmitters[e]!, w.anchorHead[w.atA[e]!]!, w.qA[e]!, w.zA[e]!);
+    for (let h = 0; h < T; h++) put(nE + h, headEmitter[h]!, w.H[h]!, w.qH[h]!, w.zH[h]!);
+    const solution = keep
+      ? { live, anchorHead: w.anchorHead.slice(0, nA), headPotential: w.H.slice(0, T), segmentFlow: w.q.slice(0, T + L) }
+      : null;
+    return { open: openOut, pressure, flow, iterations: it.iterations, solution };
   }
 
   /** Pressures at every model node and flows in every pipe, from a solve: idle parts take the head they hang from. */
@@ -452,7 +500,7 @@ export class NetworkSolver {
         for (let x = from; x < to; x++) {
           const k = c.pipes[x]!;
           flow[k] = q * c.sign[x]!;
-          h -= model.pipes[k]!.r * Math.abs(q) ** (HW_EXPONENT - 1) * q;
+          h -= HAZEN_WILLIAMS.loss(model.pipes[k]!.r, q);
           if (x < c.nodes.length) H[c.nodes[x]!] = h;
         }
       }
@@ -486,8 +534,14 @@ export class NetworkSolver {
   }
 }
 
-/** |q|^0.85, the Hazen-Williams loss over |q| (exp and log: twice as fast as the power operator in V8). */
-const lossPower = (absQ: number): number => (absQ > 0 ? Math.exp((HW_EXPONENT - 1) * Math.log(absQ)) : 0);
+/** Heads as links to the atmosphere at their own elevation z, linearised by the emitter law: q = g·H + c. */
+function linearizeEmitters(q: Float64Array, k: Float64Array, z: Float64Array, g: Float64Array, c: Float64Array, n: number): void {
+  for (let e = 0; e < n; e++) {
+    const ge = 1 / Math.max(EMITTER.slope(k[e]!, q[e]!), MIN_SLOPE);
+    g[e] = ge;
+    c[e] = q[e]! - EMITTER.loss(k[e]!, q[e]!) * ge - ge * z[e]!;
+  }
+}
 
 /** Buffers of one solver, sized for every head open and every chain live, reused by each solve. */
 type Workspace = ReturnType<typeof workspace>;
@@ -501,7 +555,7 @@ function workspace(emitters: number, chains: number, anchors: number) {
     zH: f(emitters),
     gE: f(emitters),
     cE: f(emitters),
-    w: f(emitters),
+    pivot: f(emitters),
     x0: f(emitters),
     xa: f(emitters),
     xb: f(emitters),

@@ -14,6 +14,7 @@ import { escapeHtml as esc } from './html-escape.js';
 import { REPORT_SCRIPT } from './report-script.generated.js';
 import { sha256Base64 } from './sha256.js';
 import { supplyGraph } from './supply-graph.js';
+import { supplyOf } from '../hydraulics/supply-path.js';
 import { pushAll } from '../arrays.js';
 
 const ROLE_COLOR: Record<PipeRole, string> = {
@@ -226,7 +227,28 @@ function supplyHtml(result: Reviewed, c: ReturnType<typeof converterFor>, u: (ty
       : [],
   );
   if (!supply && !demands.length) return '';
-  return `<section><h2>Water supply</h2>${supply ? '' : '<p>No flow test given: demand points only.</p>'}${supplyGraph(supply, demands, c, u)}</section>`;
+  const atSource = supplyOf(result.settings);
+  return `<section><h2>Water supply</h2>${supply ? '' : '<p>No flow test given: demand points only.</p>'}${supplyGraph(supply, atSource, demands, c, u)}${supplyPathHtml(result, u)}</section>`;
+}
+
+/** The supply path at the most demanding area's total demand: the calculation from the flow-test point to the source. */
+function supplyPathHtml(result: Reviewed, u: (typeof REPORT_UNITS)['us']): string {
+  const area = result.design.areas.find((a) => a.rank === 'most-demanding' && a.hydraulics?.supplyPath.length);
+  if (!area) return '';
+  const h = area.hydraulics!;
+  const fmt = formatterFor(result.reportUnits);
+  const rows = h.supplyPath.map(
+    (x) =>
+      `<tr><td>${esc(x.name)}</td><td>${esc(x.type)}</td><td class="num">${esc(fmt.flow(x.flow))}</td><td class="num">${esc(fmt.pressure(x.pressureFrom))}</td>` +
+      `<td class="num">${esc(fmt.pressure(x.loss))}</td><td class="num">${esc(fmt.pressure(x.pressureTo))}</td></tr>`,
+  );
+  return (
+    `<h3>Supply path at ${esc(fmt.flow(h.totalDemand))} (the most demanding area with hose)</h3>` +
+    `<table class="supply-path"><thead><tr><th>part</th><th>kind</th><th>flow</th><th>available before (${esc(u.pressure)})</th>` +
+    `<th>loss (a pump's boost negative)</th><th>available after</th></tr></thead><tbody>${rows.join('')}</tbody></table>` +
+    `<p>Available at the source ${esc(fmt.pressure(h.supplyAvailable!))} against ${esc(fmt.pressure(h.sourcePressure))} needed: margin ${esc(fmt.pressure(h.margin!))}. ` +
+    'The hose allowance is taken through the whole path (conservative).</p>'
+  );
 }
 
 const STYLE = `
@@ -252,7 +274,7 @@ table.steps td,table.steps th{text-align:right;white-space:nowrap}table.steps td
 table{border-collapse:collapse;width:100%;font-size:.88rem}th,td{border-bottom:1px solid #e2e2e2;padding:3px 6px;text-align:left;vertical-align:top}
 tr.error td:first-child{color:#b3261e;font-weight:600}tr.warning td:first-child{color:#ef6c00}tr.info td:first-child{color:#0277bd}
 tr[data-finding]{cursor:pointer}tr.hl{background:#fff3b0}.ref{font-size:.78rem;color:#555}.scroll{overflow-x:auto}
-.chart{width:100%;max-width:760px}.chart text{font-size:11px}.chart .axis{stroke:#333}.chart .grid{stroke:#e5e5e5}.chart .supply{stroke:#1f6fd1;stroke-width:2;fill:none}
+.chart{width:100%;max-width:760px}.chart text{font-size:11px}.chart .axis{stroke:#333}.chart .grid{stroke:#e5e5e5}.chart .supply{stroke:#1f6fd1;stroke-width:2;fill:none}.chart .supply-source{stroke:#1f6fd1;stroke-width:2;stroke-dasharray:6 3;fill:none}
 .chart .demand{fill:#c2185b}.chart .hose{stroke:#c2185b;stroke-dasharray:4 3}.chart .leader{stroke:#999;stroke-width:.8}
 footer{font-size:.8rem;color:#666;margin-top:24px}
 @media (max-width:640px){.planbox{height:50vh}td.ref,th:last-child{display:none}}

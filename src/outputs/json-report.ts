@@ -170,6 +170,8 @@ export interface ReportDesignArea {
     controllingHead: string;
     /** In the report's units, as the calculation has them. */
     steps: CalculationStep[];
+    /** The supply path at the total demand, from the flow-test point to the source (empty without a path). */
+    supplyPath: { part: number; type: string; name: string; flow: number; loss: number; pressureFrom: number; pressureTo: number }[];
     heads: FlowingHeadResult[];
     riser: { modelled: string; length: number; nominalSize: string };
     handMethod: { sourcePressure: number; sourceFlow: number } | null;
@@ -420,6 +422,15 @@ function designAreasOf(r: ReportInput, c: Converter): ReportDesignArea[] {
           pressureFrom: round(c.pressure(x.pressureFrom)),
           pressureTo: round(c.pressure(x.pressureTo)),
           velocity: round(c.velocity(x.velocity)),
+        })),
+        supplyPath: h.supplyPath.map((x) => ({
+          part: x.part,
+          type: x.type,
+          name: x.name,
+          flow: round(c.flow(x.flow)),
+          loss: round(c.pressure(x.loss)),
+          pressureFrom: round(c.pressure(x.pressureFrom)),
+          pressureTo: round(c.pressure(x.pressureTo)),
         })),
         heads: h.heads.map((x) => ({
           handle: x.handle,

@@ -1,6 +1,8 @@
 // The water-supply graph of the report as inline SVG: pressure against flow on the customary Q^1.85
-// abscissa, where a flow-test supply is a straight line; each design area's demand with and without hose.
+// abscissa, where a flow-test supply is a straight line (and the supply at the source after its path a curve
+// beside it); each design area's demand with and without hose.
 
+import type { SupplyAtSource } from '../hydraulics/supply-path.js';
 import { availablePressure, flowAtZeroPressure, type FlowTest } from '../hydraulics/water-supply.js';
 import type { Converter, ReportUnits } from '../quantities/convert.js';
 import { escapeHtml as esc } from './html-escape.js';
@@ -20,7 +22,13 @@ function niceStep(raw: number): number {
   return (m <= 1 ? 1 : m <= 2 ? 2 : m <= 5 ? 5 : 10) * p;
 }
 
-export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[], c: Converter, u: ReportUnits): string {
+export function supplyGraph(
+  supply: FlowTest | undefined,
+  atSource: SupplyAtSource | null,
+  demands: DemandPoint[],
+  c: Converter,
+  u: ReportUnits,
+): string {
   const W = 720,
     H = 380,
     L = 60,
@@ -30,7 +38,7 @@ export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[]
   const pw = W - L - R,
     ph = H - T - B;
   const qMax = Math.max(supply ? supply.flow * 1.5 : 0, ...demands.map((d) => d.withHose * 1.25), 1);
-  const pMax = Math.max(supply?.static ?? 0, ...demands.map((d) => d.pressure), 1) * 1.1;
+  const pMax = Math.max(supply?.static ?? 0, atSource?.hasPath ? atSource.available(0) : 0, ...demands.map((d) => d.pressure), 1) * 1.1;
   const x = (q: number) => L + (Math.max(0, q) / qMax) ** 1.85 * pw;
   const y = (p: number) => T + ph - (Math.max(0, p) / pMax) * ph;
   const parts: string[] = [];
@@ -61,13 +69,26 @@ export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[]
     );
     parts.push(`<circle class="test" cx="${x(supply.flow).toFixed(1)}" cy="${y(supply.residual).toFixed(1)}" r="3.5" fill="#1f6fd1"/>`);
   }
+  const curveLabels: { text: string; at: { x: number; y: number } }[] = [];
+  if (supply && atSource?.hasPath) {
+    // The supply at the source, sampled evenly on the Q^1.85 axis (a pump or a device bends it).
+    const samples = Array.from({ length: 61 }, (_, i) => qMax * (i / 60) ** (1 / 1.85));
+    const pts = samples.map((q) => `${x(q).toFixed(1)},${y(atSource.available(q)).toFixed(1)}`).join(' ');
+    parts.push(`<polyline class="supply-source" points="${pts}"><title>supply at the source, after the supply path</title></polyline>`);
+    curveLabels.push({ text: 'flow test', at: { x: x(0), y: y(supply.static) } });
+    curveLabels.push({ text: 'at the source, after the path', at: { x: x(0), y: y(atSource.available(0)) } });
+  }
   // Labels beside their with-hose point, moved where they would overprint another label or a point.
   const points = demands.flatMap((d) => [
     { x: x(d.flow), y: y(d.pressure) },
     { x: x(d.withHose), y: y(d.pressure) },
   ]);
+  const labels = [
+    ...demands.map((d) => ({ text: d.label, at: { x: x(d.withHose), y: y(d.pressure) } })),
+    ...curveLabels.map((l) => ({ text: l.text, at: { x: l.at.x + 6, y: l.at.y } })),
+  ];
   const placed = placeLabels(
-    demands.map((d) => ({ at: { x: x(d.withHose), y: y(d.pressure) }, width: 6.2 * d.label.length, height: 12 })),
+    labels.map((l) => ({ at: l.at, width: 6.2 * l.text.length, height: 12 })),
     [
       ...points.map((q) => ({ minX: q.x - 4, minY: q.y - 4, maxX: q.x + 4, maxY: q.y + 4 })),
       // outside the plot: the axis labels' side, above and beyond the right edge
@@ -94,6 +115,10 @@ export function supplyGraph(supply: FlowTest | undefined, demands: DemandPoint[]
       );
     }
     parts.push(`<text class="demand-label" x="${b.minX.toFixed(1)}" y="${(b.maxY - 2).toFixed(1)}">${esc(d.label)}</text>`);
+  });
+  curveLabels.forEach((l, i) => {
+    const b = placed[demands.length + i]!;
+    parts.push(`<text class="curve-label" x="${b.minX.toFixed(1)}" y="${(b.maxY - 2).toFixed(1)}">${esc(l.text)}</text>`);
   });
   return `<svg class="chart" id="supply" viewBox="0 0 ${W} ${H}" role="img" aria-label="water supply graph" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg>`;
 }

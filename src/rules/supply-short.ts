@@ -1,7 +1,7 @@
-// Rule supply-short: the water supply (flow test) must cover each design area's demand: source pressure at the
+// Rule supply-short: the water supply (flow test, through its path) must cover each design area's demand: source pressure at the
 // design flow plus the hose allowance; a margin under 10 psi is a warning (common practice).
 
-import { flowAtZeroPressure } from '../hydraulics/water-supply.js';
+import { flowAtZeroSupply, supplyOf } from '../hydraulics/supply-path.js';
 import { finding, type Rule } from './types.js';
 
 /** Customary safety margin between supply and demand, psi (common practice: several psi, often 10). */
@@ -20,7 +20,7 @@ export const supplyShort: Rule<'supply-short'> = {
       const any = design.areas.find((a) => a.hydraulics);
       return any ? [finding(this.meta, { severity: 'info', params: { kind: 'no-supply' }, handles: [], at: any.at })] : [];
     }
-    const supply = settings.supply;
+    const supply = supplyOf(settings)!;
     return design.areas
       .filter((a) => a.hydraulics && a.hydraulics.margin !== null)
       .flatMap((a) => {
@@ -34,7 +34,7 @@ export const supplyShort: Rule<'supply-short'> = {
           pressure: h.sourcePressure,
           demand: h.totalDemand,
           available: h.supplyAvailable!,
-          dryAt: h.supplyAvailable === 0 ? flowAtZeroPressure(supply) : null,
+          dryAt: h.supplyAvailable === 0 ? flowAtZeroSupply(supply, h.totalDemand) : null,
           margin,
         };
         const handles = a.handle ? [a.handle] : [];
