@@ -24,12 +24,24 @@ function tidyNumbers(node: unknown): unknown {
   return typeof node === 'number' ? tidy(node) : node;
 }
 
+/** Pairs ([flow, pressure]) as draft-07 states a tuple exactly: its item count fixed, no further items. */
+function closeTuples(node: unknown): unknown {
+  if (Array.isArray(node)) return node.map(closeTuples);
+  if (!node || typeof node !== 'object') return node;
+  const out = Object.fromEntries(Object.entries(node).map(([k, v]) => [k, closeTuples(v)])) as Record<string, unknown>;
+  if (Array.isArray(out['items'])) {
+    const n = (out['items'] as unknown[]).length;
+    Object.assign(out, { minItems: n, maxItems: n, additionalItems: false });
+  }
+  return out;
+}
+
 /** The JSON Schema: the SI variant when `unitSystem` is "si", else the US one (each with its units' ranges). */
 export function configJsonSchema(): Record<string, unknown> {
   const variant = (system: 'us' | 'si'): JsonSchema => {
     const schema = toJsonSchema(configSchema(system), { typeMode: 'input', errorMode: 'ignore', ignoreActions: ['metadata'] });
     delete (schema as { $schema?: string }).$schema;
-    return tidyNumbers(schema) as JsonSchema;
+    return closeTuples(tidyNumbers(schema)) as JsonSchema;
   };
   return {
     $schema: 'http://json-schema.org/draft-07/schema#',
@@ -61,6 +73,10 @@ type Node = {
   entries?: Record<string, Node>;
   /** A record's value schema. */
   value?: Node;
+  /** An array's item schema. */
+  item?: Node;
+  /** A literal's value (a variant's tag). */
+  literal?: unknown;
   options?: unknown[];
   description?: string;
   metadata?: { quantity?: QuantityMeta };
@@ -101,6 +117,20 @@ function rows(node: Node, prefix: string, out: Row[]): Row[] {
       rows(value, `${path}.<pattern>`, out);
       continue;
     }
+    const item = base.type === 'array' && base.item ? (base.item.pipe ? base.item.pipe[0]! : base.item) : null;
+    if (item?.type === 'variant') {
+      // A list of tagged objects: each kind's keys under `[type=KIND]`.
+      out.push({ key: path, type: 'list of objects', fallback: '', example: '', unit: '', range: '', meaning });
+      for (const option of item.options as Node[]) {
+        const tag = option.entries!['type']!.literal;
+        rows(
+          { entries: Object.fromEntries(Object.entries(option.entries!).filter(([k]) => k !== 'type')) },
+          `${path}[type=${String(tag)}]`,
+          out,
+        );
+      }
+      continue;
+    }
     const unit = meta && meta.kind !== 'number' ? `${QUANTITIES[meta.kind].us} / ${QUANTITIES[meta.kind].si}` : '';
     const range = meta ? `${meta.above !== undefined ? `> ${tidy(meta.above)}` : `≥ ${tidy(meta.min!)}`}, ≤ ${tidy(meta.max)}` : '';
     // A quantity's description ends with its unit, which has a column of its own here.
@@ -121,7 +151,7 @@ function rows(node: Node, prefix: string, out: Row[]): Row[] {
 function typeOf(base: Node): string {
   if (base.type === 'picklist') return (base.options as unknown[]).map((o) => JSON.stringify(o)).join(' | ');
   if (base.type === 'union') return [...new Set((base.options as Node[]).map(typeOf))].join(' or ');
-  if (base.type === 'array') return 'list of text';
+  if (base.type === 'array') return base.item?.type === 'tuple' ? 'list of [flow, pressure]' : 'list of text';
   return base.type === 'string' ? 'text' : (base.type ?? '');
 }
 

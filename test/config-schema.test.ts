@@ -53,6 +53,62 @@ describe('published config schema', () => {
     expect(validate({ unitSystem: 'si', design: { density: 8.1 } })).toBe(true);
   });
 
+  it("the supply path: the contract's example is accepted by both, a wrong part refused by both", () => {
+    // CONTRACT.md, "Supply path": the three parts as it writes them.
+    const path = [
+      { type: 'pipe', length: 300, size: '6', cFactor: 140, schedule: '40', rise: 0 },
+      {
+        type: 'device',
+        name: 'backflow preventer',
+        loss: [
+          [0, 4],
+          [500, 7],
+          [1500, 12],
+        ],
+      },
+      {
+        type: 'pump',
+        name: 'fire pump',
+        curve: [
+          [0, 120],
+          [750, 110],
+          [1000, 100],
+          [1500, 65],
+        ],
+      },
+    ];
+    const good = { supply: { static: 80, residual: 60, flow: 1000, elevation: -4, path } };
+    expect(validate(good)).toBe(true);
+    expect(parseSettings(good).supply!.path![0]).toMatchObject({ type: 'pipe', size: '6', schedule: '40' });
+    for (const part of [
+      { type: 'valve', name: 'x', loss: [[0, 1]] },
+      { type: 'pipe', lenght: 300, size: '6' },
+      { type: 'pump', name: 'p', curve: [[0, 120, 3]] },
+      { type: 'device', name: 'd', loss: [] },
+    ]) {
+      const bad = { supply: { ...good.supply, path: [part] } };
+      expect({ part, ajv: validate(bad) }).toEqual({ part, ajv: false });
+      expect(() => parseSettings(bad)).toThrow(/supply\.path/);
+    }
+    // Flows must rise along a curve: the tool says so (JSON Schema cannot).
+    const unordered = {
+      supply: {
+        ...good.supply,
+        path: [
+          {
+            type: 'device',
+            name: 'd',
+            loss: [
+              [500, 7],
+              [0, 4],
+            ],
+          },
+        ],
+      },
+    };
+    expect(() => parseSettings(unordered)).toThrow(/must list flows rising/);
+  });
+
   it.skipIf(!existsSync(SHARED_CONFIGS))('accepts every config of the real-drawing corpus (../shared)', () => {
     for (const dir of readdirSync(SHARED_CONFIGS)) {
       for (const f of readdirSync(join(SHARED_CONFIGS, dir))) {

@@ -141,7 +141,7 @@ export function configSchema(system: UnitSystem) {
   const curve = (what: string) =>
     v.pipe(
       v.array(
-        v.tuple(
+        v.strictTuple(
           [
             quantity(system, { kind: 'flow', min: 0, max: 20_000, example: 500, rangeSource: NOT_SOURCED }, 'Flow'),
             quantity(system, { kind: 'pressure', min: 0, max: 400, example: 7, rangeSource: NOT_SOURCED }, 'Pressure'),

@@ -34,7 +34,7 @@ export function parseSettings(raw: unknown, where = 'config'): Settings {
   if (result.success) return result.output;
   // A misspelt key is said first: a key it leaves missing is its consequence.
   const unknown = result.issues.find((i) => i.type === 'strict_object' && i.expected === 'never');
-  return fail(`${where}: ${describeIssue(schema, unknown ?? result.issues[0])}`);
+  return fail(`${where}: ${describeIssue(schema, unknown ?? result.issues[0], raw)}`);
 }
 
 /** Parses config text (JSON); `where` names the file in messages. */
@@ -49,11 +49,11 @@ export function parseSettingsText(text: string, where: string): Settings {
 }
 
 /** One issue as one line: the key's dotted path and what is wrong with its value. */
-function describeIssue(schema: ConfigSchema, issue: v.BaseIssue<unknown>): string {
+function describeIssue(schema: ConfigSchema, issue: v.BaseIssue<unknown>, raw: unknown): string {
   const keys = (issue.path ?? []).map((p) => String(p.key));
   const path = keys.join('.');
   if (issue.type === 'strict_object' && issue.expected === 'never') {
-    const near = nearest(keys.at(-1)!, knownKeys(schema, keys.slice(0, -1)));
+    const near = nearest(keys.at(-1)!, knownKeys(schema, keys.slice(0, -1), raw));
     const parent = keys.slice(0, -1).join('.');
     return `unknown key "${path}"${near ? ` (did you mean "${parent ? `${parent}.` : ''}${near}"?)` : ''}`;
   }
@@ -68,13 +68,15 @@ const preview = (x: unknown) => {
   return s.length > 40 ? `${s.slice(0, 37)}...` : s;
 };
 
-/** A schema node as the walks below see it: an object's entries, a record's values, the wrapped schema. */
+/** A schema node as the walks below see it: an object's entries, a record's values, a list's item, the wrapped schema. */
 interface SchemaNode {
   type?: string;
   wrapped?: unknown;
   options?: unknown[];
   entries?: Record<string, unknown>;
   value?: unknown;
+  item?: unknown;
+  literal?: unknown;
 }
 
 /** The node itself, through optional and union wrappers (a union's object option). */
@@ -85,16 +87,24 @@ function unwrap(s: unknown): SchemaNode {
   return x;
 }
 
-/** The schema node of the value at `path`. */
-function nodeAt(schema: v.GenericSchema, path: string[]): SchemaNode {
+/** The schema node of the value at `path` in `raw`: into lists by index, and a variant by the value's own tag. */
+function nodeAt(schema: v.GenericSchema, path: string[], raw?: unknown): SchemaNode {
   let at = unwrap(schema);
-  for (const key of path) at = unwrap(at.type === 'record' ? at.value : at.entries?.[key]);
+  let value = raw as Record<string, unknown> | undefined;
+  for (const key of path) {
+    at = unwrap(at.type === 'record' ? at.value : at.type === 'array' ? at.item : at.entries?.[key]);
+    value = value && typeof value === 'object' ? (value[key] as Record<string, unknown> | undefined) : undefined;
+    if (at.type === 'variant') {
+      const options = (at.options ?? []).map(unwrap);
+      at = options.find((o) => unwrap(o.entries?.['type']).literal === value?.['type']) ?? options[0] ?? at;
+    }
+  }
   return at;
 }
 
-/** The keys an object of the schema takes at `path`. */
-function knownKeys(schema: v.GenericSchema, path: string[]): string[] {
-  return Object.keys(nodeAt(schema, path).entries ?? {});
+/** The keys an object of the schema takes at `path` (in `raw`, whose values choose a variant's keys). */
+function knownKeys(schema: v.GenericSchema, path: string[], raw?: unknown): string[] {
+  return Object.keys(nodeAt(schema, path, raw).entries ?? {});
 }
 
 /** The path of the first list given where the schema wants an object (JSON arrays are objects to a validator), or null. */

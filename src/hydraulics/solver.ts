@@ -144,10 +144,9 @@ export class NetworkSolver {
 
   /** The live part with the given emitters open. */
   private livePart(openList: Int32Array): LivePart {
-    const { skeleton: sk, chainA, chainB, emitterAnchor, emitterChain, emitterIndex } = this;
-    const nA = sk.anchorNode.length;
+    const { skeleton: sk, emitterAnchor, emitterChain, emitterIndex } = this;
     const nC = sk.chains.length;
-    const { pinned, alive, aLink, bLink, degree, headCount } = this.work;
+    const { pinned, alive, aLink, bLink, headCount } = this.work;
     pinned.fill(0);
     pinned[sk.source] = 1;
     headCount.fill(0);
@@ -164,8 +163,53 @@ export class NetworkSolver {
       }
     }
     chainHeads.sort((x, y) => emitterChain[x]! - emitterChain[y]! || emitterIndex[x]! - emitterIndex[y]!);
-    // Peel dead ends: an anchor with one live chain end or none, no open head and no source is idle; a chain
-    // without open heads that loses an end carries nothing; one with open heads stops at its last open head.
+    const { liveAnchor, peeled } = this.peelDeadEnds(pinned, headCount);
+    const chain: number[] = [];
+    const headStart: number[] = [0];
+    const liveIndex = new Int32Array(nC).fill(-1);
+    let next = 0;
+    for (let i = 0; i < nC; i++) {
+      const heads = headCount[i]!;
+      if (!alive[i] || (!heads && !(aLink[i] && bLink[i]))) continue;
+      if (heads && !aLink[i] && !bLink[i]) throw new Error('open heads are not connected to the source');
+      next += heads;
+      liveIndex[i] = chain.length;
+      chain.push(i);
+      headStart.push(next);
+    }
+    const liveChain = Int32Array.from(chain);
+    const linked = (flags: Uint8Array) => {
+      const out = new Uint8Array(chain.length);
+      chain.forEach((c, i) => {
+        out[i] = flags[c]!;
+      });
+      return out;
+    };
+    const headEmitter = Int32Array.from(chainHeads);
+    return {
+      chain: liveChain,
+      aLinked: linked(aLink),
+      bLinked: linked(bLink),
+      headStart: Int32Array.from(headStart),
+      headIndex: headEmitter.map((k) => emitterIndex[k]!),
+      headEmitter,
+      liveAnchor,
+      anchorEmitters: Int32Array.from(anchorEmitters),
+      peeled,
+      liveIndex,
+    };
+  }
+
+  /**
+   * Peels dead ends: an anchor with one live chain end or none, no open head and no source is idle; a chain
+   * without open heads that loses an end carries nothing; one with open heads stops at its last open head.
+   * Leaves `alive`, `aLink` and `bLink` of the workspace set per chain.
+   */
+  private peelDeadEnds(pinned: Uint8Array, headCount: Int32Array): { liveAnchor: Uint8Array; peeled: LivePart['peeled'] } {
+    const { skeleton: sk, chainA, chainB } = this;
+    const nA = sk.anchorNode.length;
+    const nC = sk.chains.length;
+    const { alive, aLink, bLink, degree } = this.work;
     degree.fill(0);
     for (let i = 0; i < nC; i++) {
       const on = chainA[i] !== chainB[i] || headCount[i]! > 0 ? 1 : 0;
@@ -203,40 +247,7 @@ export class NetworkSolver {
         if (--degree[w]! <= 1 && !pinned[w]) stack.push(w);
       }
     }
-    const chain: number[] = [];
-    const headStart: number[] = [0];
-    const liveIndex = new Int32Array(nC).fill(-1);
-    let next = 0;
-    for (let i = 0; i < nC; i++) {
-      const heads = headCount[i]!;
-      if (!alive[i] || (!heads && !(aLink[i] && bLink[i]))) continue;
-      if (heads && !aLink[i] && !bLink[i]) throw new Error('open heads are not connected to the source');
-      next += heads;
-      liveIndex[i] = chain.length;
-      chain.push(i);
-      headStart.push(next);
-    }
-    const liveChain = Int32Array.from(chain);
-    const linked = (flags: Uint8Array) => {
-      const out = new Uint8Array(chain.length);
-      chain.forEach((c, i) => {
-        out[i] = flags[c]!;
-      });
-      return out;
-    };
-    const headEmitter = Int32Array.from(chainHeads);
-    return {
-      chain: liveChain,
-      aLinked: linked(aLink),
-      bLinked: linked(bLink),
-      headStart: Int32Array.from(headStart),
-      headIndex: headEmitter.map((k) => emitterIndex[k]!),
-      headEmitter,
-      liveAnchor,
-      anchorEmitters: Int32Array.from(anchorEmitters),
-      peeled,
-      liveIndex,
-    };
+    return { liveAnchor, peeled };
   }
 
   /**
