@@ -27,6 +27,7 @@ const LEVEL: Record<string, number> = {
   rules: 7,
   outputs: 8,
   check: 9,
+  compare: 9,
   demo: 9,
   web: 10,
   io: 10,

@@ -84,6 +84,17 @@ describeWith('../shared/real-dwg (the DWG samples)', existsSync(SAMPLE), 'DWG li
     await expect(dwgAsDxf(bytes, { seconds: 0.05, memoryMB: 2048 })).rejects.toThrow(/longer than 0.05 s \(inputLimits.dwgSeconds\)/);
   }, 120_000);
 
+  it('compare takes DWG: a drawing against itself has nothing resolved or added', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'hc-dwg-compare-'));
+    const drawing = '../shared/real-dwg/2013_gh44-error.dwg';
+    const args = ['bin/headcheck.js', 'compare', drawing, drawing, '--no-config', '--json', join(dir, 'c.json')];
+    const r = spawnSync(process.execPath, args, { encoding: 'utf8', timeout: 180_000 });
+    expect(r.status, r.stderr).toBe(1);
+    const c = JSON.parse(readFileSync(join(dir, 'c.json'), 'utf8'));
+    expect([c.findings.resolved.length, c.findings.added.length]).toEqual([0, 0]);
+    expect(c.findings.unchanged.length).toBeGreaterThan(0);
+  }, 240_000);
+
   it('batch reads DWG beside DXF and names the format in each report', () => {
     const dir = mkdtempSync(join(tmpdir(), 'hc-dwg-batch-'));
     const set = join(dir, 'set');

@@ -3,7 +3,7 @@
 
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
 import { Piscina } from 'piscina';
 import { watchOutputFolder, writeAllAtomically } from '../io/files.js';
@@ -33,6 +33,8 @@ export interface BatchOptions {
   timeLimit: number;
   memoryLimit: number;
   force: boolean;
+  /** A folder of the earlier revisions: each drawing is compared with the one at its relative path there. */
+  compareWith?: string;
   /** Where the compiled worker is. */
   workerFile: string;
   progress: (line: string, final: boolean) => void;
@@ -67,7 +69,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   makeFolder(resultsDir);
   watchOutputFolder(o.out);
   const rows: BatchRow[] = new Array(items.length);
-  const todo: { i: number; item: BatchItem; config: string | undefined; key: string }[] = [];
+  const todo: { i: number; item: BatchItem; config: string | undefined; key: string; earlier: BatchTask['earlier'] }[] = [];
   let reused = 0;
   items.forEach((item, i) => {
     const config = findConfig(item.file, { root: item.root, ...(o.config ? { fallback: o.config } : {}) })?.path;
@@ -77,11 +79,13 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
       rows[i] = errorRow(item, config, refused);
       return;
     }
+    const earlier = earlierOf(item);
     const key = sha(
       JSON.stringify({
         tool: TOOL.version,
         file: sha(readFileSync(item.file)),
         config: config ? sha(readFileSync(config)) : null,
+        earlier: earlier && { file: sha(readFileSync(earlier.file)), config: earlier.config ? sha(readFileSync(earlier.config)) : null },
         units: o.units,
         drawingUnits: o.drawingUnits ?? null,
         requireHydraulics: o.requireHydraulics === true,
@@ -101,7 +105,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
         // a damaged cache entry is simply redone
       }
     }
-    todo.push({ i, item, config, key });
+    todo.push({ i, item, config, key, earlier });
   });
 
   if (o.workers > 1) setFlagsFromString(`--interrupt-budget=${TIER_UP_BUDGET}`);
@@ -128,8 +132,8 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   const queue = [...todo].sort((a, b) => statSync(b.item.file).size - statSync(a.item.file).size);
   const checkNext = async (): Promise<void> => {
     for (let job = queue.shift(); job; job = queue.shift()) {
-      const { i, item, config, key } = job;
-      const row = await checkInWorker(pool, o, item, config);
+      const { i, item, config, key, earlier } = job;
+      const row = await checkInWorker(pool, o, item, config, earlier);
       rows[i] = row;
       done++;
       if (row.status === 'error') failed++;
@@ -156,6 +160,15 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   const exitCode = all.some((r) => r.status === 'error') ? 2 : all.some((r) => r.status === 'fail') ? 1 : 0;
   return { rows: all, reused, exitCode };
 
+  /** The earlier revision at the drawing's relative path in `compareWith`, with the config it would be checked with. */
+  function earlierOf(item: BatchItem): BatchTask['earlier'] {
+    if (!o.compareWith) return null;
+    const file = join(o.compareWith, ...item.rel.split('/'));
+    if (!existsSync(file)) return null;
+    const root = resolve(o.compareWith);
+    return { file, config: findConfig(file, { root, ...(o.config ? { fallback: o.config } : {}) })?.path ?? null };
+  }
+
   /** Why a drawing is not handed to a worker at all: its config cannot be used, or the file is over its size limit. */
   function refusal(item: BatchItem, config: string | undefined): string | null {
     try {
@@ -170,7 +183,13 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
 }
 
 /** One drawing in a worker of the pool, under the time limit from its start; a worker's failure becomes its row. */
-async function checkInWorker(pool: Piscina, o: BatchOptions, item: BatchItem, config: string | undefined): Promise<BatchRow> {
+async function checkInWorker(
+  pool: Piscina,
+  o: BatchOptions,
+  item: BatchItem,
+  config: string | undefined,
+  earlier: BatchTask['earlier'],
+): Promise<BatchRow> {
   const task: BatchTask = {
     file: item.file,
     name: item.name,
@@ -180,6 +199,7 @@ async function checkInWorker(pool: Piscina, o: BatchOptions, item: BatchItem, co
     outDir: o.out,
     outputs: o.outputs,
     units: o.units,
+    earlier,
   };
   const abort = new AbortController();
   const timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);

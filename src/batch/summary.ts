@@ -9,9 +9,15 @@ import type { BatchRow } from './worker.js';
 
 const rankOf = { error: 0, fail: 1, pass: 2, skipped: 3 } as const;
 
-/** Worst first: unreadable, then failing (most errors first), then passing; ties by file. */
+/** Worst first: unreadable, then failing (most errors first, then most new findings), then passing; ties by file. */
 const worstFirst = (rows: BatchRow[]): BatchRow[] =>
-  [...rows].sort((a, b) => rankOf[a.status] - rankOf[b.status] || (b.errors ?? 0) - (a.errors ?? 0) || a.file.localeCompare(b.file));
+  [...rows].sort(
+    (a, b) =>
+      rankOf[a.status] - rankOf[b.status] ||
+      (b.errors ?? 0) - (a.errors ?? 0) ||
+      (b.added ?? 0) - (a.added ?? 0) ||
+      a.file.localeCompare(b.file),
+  );
 
 const csvCell = (v: unknown) => {
   const s = v === null || v === undefined ? '' : String(v);
@@ -28,17 +34,33 @@ export function summaryCsv(rows: BatchRow[]): string {
     'demand_pressure',
     'demand_flow_with_hose',
     'supply_margin',
+    'resolved',
+    'added',
     'config',
     'message',
     'ms',
   ];
   const lines = rows.map((r) =>
-    [r.file, r.status, r.heads, r.errors, r.warnings, r.demandPressure, r.demandFlow, r.margin, r.config, r.message, r.ms]
+    [
+      r.file,
+      r.status,
+      r.heads,
+      r.errors,
+      r.warnings,
+      r.demandPressure,
+      r.demandFlow,
+      r.margin,
+      r.resolved,
+      r.added,
+      r.config,
+      r.message,
+      r.ms,
+    ]
       .map(csvCell)
       .join(','),
   );
   // The caution closes the table as a row of its own: file "caution", the text where a row's message goes.
-  const caution = ['caution', '', '', '', '', '', '', '', '', CAUTION, ''].map(csvCell).join(',');
+  const caution = ['caution', '', '', '', '', '', '', '', '', '', '', CAUTION, ''].map(csvCell).join(',');
   return `${head.join(',')}\n${[...lines, caution].join('\n')}\n`;
 }
 
@@ -48,7 +70,7 @@ export function summaryHtml(rows: BatchRow[], units: ReportUnits): string {
     const name = link ? `<a href="${esc(encodeURI(link))}">${esc(r.file)}</a>` : esc(r.file);
     return (
       `<tr class="${r.status}"><td>${r.status.toUpperCase()}</td><td>${name}</td><td>${r.heads ?? ''}</td><td>${r.errors ?? ''}</td><td>${r.warnings ?? ''}</td>` +
-      `<td>${r.demandPressure ?? ''}</td><td>${r.demandFlow ?? ''}</td><td>${r.margin ?? ''}</td><td>${esc(r.message ?? '')}</td></tr>`
+      `<td>${r.demandPressure ?? ''}</td><td>${r.demandFlow ?? ''}</td><td>${r.margin ?? ''}</td><td>${r.resolved ?? ''}</td><td>${r.added ?? ''}</td><td>${esc(r.message ?? '')}</td></tr>`
     );
   });
   const count = (s: BatchRow['status']) => rows.filter((r) => r.status === s).length;
@@ -61,7 +83,7 @@ tr.fail td:first-child{color:#b3261e;font-weight:700}tr.pass td:first-child{colo
 </style></head><body><h1>headcheck batch: ${rows.length} drawings</h1>
 <p>${count('error')} could not be checked, ${count('fail')} fail, ${count('pass')} pass${count('skipped') ? `, ${count('skipped')} skipped` : ''}. Pressures in ${esc(units.pressure)}, flows in ${esc(units.flow)}.</p>
 <p class="caution">${esc(CAUTION)}</p>
-<table><thead><tr><th>verdict</th><th>drawing</th><th>heads</th><th>errors</th><th>warnings</th><th>demand pressure</th><th>demand flow (with hose)</th><th>supply margin</th><th>problem</th></tr></thead>
+<table><thead><tr><th>verdict</th><th>drawing</th><th>heads</th><th>errors</th><th>warnings</th><th>demand pressure</th><th>demand flow (with hose)</th><th>supply margin</th><th>resolved</th><th>new</th><th>problem</th></tr></thead>
 <tbody>${body.join('\n')}</tbody></table><p>${esc(TOOL.name)} ${esc(TOOL.version)}</p></body></html>
 `;
 }

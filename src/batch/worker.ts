@@ -1,9 +1,10 @@
-// A batch worker (run by the pool in a worker thread): checks one drawing, writes its outputs atomically
-// and returns its summary row. Unusable input becomes a row with status "error", never a thrown error.
+// A batch worker (run by the pool in a worker thread): checks one drawing (and compares it with its earlier
+// revision when given), writes its outputs atomically and returns its summary row. Unusable input becomes a row with status "error", never a thrown error.
 
 import { join } from 'node:path';
 import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
 import { runCheck } from '../check/run-check.js';
+import { compareRevisions } from '../compare/compare.js';
 import type { LengthUnit } from '../config/settings.js';
 import { loadSettings } from '../io/config-file.js';
 import type { UnitSystem } from '../quantities/convert.js';
@@ -22,6 +23,8 @@ export interface BatchTask {
   outDir: string;
   outputs: Record<FormatName, boolean>;
   units: UnitSystem;
+  /** The earlier revision of the drawing (`--compare-with`: the same relative path there) and its config. */
+  earlier: { file: string; config: string | null } | null;
 }
 
 export interface BatchRow {
@@ -37,6 +40,9 @@ export interface BatchRow {
   demandPressure: number | null;
   demandFlow: number | null;
   margin: number | null;
+  /** Against the earlier revision: findings resolved and added (null without one). */
+  resolved: number | null;
+  added: number | null;
   message: string | null;
   ms: number;
   outputs: string[];
@@ -54,6 +60,8 @@ export const emptyRow = (file: string, name: string, config: string | null): Bat
   demandPressure: null,
   demandFlow: null,
   margin: null,
+  resolved: null,
+  added: null,
   message: null,
   ms: 0,
   outputs: [],
@@ -63,29 +71,7 @@ export default async function checkOne(task: BatchTask): Promise<BatchRow> {
   const t0 = performance.now();
   const row = emptyRow(task.file, task.name, task.config);
   try {
-    const settings = loadSettings(task.config);
-    if (task.drawingUnits) settings.units = task.drawingUnits;
-    const raw = readInputFile(task.file, settings.inputLimits.fileMB);
-    // A DWG is converted here: this worker already runs under the batch's time and memory limits.
-    const dwgVersion = dwgVersionTag(raw);
-    const bytes = dwgVersion
-      ? await (await import('../io/dwg.js')).dwgAsDxfHere(raw, {
-          seconds: settings.inputLimits.dwgSeconds,
-          memoryMB: settings.inputLimits.dwgMemoryMB,
-        })
-      : raw;
-    const onStage = collectBetweenStages(bytes.length);
-    const input = {
-      bytes,
-      fileName: task.file,
-      sha256: sha256Hex(raw),
-      dwgVersion,
-      settings,
-      reportUnits: task.units,
-      requireHydraulics: task.requireHydraulics,
-      ...(onStage ? { onStage } : {}),
-    };
-    const result = runCheck(input);
+    const result = await checkFile(task.file, task.config, task);
     const files = FORMAT_NAMES.filter((f) => task.outputs[f]).map((f) => ({
       path: join(task.outDir, `${task.name}${FORMATS[f].extension}`),
       data: () => FORMATS[f].make(result),
@@ -103,12 +89,45 @@ export default async function checkOne(task: BatchTask): Promise<BatchRow> {
       margin: best?.margin ?? null,
       outputs: files.map((f) => f.path.slice(task.outDir.length + 1)),
     });
+    if (task.earlier) {
+      try {
+        const { findings } = compareRevisions(await checkFile(task.earlier.file, task.earlier.config, task), result);
+        Object.assign(row, { resolved: findings.resolved.length, added: findings.added.length });
+      } catch (err) {
+        row.message = `the earlier revision ${task.earlier.file}: ${messageOf(err).replace(`${task.earlier.file}: `, '')}`;
+      }
+    }
   } catch (err) {
-    row.message =
-      err instanceof InputError
-        ? err.message.replace(`${task.file}: `, '')
-        : `internal error: ${err instanceof Error ? err.message : String(err)}`;
+    row.message = messageOf(err).replace(`${task.file}: `, '');
   }
   row.ms = Math.round(performance.now() - t0);
   return row;
+}
+
+const messageOf = (err: unknown) =>
+  err instanceof InputError ? err.message : `internal error: ${err instanceof Error ? err.message : String(err)}`;
+
+/** One drawing read (a DWG converted here: this worker already runs under the batch's limits) and checked. */
+async function checkFile(file: string, config: string | null, task: BatchTask) {
+  const settings = loadSettings(config);
+  if (task.drawingUnits) settings.units = task.drawingUnits;
+  const raw = readInputFile(file, settings.inputLimits.fileMB);
+  const dwgVersion = dwgVersionTag(raw);
+  const bytes = dwgVersion
+    ? await (await import('../io/dwg.js')).dwgAsDxfHere(raw, {
+        seconds: settings.inputLimits.dwgSeconds,
+        memoryMB: settings.inputLimits.dwgMemoryMB,
+      })
+    : raw;
+  const onStage = collectBetweenStages(bytes.length);
+  return runCheck({
+    bytes,
+    fileName: file,
+    sha256: sha256Hex(raw),
+    dwgVersion,
+    settings,
+    reportUnits: task.units,
+    requireHydraulics: task.requireHydraulics,
+    ...(onStage ? { onStage } : {}),
+  });
 }

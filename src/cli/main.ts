@@ -1,13 +1,14 @@
 // The `headcheck` command line: parses options, reads files, runs the pure pipeline, writes outputs.
 // Exit codes per the contract: 0 checked and no error, 1 error findings, 2 unusable input or option.
 
-import { mkdirSync } from 'node:fs';
+import { existsSync, mkdirSync, statSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Option } from 'commander';
 import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
-import { runCheck } from '../check/run-check.js';
+import { type CheckResult, runCheck } from '../check/run-check.js';
+import { COMPARE_FORMAT_NAMES, COMPARE_FORMATS, type CompareFormatName, revisionsOf } from '../compare/outputs.js';
 import { LENGTH_UNITS, parseSettings, type LengthUnit, type Settings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
@@ -29,6 +30,7 @@ interface BatchCliOptions extends Partial<Record<FormatName, boolean>> {
   timeLimit: string;
   memoryLimit: string;
   force?: boolean;
+  compareWith?: string;
 }
 
 interface DrawingOptions {
@@ -41,6 +43,7 @@ interface DrawingOptions {
 }
 
 type CheckOptions = DrawingOptions & Partial<Record<FormatName, string>> & { units: UnitSystem; quiet?: boolean };
+type CompareOptions = DrawingOptions & Partial<Record<CompareFormatName, string>> & { units: UnitSystem; quiet?: boolean };
 
 /** A config the command found by itself (not given): said on stderr when the command ends. */
 const lookup: { found: FoundConfig | null } = { found: null };
@@ -63,6 +66,16 @@ function settingsFor(drawing: string, opts: DrawingOptions): Settings {
 async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: string) => void; err: (s: string) => void }): Promise<number> {
   const wanted = FORMAT_NAMES.filter((f) => opts[f]);
   for (const f of wanted) assertNotInput(opts[f]!, file);
+  const result = await checkDrawing(file, opts);
+  // Each output is made when its turn to be written comes, and is garbage once written.
+  await writeAllAtomically(wanted.map((f) => ({ path: opts[f]!, data: () => withFile(file, () => FORMATS[f].make(result)) })));
+  if (!opts.quiet) for (const line of findingLines(file, result.report)) io.out(line);
+  io.out(summaryLine(file, result.report));
+  return result.report.summary.pass ? 0 : 1;
+}
+
+/** One drawing checked with the settings `check` would use for it (its config found or given). */
+async function checkDrawing(file: string, opts: DrawingOptions & { units: UnitSystem }): Promise<CheckResult> {
   const settings = settingsFor(file, opts);
   const { bytes, sha256, dwgVersion } = await drawingBytes(file, settings);
   const onStage = collectBetweenStages(bytes.length);
@@ -76,12 +89,32 @@ async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: str
     requireHydraulics: opts.requireHydraulics === true,
     ...(onStage ? { onStage } : {}),
   };
-  const result = withFile(file, () => runCheck(input));
-  // Each output is made when its turn to be written comes, and is garbage once written.
-  await writeAllAtomically(wanted.map((f) => ({ path: opts[f]!, data: () => withFile(file, () => FORMATS[f].make(result)) })));
-  if (!opts.quiet) for (const line of findingLines(file, result.report)) io.out(line);
-  io.out(summaryLine(file, result.report));
-  return result.report.summary.pass ? 0 : 1;
+  return withFile(file, () => runCheck(input));
+}
+
+/** Checks two revisions of a drawing, writes the comparison's outputs; exit 1 when the later one has an error. */
+async function compareCommand(
+  earlier: string,
+  later: string,
+  opts: CompareOptions,
+  io: { out: (s: string) => void; err: (s: string) => void },
+): Promise<number> {
+  const wanted = COMPARE_FORMAT_NAMES.filter((f) => opts[f]);
+  for (const f of wanted) for (const input of [earlier, later]) assertNotInput(opts[f]!, input);
+  const before = await checkDrawing(earlier, opts);
+  const after = await checkDrawing(later, opts);
+  const revisions = revisionsOf(before, after);
+  await writeAllAtomically(wanted.map((f) => ({ path: opts[f]!, data: () => COMPARE_FORMATS[f].make(revisions) })));
+  const { findings, heads } = revisions.comparison;
+  if (!opts.quiet) {
+    const added = findings.added.map(({ index }) => after.report.findings[index]!);
+    for (const line of findingLines(later, { ...after.report, findings: added })) io.out(`new: ${line}`);
+  }
+  io.out(
+    `${earlier} → ${later}: ${findings.resolved.length} resolved, ${findings.added.length} new, ${findings.unchanged.length} unchanged; ` +
+      `heads ${heads.added.length} added, ${heads.removed.length} removed, ${heads.moved.length} moved; ${summaryLine(later, after.report)}`,
+  );
+  return after.report.summary.pass ? 0 : 1;
 }
 
 /**
@@ -100,6 +133,12 @@ async function drawingBytes(file: string, settings: Settings): Promise<{ bytes: 
     if (err instanceof InputError) throw new InputError(`${file}: ${err.message}`);
     throw err;
   }
+}
+
+/** The folder of earlier revisions, or a one-line refusal. */
+function compareFolder(dir: string): string {
+  if (!existsSync(dir) || !statSync(dir).isDirectory()) throw new InputError(`--compare-with ${dir}: no such folder`);
+  return dir;
 }
 
 /** Prefixes an InputError from the pipeline with the drawing's name. */
@@ -145,6 +184,15 @@ export async function main(
     code = await checkCommand(drawing, opts, io);
   });
 
+  const compare = configOptions(
+    program.command('compare <before> <after>').description('check two revisions of a drawing and say what was resolved, what is new'),
+  ).addOption(requireHydraulicsOption());
+  for (const f of COMPARE_FORMAT_NAMES) compare.option(`--${f} <file>`, `write ${COMPARE_FORMATS[f].description}`);
+  compare.option('--quiet', 'print only the summary line, not the new findings');
+  compare.addOption(unitsOption()).action(async (before: string, after: string, opts: CompareOptions) => {
+    code = await compareCommand(before, after, opts, io);
+  });
+
   const batch = program
     .command('batch <inputs...>')
     .description('audit many drawings (folders are searched for .dxf and .dwg files); one bad file never stops the rest')
@@ -156,7 +204,8 @@ export async function main(
     .option('--workers <n>', 'worker threads', String(availableParallelism()))
     .option('--time-limit <s>', 'seconds per drawing', '300')
     .option('--memory-limit <mb>', 'heap per worker, MB', '4096')
-    .option('--force', 'check every drawing again, even unchanged ones');
+    .option('--force', 'check every drawing again, even unchanged ones')
+    .option('--compare-with <dir>', 'a folder of the earlier revisions: each drawing is compared with the one at its relative path');
   for (const f of FORMAT_NAMES) {
     if (FORMATS[f].inBatch) batch.option(`--no-${f}`, `skip ${FORMATS[f].description} of each drawing`);
     else batch.option(`--${f}`, `write ${FORMATS[f].description} of each drawing too`);
@@ -188,6 +237,7 @@ export async function main(
       timeLimit: positive(opts.timeLimit, '--time-limit'),
       memoryLimit: positive(opts.memoryLimit, '--memory-limit'),
       force: opts.force === true,
+      ...(opts.compareWith ? { compareWith: compareFolder(opts.compareWith) } : {}),
       workerFile: fileURLToPath(new URL('../batch/worker.js', import.meta.url)),
       progress: (line, final) => (tty ? process.stderr.write(`\r${line.padEnd(79)}${final ? '\n' : ''}`) : io.err(line)),
     });

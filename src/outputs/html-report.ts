@@ -55,7 +55,11 @@ export function htmlReport(result: Reviewed): string {
 `;
 }
 
-function planSvg(result: Reviewed): string {
+/** Extra marks drawn over the plan, given its coordinate mapping and a mark size (a comparison's markers). */
+export type PlanOverlay = (X: (p: Point) => string, Y: (p: Point) => string, unit: number) => string[];
+
+/** The plan as inline SVG: rooms, walls, zones, areas, pipes by role, heads, finding markers, and `overlay`. */
+export function planSvg(result: Reviewed, overlay?: PlanOverlay): string {
   const { plan, network, design, findings } = result;
   const said = result.report.findings;
   const pts: Point[] = [
@@ -117,6 +121,7 @@ function planSvg(result: Reviewed): string {
         `<circle class="marker ${f.severity}" data-finding="${i}" cx="${X(f.at)}" cy="${Y(f.at)}" r="${(unit * 3).toFixed(3)}"><title>${esc(f.rule)}: ${esc(said[i]!.message)}</title></circle>`,
     ),
   );
+  if (overlay) pushAll(parts, overlay(X, Y, unit));
   return `<div class="planbox"><svg id="plan" role="img" aria-label="plan" viewBox="0 0 ${w.toFixed(3)} ${h.toFixed(3)}" data-w="${w.toFixed(3)}" data-h="${h.toFixed(3)}" xmlns="http://www.w3.org/2000/svg">${parts.join('')}</svg></div>`;
 }
 
@@ -251,7 +256,7 @@ function supplyPathHtml(result: Reviewed, u: (typeof REPORT_UNITS)['us']): strin
   );
 }
 
-const STYLE = `
+export const STYLE = `
 :root{font-family:system-ui,-apple-system,Segoe UI,Roboto,sans-serif;color:#1b1b1b;line-height:1.4}
 body{margin:0 auto;max-width:1200px;padding:0 12px 24px}
 header{border-left:8px solid #2e7d32;padding:4px 12px;margin:12px 0}header.fail{border-color:#b3261e}
