@@ -52,13 +52,14 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
     const u = line.direction;
     const v = { x: -u.y, y: u.x };
     const along = line.headIds.map((id) => ({ id, t: dot(pos.get(id)!, u) })).sort((a, b) => a.t - b.t);
+    const near = linesNear(line, along, summaries, pos, v);
     along.forEach(({ id, t }, i) => {
       const p = pos.get(id)!;
       const before = i > 0 ? t - along[i - 1]!.t : null;
       const after = i + 1 < along.length ? along[i + 1]!.t - t : null;
       const wallBack = before === null ? walls.along(p, { x: -u.x, y: -u.y }, REACH_FT) : null;
       const wallFwd = after === null ? walls.along(p, u, REACH_FT) : null;
-      const [left, right] = adjacentLines(p, line, summaries, v);
+      const [left, right] = adjacentLines(p, line, near, v);
       const wallLeft = left === null ? walls.along(p, v, REACH_FT) : null;
       const wallRight = right === null ? walls.along(p, { x: -v.x, y: -v.y }, REACH_FT) : null;
       const s = largest(before, after, twice(wallBack), twice(wallFwd));
@@ -110,6 +111,40 @@ function summarise(line: BranchLine, pos: Map<string, Point>): LineSummary {
     ends: [first, last],
     spacing: (tMax - tMin) / Math.max(1, n - 1),
   };
+}
+
+/**
+ * The lines that `adjacentLines` could accept for some head of `line`: its tests, taken over the range of the
+ * line's heads (along u and across it), are necessary for each head. One pass over the lines per line, so the
+ * heads × lines loop becomes heads × neighbours.
+ */
+function linesNear(
+  line: BranchLine,
+  along: { id: string; t: number }[],
+  others: LineSummary[],
+  pos: Map<string, Point>,
+  v: Point,
+): LineSummary[] {
+  const u = line.direction;
+  const tLo = along[0]!.t;
+  const tHi = along.at(-1)!.t;
+  let vLo = Infinity;
+  let vHi = -Infinity;
+  for (const { id } of along) {
+    const w = dot(pos.get(id)!, v);
+    vLo = Math.min(vLo, w);
+    vHi = Math.max(vHi, w);
+  }
+  return others.filter((other) => {
+    if (other.line === line || Math.abs(cross(other.line.direction, u)) > PARALLEL_SIN) return false;
+    const t0 = dot(other.ends[0], u);
+    const t1 = dot(other.ends[1], u);
+    const slack = Math.max(other.spacing, 1) * 0.75;
+    if (tHi < Math.min(t0, t1) - slack || tLo > Math.max(t0, t1) + slack) return false;
+    // A head's offset to the other line's centroid is dot(centroid, v) − dot(p, v), over the heads' range.
+    const c = dot(other.centroid, v);
+    return c - vHi <= REACH_FT && c - vLo >= -REACH_FT;
+  });
 }
 
 /** Perpendicular distance to the nearest parallel branch line on each side that spans the head's position. */

@@ -267,15 +267,21 @@ function classify(
   const runNodes = new Map<number, Set<string>>();
   for (const p of pipes)
     if (p.role !== 'drop') for (const n of [p.from, p.to]) runNodes.set(p.run, (runNodes.get(p.run) ?? new Set()).add(n));
+  // Per run, once (a cross main of 2,500 pipes would otherwise walk its 2,500 nodes for each of them).
+  const touchingCount = new Map<number, number>();
   const branchesTouching = (run: number) => {
-    const touching = new Set<number>();
-    for (const n of runNodes.get(run) ?? []) for (const r of runsAtNode.get(n) ?? []) if (r !== run && branchRuns.has(r)) touching.add(r);
-    return touching;
+    let count = touchingCount.get(run);
+    if (count === undefined) {
+      const touching = new Set<number>();
+      for (const n of runNodes.get(run) ?? []) for (const r of runsAtNode.get(n) ?? []) if (r !== run && branchRuns.has(r)) touching.add(r);
+      touchingCount.set(run, (count = touching.size));
+    }
+    return count;
   };
   for (const p of pipes) {
     if (p.role === 'drop') continue;
     if (branchRuns.has(p.run)) p.role = 'branch';
-    else if (branchesTouching(p.run).size >= 2) p.role = 'cross-main';
+    else if (branchesTouching(p.run) >= 2) p.role = 'cross-main';
     else if (reached.has(p.from) && ((carried.get(p.id) ?? 0) > 0 || !parentPipeOf(parentPipe, p))) p.role = 'feed-main';
   }
 
@@ -335,8 +341,16 @@ function buildBranchLines(
   const lines: BranchLine[] = [];
   const firstRank = (run: number) => minOf([...runHeads.get(run)!].map((h) => rank.get(h)!));
   const runs = [...runHeads.keys()].sort((a, b) => firstRank(a) - firstRank(b));
+  // Each run's branch pipes in drawing order, gathered in one pass.
+  const branchPipesOf = new Map<number, NetPipe[]>();
+  for (const p of pipes) {
+    if (p.role !== 'branch') continue;
+    const list = branchPipesOf.get(p.run);
+    if (list) list.push(p);
+    else branchPipesOf.set(p.run, [p]);
+  }
   for (const run of runs) {
-    const own = pipes.filter((p) => p.run === run && p.role === 'branch');
+    const own = branchPipesOf.get(run) ?? [];
     if (own.length === 0) continue;
     const nodeIds = new Set(own.flatMap((p) => [p.from, p.to]));
     const feedNodeIds = [...nodeIds].filter((n) => incident.get(n)!.some((p) => p.role === 'cross-main' || p.role === 'feed-main'));
