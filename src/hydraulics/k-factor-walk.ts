@@ -77,6 +77,21 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
     return zs.length && maxOf(zs) - minOf(zs) > 1e-9 ? Number.NaN : (zs[0] ?? null);
   });
   const emitterOf = new Map(model.emitters.map((e) => [e.headId, e]));
+  // The way from each anchor to the source, summed once: its chains' resistance and the one level of its anchors
+  // and chains (null: none; NaN: mixed). Past the anchor where all of an area's water has met, a walk jumps to the
+  // source with these instead of touching each anchor of a long cross main on the way.
+  const pathR = new Float64Array(nA);
+  const pathLevel: (number | null)[] = new Array(nA).fill(null);
+  const depth = new Int32Array(nA);
+  for (const v of order) {
+    const u = upAnchor[v]!;
+    if (u < 0) continue;
+    const c = sk.chains[upChain[v]!]!;
+    pathR[v] = pathR[u]! + c.cumR[c.pipes.length]!;
+    pathLevel[v] = sameLevel(sameLevel(anchorZ[v]!, chainZ[upChain[v]!]!), pathLevel[u]!);
+    depth[v] = depth[u]! + 1;
+  }
+  const lift = ancestorTable(upAnchor, depth, order);
   // Per-call scratch, reused: each anchor's combined (pressure, flow) and the call that last touched it; each
   // chain's open heads (interior index, emitter) and the call that gave them. A flow that passes anchors
   // without joining another keeps its pipes' resistance R pending: its pressure there is P + R·Q^1.85, one
@@ -126,19 +141,29 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
     }
     return Math.abs(h - scratch[2]!) <= 1e-9;
   };
-  /** Marks the anchors from `from` to the source as reached this call; false where the elevations differ. */
-  const touch = (from: number): boolean => {
+  /**
+   * Marks the anchors from `from` up to `top` (where all of the call's water has met) as reached this call; false
+   * where the elevations differ (every anchor but the source, and the chain above it).
+   */
+  const touch = (from: number, top: number): boolean => {
     for (let v = from; v >= 0 && stamp[v] !== epoch; v = upAnchor[v]!) {
       stamp[v] = epoch;
       P[v] = 0;
       Q[v] = 0;
       R[v] = 0;
       touchedRanks[touched++] = rank[v]!;
-      if (v !== sk.source && (!atLevel(anchorZ[v]!) || (upChain[v]! >= 0 && upAnchor[v] !== sk.source && !atLevel(chainZ[upChain[v]!]!))))
-        return false;
-      if (v !== sk.source && upAnchor[v] === sk.source && !atLevel(chainZ[upChain[v]!]!)) return false;
+      if (v !== sk.source && (!atLevel(anchorZ[v]!) || !atLevel(chainZ[upChain[v]!]!))) return false;
+      if (v === top) break;
     }
     return true;
+  };
+  /** The anchor below a head where the walk takes its water up: its own, or the lower end of its chain. */
+  const startOf = (e: Emitter) => {
+    const anchor = sk.anchorOf[e.node]!;
+    if (anchor >= 0) return anchor;
+    const c = sk.chainOf[e.node]!;
+    const chain = sk.chains[c]!;
+    return upChain[chain.a] === c ? chain.a : chain.b;
   };
   /** An anchor's pressure with the resistance still pending on its flow. */
   const pressureAt = (v: number) => P[v]! + (R[v]! > 0 ? R[v]! * pow(Q[v]!, HW_EXPONENT) : 0);
@@ -161,14 +186,22 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
     touched = 0;
     levelSeen = false;
     headCount = 0;
-    if (extra && !touch(extra.anchor)) return null;
+    // Where all the water meets: above it, nothing joins, and the walk jumps to its end.
+    let top = extra ? extra.anchor : -1;
     for (const id of headIds) {
       const e = emitterOf.get(id);
       if (!e) return null;
       heads[headCount++] = e;
+      top = top < 0 ? startOf(e) : lift.meet(top, startOf(e));
+    }
+    if (top < 0) return null;
+    if (top !== sk.source && !atLevel(pathLevel[upAnchor[top]!]!)) return null;
+    if (extra && !touch(extra.anchor, top)) return null;
+    for (let h = 0; h < headCount; h++) {
+      const e = heads[h]!;
       const anchor = sk.anchorOf[e.node]!;
       if (anchor >= 0) {
-        if (!touch(anchor)) return null;
+        if (!touch(anchor, top)) return null;
         continue;
       }
       const c = sk.chainOf[e.node]!;
@@ -188,8 +221,7 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
       indices[k] = index;
       emitters[k] = e;
       // The chain's lower end: the anchor whose way to the source runs through it.
-      const chain = sk.chains[c]!;
-      if (!touch(upChain[chain.a] === c ? chain.a : chain.b)) return null;
+      if (!touch(startOf(e), top)) return null;
     }
     for (let h = 0; h < headCount; h++) {
       const e = heads[h]!;
@@ -248,6 +280,13 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         q = Q[v]!;
         r = R[v]! + resistance(c, fromA ? 0 : chain.nodes.length + 1, end);
       }
+      if (v === top) {
+        // All the water is in: on to the end (the source, or `stopAt` above) with the way's sums.
+        if (q === 0) return { pressure: 0, flow: 0 };
+        const end = stopAt >= 0 ? stopAt : sk.source;
+        const rest = r + pathR[u]! - pathR[end]!;
+        return { pressure: p + rest * pow(q, HW_EXPONENT) + PSI_PER_FT * (z(sk.anchorNode[u]!) - z(sk.anchorNode[end]!)), flow: q };
+      }
       if (q === 0) continue;
       if (Q[u] === 0) {
         P[u] = p;
@@ -264,16 +303,7 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
     }
     return null;
   };
-  /** Anchors by depth below the source, for meeting points. */
-  const depth = new Int32Array(nA);
-  for (const v of order) if (upAnchor[v]! >= 0) depth[v] = depth[upAnchor[v]!]! + 1;
-  const meet = (a: number, b: number) => {
-    while (a !== b) {
-      if (depth[a]! >= depth[b]!) a = upAnchor[a]!;
-      else b = upAnchor[b]!;
-    }
-    return a;
-  };
+  const meet = lift.meet;
   /**
    * What a line's runs share in every group: where its water meets other water (`top`), the anchors and chains
    * its water passes below that (marked), and each run's pressure and flow at `top`, by size and first head.
@@ -388,4 +418,36 @@ function breadthFirst(model: HydraulicModel): { order: number[]; parentPipe: Int
     }
   }
   return { order, parentPipe, parentNode };
+}
+
+/** Joins two anchor levels (see `kFactorWalk`): null says nothing, NaN is mixed, else one level within 1e-9 ft. */
+function sameLevel(a: number | null, b: number | null): number | null {
+  if (a === null) return b;
+  if (b === null) return a;
+  return Math.abs(a - b) <= 1e-9 ? a : Number.NaN;
+}
+
+/** Ancestors by powers of two (binary lifting): the meeting anchor of two in O(log depth). */
+function ancestorTable(up: Int32Array, depth: Int32Array, order: readonly number[]) {
+  const n = up.length;
+  const levels = Math.max(1, Math.ceil(Math.log2(n + 1)));
+  const table = new Int32Array(levels * n);
+  for (const v of order) table[v] = up[v]! < 0 ? v : up[v]!;
+  for (let k = 1; k < levels; k++) for (let v = 0; v < n; v++) table[k * n + v] = table[(k - 1) * n + table[(k - 1) * n + v]!]!;
+  return {
+    meet(a: number, b: number): number {
+      if (depth[a]! < depth[b]!) [a, b] = [b, a];
+      for (let k = levels - 1; k >= 0; k--) if (depth[a]! - (1 << k) >= depth[b]!) a = table[k * n + a]!;
+      if (a === b) return a;
+      for (let k = levels - 1; k >= 0; k--) {
+        const x = table[k * n + a]!;
+        const y = table[k * n + b]!;
+        if (x !== y) {
+          a = x;
+          b = y;
+        }
+      }
+      return table[a]!;
+    },
+  };
 }
