@@ -310,8 +310,9 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
    */
   interface LineWater {
     top: number;
-    belowAnchor: Uint8Array;
-    belowChain: Uint8Array;
+    /** The anchors and chains its water passes below `top` (a few: sets, not arrays over the whole skeleton). */
+    belowAnchor: Set<number>;
+    belowChain: Set<number>;
     runs: Map<number, (Demand | null)[]>;
   }
   const lines = new WeakMap<readonly string[], LineWater | null>();
@@ -321,17 +322,17 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
     let water: LineWater | null = null;
     if (emitters.every((e) => e !== undefined)) {
       const top = (emitters as Emitter[]).map(entryOf).reduce(meet);
-      const belowAnchor = new Uint8Array(nA);
-      const belowChain = new Uint8Array(nC);
+      const belowAnchor = new Set<number>();
+      const belowChain = new Set<number>();
       for (const e of emitters as Emitter[]) {
         let v = sk.anchorOf[e.node]!;
         if (v < 0) {
-          belowChain[sk.chainOf[e.node]!] = 1;
+          belowChain.add(sk.chainOf[e.node]!);
           v = entryOf(e);
         }
-        for (; v !== top && v >= 0; v = upAnchor[v]!) {
-          belowAnchor[v] = 1;
-          if (upChain[v]! >= 0) belowChain[upChain[v]!] = 1;
+        for (; v !== top && v >= 0 && !belowAnchor.has(v); v = upAnchor[v]!) {
+          belowAnchor.add(v);
+          if (upChain[v]! >= 0) belowChain.add(upChain[v]!);
         }
       }
       water = { top, belowAnchor, belowChain, runs: new Map() };
@@ -342,9 +343,9 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
   /** Whether a base head's water meets the line's below its `top` (then the runs cannot be summed up there). */
   const meetsBelow = (e: Emitter, w: LineWater) => {
     const onChain = sk.anchorOf[e.node]! < 0;
-    if (onChain && w.belowChain[sk.chainOf[e.node]!]) return true;
+    if (onChain && w.belowChain.has(sk.chainOf[e.node]!)) return true;
     for (let v = onChain ? entryOf(e) : sk.anchorOf[e.node]!; v >= 0 && depth[v]! > depth[w.top]!; v = upAnchor[v]!) {
-      if (w.belowAnchor[v] || (upChain[v]! >= 0 && w.belowChain[upChain[v]!])) return true;
+      if (w.belowAnchor.has(v) || (upChain[v]! >= 0 && w.belowChain.has(upChain[v]!))) return true;
     }
     return false;
   };
