@@ -4,7 +4,8 @@
 
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readdirSync, statSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { cpus, totalmem } from 'node:os';
+import { basename, join } from 'node:path';
 import { layoutDxf } from '../src/demo/generated-layout.js';
 import { HOSTILE } from '../src/demo/hostile.js';
 
@@ -12,17 +13,24 @@ const OUT = 'bench-out';
 const ONE = join('dist-scripts', 'scripts', 'bench-one.js');
 const CLI = join('dist-scripts', 'scripts', 'bench-cli.js');
 const sizes = (process.env['BENCH_SIZES'] ?? '1000,5000,20000').split(',').map(Number);
-const kinds = (process.env['BENCH_KINDS'] ?? 'tree,grid').split(',');
+const kinds = (process.env['BENCH_KINDS'] ?? 'tree,grid,lines').split(',');
 
 mkdirSync(OUT, { recursive: true });
 const config = { design: { hazard: 'OH2', density: 0.2, area: 1500 }, supply: { static: 120, residual: 90, flow: 2000 } };
 writeFileSync(join(OUT, 'config.json'), JSON.stringify(config));
 const rows: Record<string, unknown>[] = [];
+// Grids above 5,040 heads take minutes each (every placement needs its own proving solve; docs/performance.md).
+const gridMax = Number(process.env['BENCH_GRID_MAX'] ?? 6000);
 for (const heads of sizes) {
   for (const kind of kinds) {
-    // Branch lines of about 2.5 × as many heads as there are lines, 12 ft × 10 ft spacing (common practice).
-    const lines = Math.max(2, Math.round(Math.sqrt(heads / 2.5)));
-    const perLine = Math.ceil(heads / lines);
+    if (kind === 'grid' && heads > gridMax) {
+      console.log(`grid ${heads}: left out (BENCH_GRID_MAX=${gridMax}; set it higher to include it)`);
+      continue;
+    }
+    // tree and grid: branch lines of about 2.5 × as many heads as there are lines; lines: the shape of real layouts,
+    // many short lines of 8 heads (2,500 of them for 20,000 heads); 12 ft × 10 ft spacing (common practice).
+    const lines = kind === 'lines' ? Math.ceil(heads / 8) : Math.max(2, Math.round(Math.sqrt(heads / 2.5)));
+    const perLine = kind === 'lines' ? 8 : Math.ceil(heads / lines);
     const file = join(OUT, `${kind}-${heads}.dxf`);
     writeFileSync(file, layoutDxf({ s: 12, l: 10, heads: perLine, lines, gridded: kind === 'grid' }));
     const run = spawnSync(process.execPath, ['--max-old-space-size=8192', ONE, file, join(OUT, 'config.json')], {
@@ -36,6 +44,13 @@ for (const heads of sizes) {
     }
     // biome-ignore lint/suspicious/noExplicitAny: the child's JSON line, read field by field below
     const r = { kind, ...JSON.parse(run.stdout) } as Record<string, any>;
+    // The same file parsed by dxf-parser alone, in a process of its own: the ratio the targets are stated in.
+    const parse = spawnSync(process.execPath, ['--max-old-space-size=8192', ONE, file, join(OUT, 'config.json'), 'parse-only'], {
+      encoding: 'utf8',
+      timeout: 3_600_000,
+    });
+    r['parseMs'] = JSON.parse(parse.stdout).parseMs;
+    r['bytes'] = statSync(file).size;
     rows.push(r);
     const st = r['stages'];
     console.log(
@@ -205,9 +220,71 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
   batch['speedup'] = batch['workers2']! / batch['workers1']!;
   console.log(`2 workers / 1 worker: ${batch['speedup']!.toFixed(2)}×`);
 }
+// A small drawing through the real command, all outputs, against Node starting and doing nothing (median of 7 each).
+const small: Record<string, number> = {};
+if ((process.env['BENCH_SMALL'] ?? '1') !== '0') {
+  const file = join(OUT, 'small-50.dxf');
+  writeFileSync(file, layoutDxf({ s: 12, l: 10, heads: 10, lines: 5 }));
+  const wall = (args: string[]) => {
+    const t0 = performance.now();
+    spawnSync(process.execPath, args, { encoding: 'utf8' });
+    return performance.now() - t0;
+  };
+  const outputs = ['--json', join(OUT, 'small.json'), '--dxf', join(OUT, 'small.dxf'), '--html', join(OUT, 'small.html')];
+  const check = median(
+    Array.from({ length: 7 }, () => wall(['bin/headcheck.js', 'check', file, '--config', join(OUT, 'config.json'), ...outputs])),
+  );
+  const empty = median(Array.from({ length: 7 }, () => wall(['-e', '0'])));
+  Object.assign(small, { checkMs: check, nodeMs: empty, ratio: check / empty });
+  console.log(
+    `small drawing (50 heads, all outputs): ${check.toFixed(0)} ms; node -e 0: ${empty.toFixed(0)} ms; ratio ${(check / empty).toFixed(2)}`,
+  );
+}
+
+// The ratios the targets are stated in, one table (issue 19), with the machine, Node and the command.
+const at = (kind: string, heads: number) =>
+  rows.find((r) => r['kind'] === kind && r['heads'] === heads) as Record<string, number> | undefined;
+const ratioRows: [string, string, string][] = [];
+const lines20k = at('lines', 20000);
+if (lines20k)
+  ratioRows.push([
+    'whole check ÷ dxf-parser parse, 20,000 heads in lines of 8, no background',
+    (lines20k['totalMs']! / lines20k['parseMs']!).toFixed(2),
+    '≤ 2.0',
+  ]);
+if (background)
+  ratioRows.push([
+    'whole check ÷ dxf-parser parse, 20,070 heads + 200,000 background entities',
+    (background['ratio'] as number).toFixed(2),
+    '≤ 1.0',
+  ]);
+if (small['ratio']) ratioRows.push(['small drawing (50 heads, all outputs) ÷ node -e 0', small['ratio'].toFixed(2), '≤ 2.0']);
+const grid5k = at('grid', 5040) ?? rows.find((r) => r['kind'] === 'grid' && (r['heads'] as number) >= 5000);
+if (grid5k)
+  ratioRows.push([
+    `design-area search, grid of ${grid5k['heads']} heads (s)`,
+    ((grid5k['stages'] as unknown as Record<string, number>)['design-area']! / 1000).toFixed(2),
+    '≤ 1 s',
+  ]);
+if (batch['speedup']) ratioRows.push(['batch of 200 small drawings: 2 workers ÷ 1', batch['speedup'].toFixed(2), '≥ 1.6']);
+for (const [kind, g] of Object.entries(growth))
+  ratioRows.push([`growth of time with heads, ${kind}`, `heads^${g.time.toFixed(2)}`, '≤ heads^1.0']);
+for (const d of dwg)
+  ratioRows.push([`DWG to DXF, ${basename(String(d['file']))} (s per MB, warm)`, (d['warmSecondsPerMB'] as number).toFixed(2), '≤ 1.0']);
+const machine = `${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}, \`npm run bench\``;
+const ratioTable = [
+  `Measured on ${machine}, ${new Date().toISOString().slice(0, 10)}, in one run:`,
+  '',
+  '| measure | value | target |',
+  '|---|---|---|',
+  ...ratioRows.map((r) => `| ${r.join(' | ')} |`),
+].join('\n');
+writeFileSync(join(OUT, 'ratios.md'), `${ratioTable}\n`);
+console.log(`\n${ratioTable}\n`);
+
 writeFileSync(
   join(OUT, 'bench.json'),
-  `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, hostile, dwg, batch }, null, 2)}\n`,
+  `${JSON.stringify({ date: new Date().toISOString(), node: process.version, rows, growth, background, backgroundRows, backgroundGrowth, hostile, dwg, batch, small, ratios: ratioRows }, null, 2)}\n`,
 );
 console.log(`figures written to ${join(OUT, 'bench.json')}`);
 

@@ -30,7 +30,7 @@ function searchBoth(spec: Parameters<typeof checkLayout>[0], config: Record<stri
 }
 
 describe('design-area search', () => {
-  it('pruning never drops the most demanding area or the runner-up (brute force on random trees and grids)', () => {
+  it('pruning never drops the most demanding area or the runner-up (brute force on random trees and grids, supplies through random paths)', () => {
     fc.assert(
       fc.property(
         fc.record({
@@ -39,14 +39,56 @@ describe('design-area search', () => {
           heads: fc.integer({ min: 3, max: 8 }),
           lines: fc.integer({ min: 2, max: 6 }),
           area: fc.integer({ min: 300, max: 1500 }),
-          supply: fc.boolean(),
+          supply: fc.constantFrom('none', 'test', 'path', 'rising pump'),
           gridded: fc.boolean(),
+          // A supply path's parts (CONTRACT.md, Supply path): pipe, device and pump laws with random curves.
+          pipeLength: fc.integer({ min: 20, max: 600 }),
+          rise: fc.double({ min: -5, max: 5, noNaN: true }),
+          deviceLoss: fc.tuple(fc.double({ min: 1, max: 8, noNaN: true }), fc.double({ min: 0, max: 8, noNaN: true })),
+          pumpCurve: fc.tuple(
+            fc.double({ min: 20, max: 80, noNaN: true }),
+            fc.double({ min: 0, max: 10, noNaN: true }),
+            fc.double({ min: 0, max: 30, noNaN: true }),
+          ),
         }),
         (p) => {
+          const [lossAt0, lossRise] = p.deviceLoss;
+          const [churn, drop, fall] = p.pumpCurve;
+          const path = [
+            { type: 'pipe', length: p.pipeLength, size: '6', rise: p.rise },
+            {
+              type: 'device',
+              name: 'backflow preventer',
+              loss: [
+                [0, lossAt0],
+                [800, lossAt0 + lossRise],
+              ],
+            },
+            p.supply === 'rising pump'
+              ? {
+                  type: 'pump',
+                  name: 'pump rising near churn',
+                  curve: [
+                    [0, churn],
+                    [300, churn + 5],
+                    [1500, Math.max(0, churn - fall)],
+                  ],
+                }
+              : {
+                  type: 'pump',
+                  name: 'fire pump',
+                  curve: [
+                    [0, churn],
+                    [600, churn - drop],
+                    [1500, Math.max(0, churn - drop - fall)],
+                  ],
+                },
+          ];
+          const supply = { static: 90, residual: 70, flow: 1000, ...(p.supply === 'test' ? {} : { path }) };
           const config = {
             design: { density: 0.2, area: p.area },
             defaults: { headElevation: 10, sourceElevation: 0 },
-            ...(p.supply ? { supply: { static: 90, residual: 70, flow: 1000 } } : {}),
+            ...(p.supply === 'none' ? {} : { supply }),
           };
           const { pruned, brute } = searchBoth({ s: p.s, l: p.l, heads: p.heads, lines: p.lines, gridded: p.gridded }, config);
           expect(brute.evaluated).toBe(brute.candidates);
