@@ -5,6 +5,7 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Ajv from 'ajv';
+import { contractPath } from './support/supply-path.js';
 import { describe, expect, it } from 'vitest';
 import { configJsonSchema, SCHEMA_FILE, withSections } from '../scripts/docs.js';
 import { parseSettings } from '../src/config/settings.js';
@@ -55,28 +56,7 @@ describe('published config schema', () => {
 
   it("the supply path: the contract's example is accepted by both, a wrong part refused by both", () => {
     // CONTRACT.md, "Supply path": the three parts as it writes them.
-    const path = [
-      { type: 'pipe', length: 300, size: '6', cFactor: 140, schedule: '40', rise: 0 },
-      {
-        type: 'device',
-        name: 'backflow preventer',
-        loss: [
-          [0, 4],
-          [500, 7],
-          [1500, 12],
-        ],
-      },
-      {
-        type: 'pump',
-        name: 'fire pump',
-        curve: [
-          [0, 120],
-          [750, 110],
-          [1000, 100],
-          [1500, 65],
-        ],
-      },
-    ];
+    const path = contractPath();
     const good = { supply: { static: 80, residual: 60, flow: 1000, elevation: -4, path } };
     expect(validate(good)).toBe(true);
     expect(parseSettings(good).supply!.path![0]).toMatchObject({ type: 'pipe', size: '6', schedule: '40' });

@@ -6,6 +6,7 @@
 import { existsSync } from 'node:fs';
 import { expect, it } from 'vitest';
 import { runCorpus, type CorpusRow, type CorpusRun } from '../scripts/corpus.js';
+import { expectSoundRuns } from './support/corpus.js';
 import { describeWith } from './support/external.js';
 
 const ROOT = '../shared/real-dxf';
@@ -119,12 +120,7 @@ const WITH_ROLES: Record<string, [number, string]> = {
 function expectSound(rows: CorpusRow[], expected: Record<string, [number, string]>) {
   expect(rows.map((r) => r.file).sort()).toEqual(Object.keys(expected).sort());
   for (const r of rows) {
-    for (const run of [r.layers, r.check]) {
-      expect([0, 1, 2], `${r.file}: ${run.message}`).toContain(run.code);
-      if (run.code === 2) expect(run.stderrLines, `${r.file}: one line on stderr`).toBe(1);
-      expect(run.seconds, r.file).toBeLessThan(60);
-      expect(run.peakMiB, r.file).toBeLessThan(1024);
-    }
+    expectSoundRuns(r);
     expect([r.layers.code, outcome(r.check)], r.file).toEqual(expected[r.file]);
   }
 }

@@ -2,7 +2,7 @@
 // (epanet-js) on the whole chain (reservoir and equivalent pipe for the flow test, underground pipe, a general-purpose
 // valve with the device's loss curve, a pump with its multi-point curve, then a system), and the check's use of it.
 
-import { LinkProperty, NodeProperty, Project, Workspace } from 'epanet-js';
+import { LinkProperty, NodeProperty } from 'epanet-js';
 import { describe, expect, it } from 'vitest';
 import { parseSettings } from '../src/config/settings.js';
 import { resistance } from '../src/hydraulics/hazen-williams.js';
@@ -10,7 +10,8 @@ import type { HydraulicModel } from '../src/hydraulics/model.js';
 import { NetworkSolver } from '../src/hydraulics/solver.js';
 import { supplyAtSource, supplyOf, type SupplySettings } from '../src/hydraulics/supply-path.js';
 import { checkLayout } from './support/check.js';
-import { EPANET_PSI_PER_FT } from './support/epanet.js';
+import { EPANET_PSI_PER_FT, runEpanet } from './support/epanet.js';
+import { contractPath } from './support/supply-path.js';
 
 // An invented supply: a hydrant flow test 300 ft of 6 in underground away, a backflow preventer, a fire pump (the
 // device and pump curves are the contract's examples, CONTRACT.md "Supply path").
@@ -19,28 +20,7 @@ const SUPPLY: SupplySettings = {
   residual: 60,
   flow: 1000,
   elevation: -4,
-  path: [
-    { type: 'pipe', length: 300, size: '6', cFactor: 140, schedule: '40', rise: 2 },
-    {
-      type: 'device',
-      name: 'backflow preventer',
-      loss: [
-        [0, 4],
-        [500, 7],
-        [1500, 12],
-      ],
-    },
-    {
-      type: 'pump',
-      name: 'fire pump',
-      curve: [
-        [0, 120],
-        [750, 110],
-        [1000, 100],
-        [1500, 65],
-      ],
-    },
-  ],
+  path: contractPath(2),
 };
 
 describe('the supply at the source, by hand', () => {
@@ -183,16 +163,11 @@ async function epanetChain(model: HydraulicModel, supply: SupplySettings) {
   lines.push('', '[EMITTERS]');
   for (const e of model.emitters) lines.push(`J${e.node} ${e.k}`);
   lines.push('', '[OPTIONS]', 'Units GPM', 'Headloss H-W', 'Accuracy 0.000001', 'Trials 500', 'Emitter Exponent 0.5', '', '[END]', '');
-  const ws = new Workspace();
-  await ws.loadModule();
-  const project = new Project(ws);
-  ws.writeFile('net.inp', lines.join('\n'));
-  project.open('net.inp', 'net.rpt', 'net.out');
-  project.solveH();
-  const sourcePressure = project.getNodeValue(project.getNodeIndex(`J${model.source}`), NodeProperty.Pressure);
-  const flow = project.getLinkValue(project.getLinkIndex('UNDER'), LinkProperty.Flow);
-  const headFlows = model.emitters.map((e) => project.getNodeValue(project.getNodeIndex(`J${e.node}`), NodeProperty.Demand));
-  project.close();
+  const { sourcePressure, flow, headFlows } = await runEpanet(lines.join('\n'), (project) => ({
+    sourcePressure: project.getNodeValue(project.getNodeIndex(`J${model.source}`), NodeProperty.Pressure),
+    flow: project.getLinkValue(project.getLinkIndex('UNDER'), LinkProperty.Flow),
+    headFlows: model.emitters.map((e) => project.getNodeValue(project.getNodeIndex(`J${e.node}`), NodeProperty.Demand)),
+  }));
   return { sourcePressure, flow, headFlows };
 }
 

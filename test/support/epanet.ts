@@ -26,25 +26,33 @@ export async function solveWithEpanet(model: HydraulicModel, sourcePressure: num
   lines.push('', '[EMITTERS]');
   for (const e of model.emitters) lines.push(`${name(e.node)} ${e.k}`);
   lines.push('', '[OPTIONS]', 'Units GPM', 'Headloss H-W', 'Accuracy 0.000001', 'Trials 500', 'Emitter Exponent 0.5', '', '[END]', '');
+  return runEpanet(lines.join('\n'), (project) => {
+    const pressure = new Map<string, number>();
+    const emitterFlow = new Map<string, number>();
+    model.nodes.forEach((n, i) => {
+      pressure.set(n.id, project.getNodeValue(project.getNodeIndex(name(i)), NodeProperty.Pressure));
+    });
+    model.emitters.forEach((e) => {
+      emitterFlow.set(e.headId, project.getNodeValue(project.getNodeIndex(name(e.node)), NodeProperty.Demand));
+    });
+    const flow = new Map<string, number>();
+    for (const p of model.pipes) flow.set(p.id, project.getLinkValue(project.getLinkIndex(p.id), LinkProperty.Flow));
+    const sourceFlow = -project.getNodeValue(project.getNodeIndex(name(src)), NodeProperty.Demand);
+    return { pressure, flow, emitterFlow, sourceFlow };
+  });
+}
+
+/** Solves an EPANET input file's hydraulics and reads the results with `read` before the project closes. */
+export async function runEpanet<T>(inp: string, read: (project: Project) => T): Promise<T> {
   const ws = new Workspace();
   await ws.loadModule();
   const project = new Project(ws);
-  ws.writeFile('net.inp', lines.join('\n'));
+  ws.writeFile('net.inp', inp);
   project.open('net.inp', 'net.rpt', 'net.out');
   project.solveH();
-  const pressure = new Map<string, number>();
-  const emitterFlow = new Map<string, number>();
-  model.nodes.forEach((n, i) => {
-    const idx = project.getNodeIndex(name(i));
-    pressure.set(n.id, project.getNodeValue(idx, NodeProperty.Pressure));
-  });
-  model.emitters.forEach((e) => {
-    const idx = project.getNodeIndex(name(e.node));
-    emitterFlow.set(e.headId, project.getNodeValue(idx, NodeProperty.Demand));
-  });
-  const flow = new Map<string, number>();
-  for (const p of model.pipes) flow.set(p.id, project.getLinkValue(project.getLinkIndex(p.id), LinkProperty.Flow));
-  const sourceFlow = -project.getNodeValue(project.getNodeIndex(name(src)), NodeProperty.Demand);
-  project.close();
-  return { pressure, flow, emitterFlow, sourceFlow };
+  try {
+    return read(project);
+  } finally {
+    project.close();
+  }
 }
