@@ -211,15 +211,6 @@ export class AreaCalculator {
     const totalDemand = sourceFlow + hoseAllowance;
     const supply = supplyOf(settings);
     const supplyAvailable = supply ? supply.available(totalDemand) : null;
-    const busy = model.pipes.map((_, k) => Math.abs(s.flow[k]!) > IDLE_SHARE * sourceFlow);
-    const onBusy = new Set<number>([model.source]);
-    model.pipes.forEach((p, k) => {
-      if (busy[k]) {
-        onBusy.add(p.from);
-        onBusy.add(p.to);
-      }
-    });
-    const emitterAtNode = new Map(model.emitters.map((e, k) => [e.node, k]));
     const hand = this.hand?.bound(d.headIds) ?? null;
     return {
       sourcePressure: P,
@@ -245,38 +236,54 @@ export class AreaCalculator {
             };
           })
         : [],
-      nodes: model.nodes.flatMap((n, i) => {
-        if (!onBusy.has(i)) return [];
-        const k = emitterAtNode.get(i);
-        return [{ id: n.id, pressure: s.pressure[i]!, flow: k !== undefined ? s.emitterFlow[k]! : 0, elevation: n.elevation }];
-      }),
-      pipes: model.pipes.flatMap((p, k) =>
-        busy[k]
-          ? [
-              {
-                id: p.id,
-                from: model.nodes[p.from]!.id,
-                to: model.nodes[p.to]!.id,
-                nominalSize: p.nominalSize,
-                innerDiameter: p.diameter,
-                cFactor: p.c,
-                flow: s.flow[k]!,
-                velocity: velocityFtPerS(s.flow[k]!, p.diameter),
-                frictionPerLength: frictionPsiPerFt(s.flow[k]!, p.c, p.diameter),
-                frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
-                length: p.length,
-                fittingsLength: p.fittingsLength,
-                fittings: p.fittings,
-              },
-            ]
-          : [],
-      ),
+      ...busyTables(model, s, sourceFlow),
       riser: model.riser,
       handMethod: hand && { sourcePressure: hand.pressure, sourceFlow: hand.flow },
       solves: d.solves,
       iterations: d.iterations,
     };
   }
+}
+
+/** The nodes and pipes that carry the area's water (more than a trace of it), as the report tables them. */
+function busyTables(model: HydraulicModel, s: FlowState, sourceFlow: number): Pick<AreaHydraulics, 'nodes' | 'pipes'> {
+  const busy = model.pipes.map((_, k) => Math.abs(s.flow[k]!) > IDLE_SHARE * sourceFlow);
+  const onBusy = new Set<number>([model.source]);
+  model.pipes.forEach((p, k) => {
+    if (busy[k]) {
+      onBusy.add(p.from);
+      onBusy.add(p.to);
+    }
+  });
+  const emitterAtNode = new Map(model.emitters.map((e, k) => [e.node, k]));
+  return {
+    nodes: model.nodes.flatMap((n, i) => {
+      if (!onBusy.has(i)) return [];
+      const k = emitterAtNode.get(i);
+      return [{ id: n.id, pressure: s.pressure[i]!, flow: k !== undefined ? s.emitterFlow[k]! : 0, elevation: n.elevation }];
+    }),
+    pipes: model.pipes.flatMap((p, k) =>
+      busy[k]
+        ? [
+            {
+              id: p.id,
+              from: model.nodes[p.from]!.id,
+              to: model.nodes[p.to]!.id,
+              nominalSize: p.nominalSize,
+              innerDiameter: p.diameter,
+              cFactor: p.c,
+              flow: s.flow[k]!,
+              velocity: velocityFtPerS(s.flow[k]!, p.diameter),
+              frictionPerLength: frictionPsiPerFt(s.flow[k]!, p.c, p.diameter),
+              frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
+              length: p.length,
+              fittingsLength: p.fittingsLength,
+              fittings: p.fittings,
+            },
+          ]
+        : [],
+    ),
+  };
 }
 
 /**

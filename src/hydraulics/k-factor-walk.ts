@@ -43,12 +43,23 @@ export const treeBound = (model: HydraulicModel, skeleton?: Skeleton): TreeBound
  * losses of its pipes add up, so a design area costs its heads and the junctions on their way to the source.
  */
 export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skeleton?: Skeleton): TreeBound | null {
-  const n = model.nodes.length;
-  if (model.pipes.length !== n - 1) return null;
+  if (model.pipes.length !== model.nodes.length - 1) return null;
   const sk = skeleton ?? buildSkeleton(model);
+  const tree = orient(sk);
+  return tree ? new KFactorWalk(model, raiseExponent, sk, tree) : null;
+}
+
+/** The skeleton oriented from the source: each anchor's chain and anchor towards it, and the breadth-first order. */
+interface Oriented {
+  upChain: Int32Array;
+  upAnchor: Int32Array;
+  /** Each anchor's place in `order`. */
+  rank: Int32Array;
+  order: number[];
+}
+
+function orient(sk: Skeleton): Oriented | null {
   const nA = sk.anchorNode.length;
-  const nC = sk.chains.length;
-  // Orient the skeleton from the source: each anchor's chain and anchor towards the source, and its rank.
   const upChain = new Int32Array(nA).fill(-1);
   const upAnchor = new Int32Array(nA).fill(-1);
   const rank = new Int32Array(nA);
@@ -68,224 +79,250 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
       order.push(v);
     }
   }
-  if (order.length !== nA) return null;
-  // Elevations: the bound holds where every node below the source is at one level (see BOUND_EXPONENT).
-  const z = (v: number) => model.nodes[v]!.elevation;
-  const anchorZ = Float64Array.from(sk.anchorNode, z);
-  const chainZ = sk.chains.map((c) => {
-    const zs = Array.from(c.nodes, z);
-    return zs.length && maxOf(zs) - minOf(zs) > 1e-9 ? Number.NaN : (zs[0] ?? null);
-  });
-  const emitterOf = new Map(model.emitters.map((e) => [e.headId, e]));
-  // The way from each anchor to the source, summed once: its chains' resistance and the one level of its anchors
-  // and chains (null: none; NaN: mixed). Past the anchor where all of an area's water has met, a walk jumps to the
-  // source with these instead of touching each anchor of a long cross main on the way.
-  const pathR = new Float64Array(nA);
-  const pathLevel: (number | null)[] = new Array(nA).fill(null);
-  const depth = new Int32Array(nA);
-  for (const v of order) {
-    const u = upAnchor[v]!;
-    if (u < 0) continue;
-    const c = sk.chains[upChain[v]!]!;
-    pathR[v] = pathR[u]! + c.cumR[c.pipes.length]!;
-    pathLevel[v] = sameLevel(sameLevel(anchorZ[v]!, chainZ[upChain[v]!]!), pathLevel[u]!);
-    depth[v] = depth[u]! + 1;
-  }
-  const lift = ancestorTable(upAnchor, depth, order);
-  // Per-call scratch, reused: each anchor's combined (pressure, flow) and the call that last touched it; each
-  // chain's open heads (interior index, emitter) and the call that gave them. A flow that passes anchors
-  // without joining another keeps its pipes' resistance R pending: its pressure there is P + R·Q^1.85, one
-  // power evaluated where it meets other water instead of one per pipe run.
-  const P = new Float64Array(nA);
-  const Q = new Float64Array(nA);
-  const R = new Float64Array(nA);
-  const stamp = new Int32Array(nA);
-  const touchedRanks = new Int32Array(nA);
-  const chainStamp = new Int32Array(nC);
-  // A chain's open heads, in order along it: how many, their interior indices and emitters (parallel lists,
-  // reused: their lengths only grow, since shortening an array gives its storage up).
-  const chainHeadCount = new Int32Array(nC);
-  const chainHeadIndex: number[][] = sk.chains.map(() => []);
-  const chainHeadEmitter: Emitter[][] = sk.chains.map(() => []);
-  const heads: Emitter[] = [];
-  let headCount = 0;
-  let epoch = 0;
-  let touched = 0;
-  // Numbers that change per call live in a typed array: a number captured by these closures and reassigned
-  // would be boxed anew on every write. [0, 1]: the running join's pressure and flow; [2]: the one elevation
-  // of every node reached this call, once `levelSeen`.
-  const scratch = new Float64Array(3);
-  let levelSeen = false;
-  /** a^x for a > 0 (exp and log: twice as fast as the power operator in V8). */
-  const pow = (a: number, x: number) => Math.exp(x * Math.log(a));
-  /** Adds an input (p, q) to the running join (scratch[0], scratch[1]): the higher pressure wins, the other side's flow is
-   * raised to it. */
-  const join = (p: number, q: number) => {
-    const jp = scratch[0]!;
-    const jq = scratch[1]!;
-    if (jq === 0) {
-      scratch[0] = p;
-      scratch[1] = q;
-    } else if (p <= jp) scratch[1] = jq + q * pow(jp / p, raiseExponent);
-    else {
-      scratch[1] = jq * pow(p / jp, raiseExponent) + q;
-      scratch[0] = p;
+  return order.length === nA ? { upChain, upAnchor, rank, order } : null;
+}
+
+/**
+ * What a line's runs share in every group: where its water meets other water (`top`), the anchors and chains
+ * its water passes below that (a few: sets, not arrays over the whole skeleton), and each run's pressure and flow
+ * at `top`, by size and first head.
+ */
+interface LineWater {
+  top: number;
+  belowAnchor: Set<number>;
+  belowChain: Set<number>;
+  runs: Map<number, (Demand | null)[]>;
+}
+
+/** An input joining at an anchor once every input from below has arrived (the summed runs of a line). */
+interface Extra {
+  anchor: number;
+  pressure: number;
+  flow: number;
+}
+
+/** a^x for a > 0 (exp and log: twice as fast as the power operator in V8). */
+const pow = (a: number, x: number) => Math.exp(x * Math.log(a));
+
+class KFactorWalk implements TreeBound {
+  private readonly sk: Skeleton;
+  private readonly upChain: Int32Array;
+  private readonly upAnchor: Int32Array;
+  private readonly rank: Int32Array;
+  private readonly order: number[];
+  /** Elevations: the bound holds where every node below the source is at one level (see BOUND_EXPONENT). */
+  private readonly anchorZ: Float64Array;
+  private readonly chainZ: (number | null)[];
+  private readonly emitterOf: Map<string, Emitter>;
+  /**
+   * The way from each anchor to the source, summed once: its chains' resistance and the one level of its anchors
+   * and chains (null: none; NaN: mixed). Past the anchor where all of an area's water has met, a walk jumps to
+   * the source with these instead of touching each anchor of a long cross main on the way.
+   */
+  private readonly pathR: Float64Array;
+  private readonly pathLevel: (number | null)[];
+  private readonly depth: Int32Array;
+  private readonly lift: ReturnType<typeof ancestorTable>;
+  /**
+   * Per-call scratch, reused: each anchor's combined (pressure, flow) and the call that last touched it; each
+   * chain's open heads (interior index, emitter) and the call that gave them. A flow that passes anchors without
+   * joining another keeps its pipes' resistance R pending: its pressure there is P + R·Q^1.85, one power
+   * evaluated where it meets other water instead of one per pipe run.
+   */
+  private readonly P: Float64Array;
+  private readonly Q: Float64Array;
+  private readonly R: Float64Array;
+  private readonly stamp: Int32Array;
+  private readonly touchedRanks: Int32Array;
+  private readonly chainStamp: Int32Array;
+  /** A chain's open heads in order along it (parallel lists, reused: their lengths only grow). */
+  private readonly chainHeadCount: Int32Array;
+  private readonly chainHeadIndex: number[][];
+  private readonly chainHeadEmitter: Emitter[][];
+  private readonly heads: Emitter[] = [];
+  private headCount = 0;
+  private epoch = 0;
+  private touched = 0;
+  /** [0, 1]: the running join's pressure and flow; [2]: the one elevation of every node reached this call, once `levelSeen`. */
+  private readonly scratch = new Float64Array(3);
+  private levelSeen = false;
+  private readonly lines = new WeakMap<readonly string[], LineWater | null>();
+
+  constructor(
+    private readonly model: HydraulicModel,
+    private readonly raiseExponent: number,
+    sk: Skeleton,
+    tree: Oriented,
+  ) {
+    this.sk = sk;
+    ({ upChain: this.upChain, upAnchor: this.upAnchor, rank: this.rank, order: this.order } = tree);
+    const nA = sk.anchorNode.length;
+    const nC = sk.chains.length;
+    this.anchorZ = Float64Array.from(sk.anchorNode, (v) => this.z(v));
+    this.chainZ = sk.chains.map((c) => {
+      const zs = Array.from(c.nodes, (v) => this.z(v));
+      return zs.length && maxOf(zs) - minOf(zs) > 1e-9 ? Number.NaN : (zs[0] ?? null);
+    });
+    this.emitterOf = new Map(model.emitters.map((e) => [e.headId, e]));
+    this.pathR = new Float64Array(nA);
+    this.pathLevel = new Array(nA).fill(null);
+    this.depth = new Int32Array(nA);
+    for (const v of this.order) {
+      const u = this.upAnchor[v]!;
+      if (u < 0) continue;
+      const c = sk.chains[this.upChain[v]!]!;
+      this.pathR[v] = this.pathR[u]! + c.cumR[c.pipes.length]!;
+      this.pathLevel[v] = sameLevel(sameLevel(this.anchorZ[v]!, this.chainZ[this.upChain[v]!]!), this.pathLevel[u]!);
+      this.depth[v] = this.depth[u]! + 1;
     }
-  };
-  const atLevel = (h: number | null) => {
+    this.lift = ancestorTable(this.upAnchor, this.depth, this.order);
+    this.P = new Float64Array(nA);
+    this.Q = new Float64Array(nA);
+    this.R = new Float64Array(nA);
+    this.stamp = new Int32Array(nA);
+    this.touchedRanks = new Int32Array(nA);
+    this.chainStamp = new Int32Array(nC);
+    this.chainHeadCount = new Int32Array(nC);
+    this.chainHeadIndex = sk.chains.map(() => []);
+    this.chainHeadEmitter = sk.chains.map(() => []);
+  }
+
+  bound(headIds: string[]): Demand | null {
+    return this.walk(headIds, -1, null);
+  }
+
+  boundAlong(base: string[], line: readonly string[], first: number, last: number, size: number): Demand | null {
+    if (first >= last) return this.walk([...base, ...line.slice(first, first + size)], -1, null);
+    const w = this.lineWater(line);
+    if (!w) return null;
+    for (const id of base) {
+      const e = this.emitterOf.get(id);
+      if (!e) return null;
+      if (this.meetsBelow(e, w)) return this.walk([...base, ...line.slice(first, last + size)], -1, null);
+    }
+    let each = w.runs.get(size);
+    if (!each) w.runs.set(size, (each = new Array<Demand | null>(line.length)));
+    let pressure = 0;
+    for (let k = first; k <= last; k++) {
+      // A run's sum at `top` is the same in every group it is a placement of.
+      let d = each[k];
+      if (d === undefined) each[k] = d = this.walk(line.slice(k, k + size), w.top, null);
+      if (!d) return null;
+      pressure = Math.max(pressure, d.pressure);
+    }
+    let flow = 0;
+    for (let k = first; k <= last; k++) flow = Math.max(flow, each[k]!.flow * pow(pressure / each[k]!.pressure, this.raiseExponent));
+    return this.walk(base, -1, { anchor: w.top, pressure, flow });
+  }
+
+  private z(node: number): number {
+    return this.model.nodes[node]!.elevation;
+  }
+
+  /** Adds an input (p, q) to the running join (scratch[0], scratch[1]): the higher pressure wins, the other side's flow is raised to it. */
+  private join(p: number, q: number): void {
+    const s = this.scratch;
+    const jp = s[0]!;
+    const jq = s[1]!;
+    if (jq === 0) {
+      s[0] = p;
+      s[1] = q;
+    } else if (p <= jp) s[1] = jq + q * pow(jp / p, this.raiseExponent);
+    else {
+      s[1] = jq * pow(p / jp, this.raiseExponent) + q;
+      s[0] = p;
+    }
+  }
+
+  /** Whether a level (null: none) is the one level of this call's nodes. */
+  private atLevel(h: number | null): boolean {
     if (h === null) return true;
     if (Number.isNaN(h)) return false;
-    if (!levelSeen) {
-      scratch[2] = h;
-      levelSeen = true;
+    if (!this.levelSeen) {
+      this.scratch[2] = h;
+      this.levelSeen = true;
     }
-    return Math.abs(h - scratch[2]!) <= 1e-9;
-  };
+    return Math.abs(h - this.scratch[2]!) <= 1e-9;
+  }
+
   /**
    * Marks the anchors from `from` up to `top` (where all of the call's water has met) as reached this call; false
    * where the elevations differ (every anchor but the source, and the chain above it).
    */
-  const touch = (from: number, top: number): boolean => {
-    for (let v = from; v >= 0 && stamp[v] !== epoch; v = upAnchor[v]!) {
-      stamp[v] = epoch;
-      P[v] = 0;
-      Q[v] = 0;
-      R[v] = 0;
-      touchedRanks[touched++] = rank[v]!;
-      if (v !== sk.source && (!atLevel(anchorZ[v]!) || !atLevel(chainZ[upChain[v]!]!))) return false;
+  private touch(from: number, top: number): boolean {
+    const { upAnchor, upChain, sk } = this;
+    for (let v = from; v >= 0 && this.stamp[v] !== this.epoch; v = upAnchor[v]!) {
+      this.stamp[v] = this.epoch;
+      this.P[v] = 0;
+      this.Q[v] = 0;
+      this.R[v] = 0;
+      this.touchedRanks[this.touched++] = this.rank[v]!;
+      if (v !== sk.source && (!this.atLevel(this.anchorZ[v]!) || !this.atLevel(this.chainZ[upChain[v]!]!))) return false;
       if (v === top) break;
     }
     return true;
-  };
-  /** The anchor below a head where the walk takes its water up: its own, or the lower end of its chain. */
-  const startOf = (e: Emitter) => {
-    const anchor = sk.anchorOf[e.node]!;
-    if (anchor >= 0) return anchor;
-    const c = sk.chainOf[e.node]!;
-    const chain = sk.chains[c]!;
-    return upChain[chain.a] === c ? chain.a : chain.b;
-  };
+  }
+
   /** An anchor's pressure with the resistance still pending on its flow. */
-  const pressureAt = (v: number) => P[v]! + (R[v]! > 0 ? R[v]! * pow(Q[v]!, HW_EXPONENT) : 0);
+  private pressureAt(v: number): number {
+    return this.P[v]! + (this.R[v]! > 0 ? this.R[v]! * pow(this.Q[v]!, HW_EXPONENT) : 0);
+  }
+
   /** Resistance of chain `c` between interior positions x and y (0 and length + 1 are its ends). */
-  const resistance = (c: number, x: number, y: number) => Math.abs(sk.chains[c]!.cumR[y]! - sk.chains[c]!.cumR[x]!);
-  /** Where a head's water first enters an anchor: its own anchor, or the upper end of its chain. */
-  const entryOf = (e: Emitter) => {
-    const anchor = sk.anchorOf[e.node]!;
+  private resistance(c: number, x: number, y: number): number {
+    const cumR = this.sk.chains[c]!.cumR;
+    return Math.abs(cumR[y]! - cumR[x]!);
+  }
+
+  /** The anchor below a head where the walk takes its water up: its own, or the lower end of its chain. */
+  private startOf(e: Emitter): number {
+    const anchor = this.sk.anchorOf[e.node]!;
     if (anchor >= 0) return anchor;
-    const c = sk.chainOf[e.node]!;
-    const chain = sk.chains[c]!;
-    return upAnchor[upChain[chain.a] === c ? chain.a : chain.b]!;
-  };
+    const c = this.sk.chainOf[e.node]!;
+    const chain = this.sk.chains[c]!;
+    return this.upChain[chain.a] === c ? chain.a : chain.b;
+  }
+
+  /** Where a head's water first enters an anchor: its own anchor, or the upper end of its chain. */
+  private entryOf(e: Emitter): number {
+    const anchor = this.sk.anchorOf[e.node]!;
+    return anchor >= 0 ? anchor : this.upAnchor[this.startOf(e)]!;
+  }
+
   /**
    * The walk of the open heads `headIds` towards the source: the source's pressure and flow, or the anchor
    * `stopAt`'s once every head below it has arrived; `extra` joins at its anchor as one more input.
    */
-  const walk = (headIds: string[], stopAt: number, extra: { anchor: number; pressure: number; flow: number } | null): Demand | null => {
-    epoch++;
-    touched = 0;
-    levelSeen = false;
-    headCount = 0;
-    // Where all the water meets: above it, nothing joins, and the walk jumps to its end.
-    let top = extra ? extra.anchor : -1;
-    for (const id of headIds) {
-      const e = emitterOf.get(id);
-      if (!e) return null;
-      heads[headCount++] = e;
-      top = top < 0 ? startOf(e) : lift.meet(top, startOf(e));
-    }
+  private walk(headIds: string[], stopAt: number, extra: Extra | null): Demand | null {
+    const top = this.gather(headIds, extra);
     if (top < 0) return null;
-    if (top !== sk.source && !atLevel(pathLevel[upAnchor[top]!]!)) return null;
-    if (extra && !touch(extra.anchor, top)) return null;
-    for (let h = 0; h < headCount; h++) {
-      const e = heads[h]!;
-      const anchor = sk.anchorOf[e.node]!;
-      if (anchor >= 0) {
-        if (!touch(anchor, top)) return null;
-        continue;
-      }
-      const c = sk.chainOf[e.node]!;
-      const indices = chainHeadIndex[c]!;
-      const emitters = chainHeadEmitter[c]!;
-      if (chainStamp[c] !== epoch) {
-        chainStamp[c] = epoch;
-        chainHeadCount[c] = 0;
-      }
-      // Kept in order along the chain (a few heads: an insertion, no sort).
-      const index = sk.indexInChain[e.node]!;
-      let k = chainHeadCount[c]!++;
-      for (; k > 0 && indices[k - 1]! > index; k--) {
-        indices[k] = indices[k - 1]!;
-        emitters[k] = emitters[k - 1]!;
-      }
-      indices[k] = index;
-      emitters[k] = e;
-      // The chain's lower end: the anchor whose way to the source runs through it.
-      if (!touch(startOf(e), top)) return null;
-    }
-    for (let h = 0; h < headCount; h++) {
-      const e = heads[h]!;
-      const anchor = sk.anchorOf[e.node]!;
-      if (anchor < 0) continue;
-      scratch[0] = P[anchor]!;
-      scratch[1] = Q[anchor]!;
-      join(e.required, e.k * Math.sqrt(e.required));
-      P[anchor] = scratch[0]!;
-      Q[anchor] = scratch[1]!;
-    }
+    this.joinAnchorHeads();
+    const { P, Q, R, order, upAnchor, sk } = this;
     // Deepest first: in breadth-first order from the source, read backwards (typed sort, in place).
-    touchedRanks.subarray(0, touched).sort();
-    for (let x = touched - 1; x >= 0; x--) {
-      const v = order[touchedRanks[x]!]!;
+    this.touchedRanks.subarray(0, this.touched).sort();
+    for (let x = this.touched - 1; x >= 0; x--) {
+      const v = order[this.touchedRanks[x]!]!;
       if (extra && v === extra.anchor) {
         // Every input from below has arrived: the extra one joins.
-        scratch[0] = Q[v]! > 0 ? pressureAt(v) : 0;
-        scratch[1] = Q[v]!;
-        join(extra.pressure, extra.flow);
-        P[v] = scratch[0]!;
-        Q[v] = scratch[1]!;
+        this.scratch[0] = Q[v]! > 0 ? this.pressureAt(v) : 0;
+        this.scratch[1] = Q[v]!;
+        this.join(extra.pressure, extra.flow);
+        P[v] = this.scratch[0]!;
+        Q[v] = this.scratch[1]!;
         R[v] = 0;
       }
-      if (v === stopAt) return { pressure: pressureAt(v), flow: Q[v]! };
       const u = upAnchor[v]!;
-      if (u < 0) return { pressure: pressureAt(v), flow: Q[v]! };
-      // Up the chain from v to u, joining its open heads on the way.
-      const c = upChain[v]!;
-      const chain = sk.chains[c]!;
-      const fromA = chain.a === v;
-      const end = fromA ? chain.nodes.length + 1 : 0;
-      const rise = PSI_PER_FT * (z(sk.anchorNode[v]!) - z(sk.anchorNode[u]!));
-      let p: number;
-      let q: number;
-      let r: number;
-      if (chainStamp[c] === epoch) {
-        let pos = fromA ? 0 : chain.nodes.length + 1;
-        scratch[0] = Q[v]! > 0 ? pressureAt(v) : 0;
-        scratch[1] = Q[v]!;
-        const indices = chainHeadIndex[c]!;
-        const emitters = chainHeadEmitter[c]!;
-        const count = chainHeadCount[c]!;
-        for (let h = 0; h < count; h++) {
-          const k = fromA ? h : count - 1 - h;
-          const e = emitters[k]!;
-          if (scratch[1]! > 0) scratch[0] = scratch[0]! + resistance(c, pos, indices[k]! + 1) * pow(scratch[1]!, HW_EXPONENT);
-          join(e.required, e.k * Math.sqrt(e.required));
-          pos = indices[k]! + 1;
-        }
-        p = scratch[0]! + rise;
-        q = scratch[1]!;
-        r = resistance(c, pos, end);
-      } else {
-        p = P[v]! + rise;
-        q = Q[v]!;
-        r = R[v]! + resistance(c, fromA ? 0 : chain.nodes.length + 1, end);
-      }
+      if (v === stopAt || u < 0) return { pressure: this.pressureAt(v), flow: Q[v]! };
+      const { p, q, r } = this.climb(v, u);
       if (v === top) {
         // All the water is in: on to the end (the source, or `stopAt` above) with the way's sums.
         if (q === 0) return { pressure: 0, flow: 0 };
         const end = stopAt >= 0 ? stopAt : sk.source;
-        const rest = r + pathR[u]! - pathR[end]!;
-        return { pressure: p + rest * pow(q, HW_EXPONENT) + PSI_PER_FT * (z(sk.anchorNode[u]!) - z(sk.anchorNode[end]!)), flow: q };
+        const rest = r + this.pathR[u]! - this.pathR[end]!;
+        return {
+          pressure: p + rest * pow(q, HW_EXPONENT) + PSI_PER_FT * (this.z(sk.anchorNode[u]!) - this.z(sk.anchorNode[end]!)),
+          flow: q,
+        };
       }
       if (q === 0) continue;
       if (Q[u] === 0) {
@@ -294,88 +331,140 @@ export function kFactorWalk(model: HydraulicModel, raiseExponent: number, skelet
         R[u] = r;
         continue;
       }
-      scratch[0] = pressureAt(u);
-      scratch[1] = Q[u]!;
-      join(p + r * pow(q, HW_EXPONENT), q);
-      P[u] = scratch[0]!;
-      Q[u] = scratch[1]!;
+      this.scratch[0] = this.pressureAt(u);
+      this.scratch[1] = Q[u]!;
+      this.join(p + r * pow(q, HW_EXPONENT), q);
+      P[u] = this.scratch[0]!;
+      Q[u] = this.scratch[1]!;
       R[u] = 0;
     }
     return null;
-  };
-  const meet = lift.meet;
-  /**
-   * What a line's runs share in every group: where its water meets other water (`top`), the anchors and chains
-   * its water passes below that (marked), and each run's pressure and flow at `top`, by size and first head.
-   */
-  interface LineWater {
-    top: number;
-    /** The anchors and chains its water passes below `top` (a few: sets, not arrays over the whole skeleton). */
-    belowAnchor: Set<number>;
-    belowChain: Set<number>;
-    runs: Map<number, (Demand | null)[]>;
   }
-  const lines = new WeakMap<readonly string[], LineWater | null>();
-  const lineWater = (line: readonly string[]): LineWater | null => {
-    if (lines.has(line)) return lines.get(line)!;
-    const emitters = line.map((id) => emitterOf.get(id));
+
+  /**
+   * A new call: its heads listed, those on chains in order along their chain, and the anchors from theirs up to
+   * where all the water meets touched; that meeting anchor, or −1 where no bound holds (an unknown head, no head,
+   * mixed elevations).
+   */
+  private gather(headIds: string[], extra: Extra | null): number {
+    this.epoch++;
+    this.touched = 0;
+    this.levelSeen = false;
+    this.headCount = 0;
+    let top = extra ? extra.anchor : -1;
+    for (const id of headIds) {
+      const e = this.emitterOf.get(id);
+      if (!e) return -1;
+      this.heads[this.headCount++] = e;
+      top = top < 0 ? this.startOf(e) : this.lift.meet(top, this.startOf(e));
+    }
+    if (top < 0) return -1;
+    if (top !== this.sk.source && !this.atLevel(this.pathLevel[this.upAnchor[top]!]!)) return -1;
+    if (extra && !this.touch(extra.anchor, top)) return -1;
+    for (let h = 0; h < this.headCount; h++) {
+      const e = this.heads[h]!;
+      if (this.sk.anchorOf[e.node]! < 0) this.placeOnChain(e);
+      if (!this.touch(this.startOf(e), top)) return -1;
+    }
+    return top;
+  }
+
+  /** Lists a head among its chain's open heads this call, kept in order along the chain (a few: insertion). */
+  private placeOnChain(e: Emitter): void {
+    const c = this.sk.chainOf[e.node]!;
+    const indices = this.chainHeadIndex[c]!;
+    const emitters = this.chainHeadEmitter[c]!;
+    if (this.chainStamp[c] !== this.epoch) {
+      this.chainStamp[c] = this.epoch;
+      this.chainHeadCount[c] = 0;
+    }
+    const index = this.sk.indexInChain[e.node]!;
+    let k = this.chainHeadCount[c]!++;
+    for (; k > 0 && indices[k - 1]! > index; k--) {
+      indices[k] = indices[k - 1]!;
+      emitters[k] = emitters[k - 1]!;
+    }
+    indices[k] = index;
+    emitters[k] = e;
+  }
+
+  /** Heads on anchors join there, each asking its required pressure and drawing K·√p. */
+  private joinAnchorHeads(): void {
+    for (let h = 0; h < this.headCount; h++) {
+      const e = this.heads[h]!;
+      const anchor = this.sk.anchorOf[e.node]!;
+      if (anchor < 0) continue;
+      this.scratch[0] = this.P[anchor]!;
+      this.scratch[1] = this.Q[anchor]!;
+      this.join(e.required, e.k * Math.sqrt(e.required));
+      this.P[anchor] = this.scratch[0]!;
+      this.Q[anchor] = this.scratch[1]!;
+    }
+  }
+
+  /** Up the chain from anchor v to u, joining its open heads on the way: the pressure and flow at u, and the resistance pending. */
+  private climb(v: number, u: number): { p: number; q: number; r: number } {
+    const { sk, P, Q, R } = this;
+    const c = this.upChain[v]!;
+    const chain = sk.chains[c]!;
+    const fromA = chain.a === v;
+    const end = fromA ? chain.nodes.length + 1 : 0;
+    const rise = PSI_PER_FT * (this.z(sk.anchorNode[v]!) - this.z(sk.anchorNode[u]!));
+    if (this.chainStamp[c] !== this.epoch)
+      return { p: P[v]! + rise, q: Q[v]!, r: R[v]! + this.resistance(c, fromA ? 0 : chain.nodes.length + 1, end) };
+    let pos = fromA ? 0 : chain.nodes.length + 1;
+    this.scratch[0] = Q[v]! > 0 ? this.pressureAt(v) : 0;
+    this.scratch[1] = Q[v]!;
+    const indices = this.chainHeadIndex[c]!;
+    const emitters = this.chainHeadEmitter[c]!;
+    const count = this.chainHeadCount[c]!;
+    for (let h = 0; h < count; h++) {
+      const k = fromA ? h : count - 1 - h;
+      const e = emitters[k]!;
+      if (this.scratch[1]! > 0)
+        this.scratch[0] = this.scratch[0]! + this.resistance(c, pos, indices[k]! + 1) * pow(this.scratch[1]!, HW_EXPONENT);
+      this.join(e.required, e.k * Math.sqrt(e.required));
+      pos = indices[k]! + 1;
+    }
+    return { p: this.scratch[0]! + rise, q: this.scratch[1]!, r: this.resistance(c, pos, end) };
+  }
+
+  /** What a line's runs share (cached per line array), or null where one of its heads is unknown. */
+  private lineWater(line: readonly string[]): LineWater | null {
+    if (this.lines.has(line)) return this.lines.get(line)!;
+    const emitters = line.map((id) => this.emitterOf.get(id));
     let water: LineWater | null = null;
     if (emitters.every((e) => e !== undefined)) {
-      const top = (emitters as Emitter[]).map(entryOf).reduce(meet);
+      const top = (emitters as Emitter[]).map((e) => this.entryOf(e)).reduce((a, b) => this.lift.meet(a, b));
       const belowAnchor = new Set<number>();
       const belowChain = new Set<number>();
       for (const e of emitters as Emitter[]) {
-        let v = sk.anchorOf[e.node]!;
+        let v = this.sk.anchorOf[e.node]!;
         if (v < 0) {
-          belowChain.add(sk.chainOf[e.node]!);
-          v = entryOf(e);
+          belowChain.add(this.sk.chainOf[e.node]!);
+          v = this.entryOf(e);
         }
-        for (; v !== top && v >= 0 && !belowAnchor.has(v); v = upAnchor[v]!) {
+        for (; v !== top && v >= 0 && !belowAnchor.has(v); v = this.upAnchor[v]!) {
           belowAnchor.add(v);
-          if (upChain[v]! >= 0) belowChain.add(upChain[v]!);
+          if (this.upChain[v]! >= 0) belowChain.add(this.upChain[v]!);
         }
       }
       water = { top, belowAnchor, belowChain, runs: new Map() };
     }
-    lines.set(line, water);
+    this.lines.set(line, water);
     return water;
-  };
+  }
+
   /** Whether a base head's water meets the line's below its `top` (then the runs cannot be summed up there). */
-  const meetsBelow = (e: Emitter, w: LineWater) => {
+  private meetsBelow(e: Emitter, w: LineWater): boolean {
+    const { sk, depth, upAnchor, upChain } = this;
     const onChain = sk.anchorOf[e.node]! < 0;
     if (onChain && w.belowChain.has(sk.chainOf[e.node]!)) return true;
-    for (let v = onChain ? entryOf(e) : sk.anchorOf[e.node]!; v >= 0 && depth[v]! > depth[w.top]!; v = upAnchor[v]!) {
+    for (let v = onChain ? this.entryOf(e) : sk.anchorOf[e.node]!; v >= 0 && depth[v]! > depth[w.top]!; v = upAnchor[v]!) {
       if (w.belowAnchor.has(v) || (upChain[v]! >= 0 && w.belowChain.has(upChain[v]!))) return true;
     }
     return false;
-  };
-  return {
-    bound: (headIds) => walk(headIds, -1, null),
-    boundAlong(base, line, first, last, size) {
-      if (first >= last) return walk([...base, ...line.slice(first, first + size)], -1, null);
-      const w = lineWater(line);
-      const union = () => walk([...base, ...line.slice(first, last + size)], -1, null);
-      if (!w) return null;
-      for (const id of base) {
-        const e = emitterOf.get(id);
-        if (!e) return null;
-        if (meetsBelow(e, w)) return union();
-      }
-      let each = w.runs.get(size);
-      if (!each) w.runs.set(size, (each = new Array<Demand | null>(line.length)));
-      let pressure = 0;
-      for (let k = first; k <= last; k++) {
-        // A run's sum at `top` is the same in every group it is a placement of.
-        let d = each[k];
-        if (d === undefined) each[k] = d = walk(line.slice(k, k + size), w.top, null);
-        if (!d) return null;
-        pressure = Math.max(pressure, d.pressure);
-      }
-      let flow = 0;
-      for (let k = first; k <= last; k++) flow = Math.max(flow, each[k]!.flow * pow(pressure / each[k]!.pressure, raiseExponent));
-      return walk(base, -1, { anchor: w.top, pressure, flow });
-    },
-  };
+  }
 }
 
 /**

@@ -98,29 +98,42 @@ export function buildModel(network: Network, sourceNodeId: string, flowing: Flow
       k: f.head.kFactor,
       required: f.required,
     }));
-  let source = index.get(sourceNodeId)!;
-  const rise = pipeLevel - settings.defaults.sourceElevation;
-  const feed = network.pipes.find((p) => p.from === sourceNodeId || p.to === sourceNodeId);
-  let riser: HydraulicModel['riser'] = { modelled: 'none', length: 0, nominalSize: feed?.nominalSize ?? settings.defaults.pipeSize };
-  if (Math.abs(rise) > 1e-9 && feed) {
-    nodes.push({ id: SUPPLY_NODE_ID, elevation: settings.defaults.sourceElevation });
-    const length = Math.abs(rise);
-    pipes.push({
-      id: RISER_PIPE_ID,
-      from: nodes.length - 1,
-      to: source,
-      length,
-      fittingsLength: 0,
-      fittings: [],
-      nominalSize: feed.nominalSize,
-      diameter: feed.innerDiameter,
-      c: feed.cFactor,
-      r: resistance(length, feed.cFactor, feed.innerDiameter),
-    });
-    source = nodes.length - 1;
-    riser = { modelled: 'virtual', length, nominalSize: feed.nominalSize };
-  }
+  const { source, riser } = addRiser(network, sourceNodeId, index.get(sourceNodeId)!, nodes, pipes, settings);
   return { nodes, pipes, emitters, source, riser };
+}
+
+/**
+ * Where the supply is below (or above) the piping, the rise as a vertical pipe of the feed main's size from a
+ * virtual supply node (added to `nodes` and `pipes`), which then is the source; else the source as it is.
+ */
+function addRiser(
+  network: Network,
+  sourceNodeId: string,
+  sourceIndex: number,
+  nodes: ModelNode[],
+  pipes: ModelPipe[],
+  settings: Settings,
+): { source: number; riser: HydraulicModel['riser'] } {
+  const rise = settings.defaults.headElevation - settings.defaults.sourceElevation;
+  const feed = network.pipes.find((p) => p.from === sourceNodeId || p.to === sourceNodeId);
+  if (Math.abs(rise) <= 1e-9 || !feed) {
+    return { source: sourceIndex, riser: { modelled: 'none', length: 0, nominalSize: feed?.nominalSize ?? settings.defaults.pipeSize } };
+  }
+  nodes.push({ id: SUPPLY_NODE_ID, elevation: settings.defaults.sourceElevation });
+  const length = Math.abs(rise);
+  pipes.push({
+    id: RISER_PIPE_ID,
+    from: nodes.length - 1,
+    to: sourceIndex,
+    length,
+    fittingsLength: 0,
+    fittings: [],
+    nominalSize: feed.nominalSize,
+    diameter: feed.innerDiameter,
+    c: feed.cFactor,
+    r: resistance(length, feed.cFactor, feed.innerDiameter),
+  });
+  return { source: nodes.length - 1, riser: { modelled: 'virtual', length, nominalSize: feed.nominalSize } };
 }
 
 /** The network's nodes and pipes by index: each pipe's ends, and the pipes at each node. */

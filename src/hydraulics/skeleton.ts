@@ -50,44 +50,9 @@ export function buildSkeleton(model: HydraulicModel): Skeleton {
   const indexInChain = new Int32Array(n).fill(-1);
   const used = new Uint8Array(model.pipes.length);
   const chains: Chain[] = [];
-  const walkFrom = (start: number, first: number) => {
-    const nodes: number[] = [];
-    const pipes: number[] = [];
-    const sign: number[] = [];
-    let at = start;
-    let k = first;
-    for (;;) {
-      used[k] = 1;
-      const p = model.pipes[k]!;
-      const next = p.from === at ? p.to : p.from;
-      pipes.push(k);
-      sign.push(p.from === at ? 1 : -1);
-      if (anchorOf[next]! >= 0) {
-        at = next;
-        break;
-      }
-      chainOf[next] = chains.length;
-      indexInChain[next] = nodes.length;
-      nodes.push(next);
-      const [k1, k2] = incident[next]!;
-      k = k1 === k ? k2! : k1!;
-      at = next;
-    }
-    const cumR = new Float64Array(pipes.length + 1);
-    pipes.forEach((pk, j) => {
-      cumR[j + 1] = cumR[j]! + model.pipes[pk]!.r;
-    });
-    chains.push({
-      a: anchorOf[start]!,
-      b: anchorOf[at]!,
-      nodes: Int32Array.from(nodes),
-      pipes: Int32Array.from(pipes),
-      sign: Int8Array.from(sign),
-      cumR,
-    });
-  };
+  const walk: ChainWalk = { model, incident, anchorOf, chainOf, indexInChain, used };
   for (let i = 0; i < anchorNode.length; i++) {
-    for (const k of incident[anchorNode[i]!]!) if (!used[k]) walkFrom(anchorNode[i]!, k);
+    for (const k of incident[anchorNode[i]!]!) if (!used[k]) chains.push(walkChain(walk, anchorNode[i]!, k, chains.length));
   }
   // A loop of plain pipes touching no anchor cannot be reached from the source: the model holds none.
   if (used.some((u) => !u)) throw new Error('the network has pipes not reachable from any junction');
@@ -97,4 +62,52 @@ export function buildSkeleton(model: HydraulicModel): Skeleton {
     if (c.b !== c.a) chainsAt[c.b]!.push(i);
   });
   return { anchorNode: Int32Array.from(anchorNode), anchorOf, chains, chainsAt, chainOf, indexInChain, source: 0 };
+}
+
+/** What walking a chain reads and marks: the model, each node's pipes, the anchors, and the marks it leaves. */
+interface ChainWalk {
+  model: HydraulicModel;
+  incident: number[][];
+  anchorOf: Int32Array;
+  chainOf: Int32Array;
+  indexInChain: Int32Array;
+  used: Uint8Array;
+}
+
+/** The chain that leaves anchor node `start` by pipe `first`, walked to the next anchor; its nodes are marked as chain `index`'s. */
+function walkChain(w: ChainWalk, start: number, first: number, index: number): Chain {
+  const nodes: number[] = [];
+  const pipes: number[] = [];
+  const sign: number[] = [];
+  let at = start;
+  let k = first;
+  for (;;) {
+    w.used[k] = 1;
+    const p = w.model.pipes[k]!;
+    const next = p.from === at ? p.to : p.from;
+    pipes.push(k);
+    sign.push(p.from === at ? 1 : -1);
+    if (w.anchorOf[next]! >= 0) {
+      at = next;
+      break;
+    }
+    w.chainOf[next] = index;
+    w.indexInChain[next] = nodes.length;
+    nodes.push(next);
+    const [k1, k2] = w.incident[next]!;
+    k = k1 === k ? k2! : k1!;
+    at = next;
+  }
+  const cumR = new Float64Array(pipes.length + 1);
+  pipes.forEach((pk, j) => {
+    cumR[j + 1] = cumR[j]! + w.model.pipes[pk]!.r;
+  });
+  return {
+    a: w.anchorOf[start]!,
+    b: w.anchorOf[at]!,
+    nodes: Int32Array.from(nodes),
+    pipes: Int32Array.from(pipes),
+    sign: Int8Array.from(sign),
+    cumR,
+  };
 }
