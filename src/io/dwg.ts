@@ -39,7 +39,8 @@ export async function dwgAsDxfHere(bytes: Uint8Array, limits: DwgReadLimits): Pr
 /** Converts in a worker thread, ended after `limits.seconds`; an InputError names what went wrong. */
 export function dwgAsDxf(bytes: Uint8Array, limits: DwgReadLimits): Promise<Uint8Array> {
   return new Promise((resolve, reject) => {
-    const worker = new Worker(new URL('./dwg-worker.js', import.meta.url), {
+    // From dist/io or from the bundle in dist/cli-bundle alike: both sit beside dist/io.
+    const worker = new Worker(new URL('../io/dwg-worker.js', import.meta.url), {
       workerData: { bytes, limits },
       transferList: [],
       resourceLimits: { maxOldGenerationSizeMb: Math.max(256, limits.memoryMB) },
