@@ -6,7 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { ComparisonReport } from '../src/compare/outputs.js';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
 import { describeWith, hasEzdxf, SYSTEM_PYTHON } from './support/external.js';
@@ -147,6 +147,38 @@ describeWith('python3-ezdxf', hasEzdxf(), 'batch --compare-with', () => {
     expect(refused.status).toBe(2);
     expect(refused.stderr.trim().split('\n')).toHaveLength(1);
   }, 240_000);
+});
+
+describe('compare refuses in one line', () => {
+  it.each([
+    ['a missing earlier drawing', (dir: string) => [join(dir, 'gone.dxf'), join(dir, 'plan.dxf'), '--no-config'], /gone\.dxf/],
+    [
+      'an output over the earlier drawing',
+      (dir: string) => [join(dir, 'plan.dxf'), join(dir, 'plan.dxf'), '--no-config', '--json', join(dir, 'plan.dxf')],
+      /plan\.dxf/,
+    ],
+    [
+      'a config with a typo',
+      (dir: string) => [join(dir, 'plan.dxf'), join(dir, 'plan.dxf'), '--config', join(dir, 'typo.json')],
+      /did you mean "design\.hazard"/,
+    ],
+  ] as [string, (dir: string) => string[], RegExp][])(
+    '%s: exit 2, one line, nothing written',
+    (_what, args, message) => {
+      const dir = mkdtempSync(join(tmpdir(), 'hc-compare-bad-'));
+      writeFileSync(join(dir, 'plan.dxf'), demoDrawing());
+      writeFileSync(join(dir, 'typo.json'), JSON.stringify({ design: { hazzard: 'OH2' } }));
+      const before = readFileSync(join(dir, 'plan.dxf'));
+      const r = spawnSync(process.execPath, ['bin/headcheck.js', 'compare', ...args(dir)], { encoding: 'utf8', timeout: 120_000 });
+      expect(r.status).toBe(2);
+      const lines = r.stderr.trim().split('\n');
+      expect(lines).toHaveLength(1);
+      expect(lines[0]).toMatch(message);
+      expect(readdirSync(dir).sort()).toEqual(['plan.dxf', 'typo.json']);
+      expect(readFileSync(join(dir, 'plan.dxf')).equals(before)).toBe(true);
+    },
+    120_000,
+  );
 });
 
 const countInfo = (r: ComparisonReport) => r.findings.unchanged.filter((p) => p.after.severity === 'info').length;
