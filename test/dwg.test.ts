@@ -4,9 +4,11 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { createHash } from 'node:crypto';
+import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { dwgAsDxf, libreDwgModule } from '../src/io/dwg.js';
+import { dwgAsDxf, dwgAsDxfHere, libreDwgModule } from '../src/io/dwg.js';
 import { dwgToDxf } from '../src/read/dwg/dwg-to-dxf.js';
 import { dwgRelease, dwgVersionTag } from '../src/read/dwg/version.js';
 import { parseSettings } from '../src/config/settings.js';
@@ -83,6 +85,32 @@ describeWith('../shared/real-dwg (the DWG samples)', existsSync(SAMPLE), 'DWG li
     const bytes = new Uint8Array(readFileSync(SAMPLE));
     await expect(dwgAsDxf(bytes, { seconds: 0.05, memoryMB: 2048 })).rejects.toThrow(/longer than 0.05 s \(inputLimits.dwgSeconds\)/);
   }, 120_000);
+
+  it('the DXF of a DWG does not depend on where the program runs from (path, locale)', async () => {
+    // LibreDWG reads past the end of an MTEXT string of this sample: what it reads must not vary with the environment.
+    const sample = '../shared/real-dwg/acs_AC1032.dwg';
+    const hash = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
+    const here = hash(await dwgAsDxfHere(new Uint8Array(readFileSync(sample)), { seconds: 60, memoryMB: 2048 }));
+    // The script's path is in the module's environment: run it from folders of three lengths (allocations align
+    // to 16 bytes, so lengths 24 and 72 characters apart land in different places).
+    const base = mkdtempSync(join(tmpdir(), 'hc-dwg-env-'));
+    for (const extra of ['', 'x'.repeat(24), join('y'.repeat(36), 'z'.repeat(35))]) {
+      const dir = join(base, extra);
+      mkdirSync(dir, { recursive: true });
+      const script = join(dir, 'convert.mjs');
+      writeFileSync(
+        script,
+        `import { dwgAsDxfHere } from ${JSON.stringify(pathToFileURL(resolve('dist/io/dwg.js')).href)};\n` +
+          `import { readFileSync } from 'node:fs';\nimport { createHash } from 'node:crypto';\n` +
+          `const d = await dwgAsDxfHere(new Uint8Array(readFileSync(${JSON.stringify(resolve(sample))})), { seconds: 60, memoryMB: 2048 });\n` +
+          `process.stdout.write(createHash('sha256').update(d).digest('hex'));\n`,
+      );
+      const env = { ...process.env, LANG: extra ? 'de_DE.UTF-8' : 'C' };
+      const r = spawnSync(process.execPath, [script], { cwd: dir, encoding: 'utf8', timeout: 120_000, env });
+      expect(r.status, r.stderr).toBe(0);
+      expect(r.stdout, dir).toBe(here);
+    }
+  }, 180_000);
 
   it('compare takes DWG: a drawing against itself has nothing resolved or added', () => {
     const dir = mkdtempSync(join(tmpdir(), 'hc-dwg-compare-'));

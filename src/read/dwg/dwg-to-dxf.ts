@@ -19,6 +19,8 @@ type ModuleFactory = (options: {
   instantiateWasm: (imports: WebAssembly.Imports, done: (instance: WebAssembly.Instance) => unknown) => Promise<unknown>;
   print: (s: string) => void;
   printErr: (s: string) => void;
+  thisProgram: string;
+  preRun: ((m: { ENV: Record<string, string> }) => void)[];
 }) => Promise<LibreDwgModule>;
 const createModule = (libredwg as unknown as { createModule: ModuleFactory }).createModule;
 
@@ -66,6 +68,15 @@ export async function dwgToDxf(bytes: Uint8Array, wasm: WebAssembly.Module, limi
     },
     print: () => undefined,
     printErr: () => undefined,
+    // The same process environment everywhere. The module's environment strings are allocated before the drawing
+    // is read, and LibreDWG reads past the end of some strings (an MTEXT of a 2018 sample): with the program's path
+    // and the locale in them, the bytes it read, and so the DXF, changed with the folder headcheck ran from.
+    thisProgram: 'headcheck',
+    preRun: [
+      (m) => {
+        m.ENV['LANG'] = 'C.UTF-8';
+      },
+    ],
   });
   let error: number;
   try {
