@@ -1,6 +1,7 @@
 // Comparing revisions: ezdxf (Debian python3-ezdxf) edits the demo drawing as CAD does, keeping every other handle
-// (moves a head, deletes one, adds one too close to another, labels an unlabelled pipe), and each change lands in
-// its list; a drawing against itself has nothing resolved or added; heads redrawn with new handles match by place.
+// (moves a head, deletes one, adds one unpiped and too close to another, labels a pipe; then pipes the added head),
+// and each change lands in its list; a drawing against itself has nothing resolved or added; heads redrawn with new
+// handles match by place.
 
 import { spawnSync } from 'node:child_process';
 import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -26,6 +27,9 @@ if mode == "revise":
     added = msp.add_blockref("SPK-PENDENT", near, dxfattribs={"layer": "FP-SPRK-HEAD"})
     msp.add_text('1-1/4"', dxfattribs={"layer": "FP-PIPE-SIZE", "height": 4, "insert": (22, 664)})  # pipe 129 labelled
     print(added.dxf.handle)
+elif mode == "pipe":  # the head added unattached gets its arm: a pipe to the branch line it stands beside
+    at = db[sys.argv[4]].dxf.insert
+    msp.add_line(at, (at.x, 648), dxfattribs={"layer": "FP-PIPE"})
 else:  # "redraw": every head deleted and drawn again at its place (new handles)
     for e in list(msp.query('INSERT[layer=="FP-SPRK-HEAD"]')):
         name, at, attribs = e.dxf.name, e.dxf.insert, [(a.dxf.tag, a.dxf.text) for a in e.attribs]
@@ -105,6 +109,18 @@ describeWith('python3-ezdxf', hasEzdxf(), 'compare', () => {
     expect((c.html.match(/<g class="resolved">/g) ?? []).length).toBe(r.findings.resolved.length);
     expect((c.html.match(/<circle class="added"/g) ?? []).length).toBe(r.findings.added.length);
     expect(c.html).toContain('authority having jurisdiction');
+  });
+
+  it('the next revision pipes the head it left unattached: that comment is resolved', () => {
+    const { dir, addedHandle } = revision('revise');
+    const r = spawnSync(SYSTEM_PYTHON, ['-c', EDIT, join(dir, 'plan-b.dxf'), join(dir, 'plan-c.dxf'), 'pipe', addedHandle], {
+      encoding: 'utf8',
+      timeout: 60_000,
+    });
+    expect(r.status, r.stderr).toBe(0);
+    const c = compare(dir, join(dir, 'plan-b.dxf'), join(dir, 'plan-c.dxf'));
+    expect(c.report.findings.resolved.map((f) => `${f.rule} ${f.handles.join(',')}`)).toContain(`head-unattached ${addedHandle}`);
+    expect(c.report.heads).toEqual({ added: [], removed: [], moved: [], matchedByPosition: 0 });
   });
 
   it('heads redrawn with new handles are matched by place: nothing added or removed, findings unchanged', () => {
