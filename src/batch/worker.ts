@@ -3,15 +3,13 @@
 
 import { join } from 'node:path';
 import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
-import { runCheck } from '../check/run-check.js';
 import { compareRevisions } from '../compare/compare.js';
 import type { LengthUnit } from '../config/settings.js';
 import { loadSettings } from '../io/config-file.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
-import { dwgVersionTag } from '../read/dwg/version.js';
-import { collectBetweenStages } from '../io/collect.js';
-import { readInputFile, sha256Hex, writeAllAtomically } from '../io/files.js';
+import { checkDrawingFile } from '../io/drawing-file.js';
+import { writeAllAtomically } from '../io/files.js';
 
 export interface BatchTask {
   file: string;
@@ -107,27 +105,9 @@ export default async function checkOne(task: BatchTask): Promise<BatchRow> {
 const messageOf = (err: unknown) =>
   err instanceof InputError ? err.message : `internal error: ${err instanceof Error ? err.message : String(err)}`;
 
-/** One drawing read (a DWG converted here: this worker already runs under the batch's limits) and checked. */
-async function checkFile(file: string, config: string | null, task: BatchTask) {
+/** One drawing read (a DWG converted in this thread: the worker already runs under the batch's limits) and checked. */
+function checkFile(file: string, config: string | null, task: BatchTask) {
   const settings = loadSettings(config);
   if (task.drawingUnits) settings.units = task.drawingUnits;
-  const raw = readInputFile(file, settings.inputLimits.fileMB);
-  const dwgVersion = dwgVersionTag(raw);
-  const bytes = dwgVersion
-    ? await (await import('../io/dwg.js')).dwgAsDxfHere(raw, {
-        seconds: settings.inputLimits.dwgSeconds,
-        memoryMB: settings.inputLimits.dwgMemoryMB,
-      })
-    : raw;
-  const onStage = collectBetweenStages(bytes.length);
-  return runCheck({
-    bytes,
-    fileName: file,
-    sha256: sha256Hex(raw),
-    dwgVersion,
-    settings,
-    reportUnits: task.units,
-    requireHydraulics: task.requireHydraulics,
-    ...(onStage ? { onStage } : {}),
-  });
+  return checkDrawingFile(file, settings, { reportUnits: task.units, requireHydraulics: task.requireHydraulics, dwgThread: 'this-thread' });
 }

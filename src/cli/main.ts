@@ -7,16 +7,15 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Command, CommanderError, Option } from 'commander';
 import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
-import { type CheckResult, runCheck } from '../check/run-check.js';
+import type { CheckResult } from '../check/run-check.js';
 import { COMPARE_FORMAT_NAMES, COMPARE_FORMATS, type CompareFormatName, revisionsOf } from '../compare/outputs.js';
 import { LENGTH_UNITS, parseSettings, type LengthUnit, type Settings } from '../config/settings.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { InputError } from '../input-error.js';
 import { TOOL } from '../version.js';
-import { dwgVersionTag } from '../read/dwg/version.js';
-import { collectBetweenStages } from '../io/collect.js';
+import { checkDrawingFile, drawingBytes, withFile } from '../io/drawing-file.js';
 import { findConfig, loadSettings, type FoundConfig } from '../io/config-file.js';
-import { assertNotInput, cleanUpOnSignals, readInputFile, sha256Hex, writeAllAtomically } from '../io/files.js';
+import { assertNotInput, cleanUpOnSignals, writeAllAtomically } from '../io/files.js';
 import { layersReport, layersText, starterConfig } from './layers-table.js';
 import { findingLines, summaryLine } from './summary-line.js';
 
@@ -75,21 +74,9 @@ async function checkCommand(file: string, opts: CheckOptions, io: { out: (s: str
 }
 
 /** One drawing checked with the settings `check` would use for it (its config found or given). */
-async function checkDrawing(file: string, opts: DrawingOptions & { units: UnitSystem }): Promise<CheckResult> {
-  const settings = settingsFor(file, opts);
-  const { bytes, sha256, dwgVersion } = await drawingBytes(file, settings);
-  const onStage = collectBetweenStages(bytes.length);
-  const input = {
-    bytes,
-    fileName: file,
-    sha256,
-    dwgVersion,
-    settings,
-    reportUnits: opts.units,
-    requireHydraulics: opts.requireHydraulics === true,
-    ...(onStage ? { onStage } : {}),
-  };
-  return withFile(file, () => runCheck(input));
+function checkDrawing(file: string, opts: DrawingOptions & { units: UnitSystem }): Promise<CheckResult> {
+  const options = { reportUnits: opts.units, requireHydraulics: opts.requireHydraulics === true, dwgThread: 'own-worker' as const };
+  return checkDrawingFile(file, settingsFor(file, opts), options);
 }
 
 /** Checks two revisions of a drawing, writes the comparison's outputs; exit 1 when the later one has an error. */
@@ -117,38 +104,10 @@ async function compareCommand(
   return after.report.summary.pass ? 0 : 1;
 }
 
-/**
- * The drawing's bytes as the reader takes them, with the hash of the file as given: a DWG (told by its first
- * bytes) is converted to DXF in a worker thread, whose module loads only then.
- */
-async function drawingBytes(file: string, settings: Settings): Promise<{ bytes: Uint8Array; sha256: string; dwgVersion: string | null }> {
-  const raw = readInputFile(file, settings.inputLimits.fileMB);
-  const dwgVersion = dwgVersionTag(raw);
-  if (!dwgVersion) return { bytes: raw, sha256: sha256Hex(raw), dwgVersion };
-  const { dwgAsDxf } = await import('../io/dwg.js');
-  const limits = { seconds: settings.inputLimits.dwgSeconds, memoryMB: settings.inputLimits.dwgMemoryMB };
-  try {
-    return { bytes: await dwgAsDxf(raw, limits), sha256: sha256Hex(raw), dwgVersion };
-  } catch (err) {
-    if (err instanceof InputError) throw new InputError(`${file}: ${err.message}`);
-    throw err;
-  }
-}
-
 /** The folder of earlier revisions, or a one-line refusal. */
 function compareFolder(dir: string): string {
   if (!existsSync(dir) || !statSync(dir).isDirectory()) throw new InputError(`--compare-with ${dir}: no such folder`);
   return dir;
-}
-
-/** Prefixes an InputError from the pipeline with the drawing's name. */
-function withFile<T>(file: string, fn: () => T): T {
-  try {
-    return fn();
-  } catch (err) {
-    if (err instanceof InputError && !err.message.startsWith(file)) throw new InputError(`${file}: ${err.message}`);
-    throw err;
-  }
 }
 
 export async function main(
@@ -254,7 +213,7 @@ export async function main(
     .action(async (drawing: string, opts: DrawingOptions & { json?: string; configOut?: string }) => {
       for (const o of [opts.json, opts.configOut]) if (o) assertNotInput(o, drawing);
       const settings = settingsFor(drawing, opts);
-      const { bytes, dwgVersion } = await drawingBytes(drawing, settings);
+      const { bytes, dwgVersion } = await drawingBytes(drawing, settings, 'own-worker');
       const report = withFile(drawing, () => layersReport(bytes, settings, dwgVersion));
       const files: { path: string; data: string }[] = [];
       if (opts.json) files.push({ path: opts.json, data: `${JSON.stringify(report, null, 2)}\n` });

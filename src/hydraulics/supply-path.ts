@@ -65,16 +65,22 @@ export function supplyOf(settings: Settings): SupplyAtSource | null {
 /** The supply at the source, for a flow test and path; `sourceElevation` in ft. */
 export function supplyAtSource(supply: SupplySettings, sourceElevation: number): SupplyAtSource {
   const parts = pathParts(supply, sourceElevation);
+  const lossOf = (part: Part, q: number) => (part.law ? part.law.loss(q) : 0) + part.lift;
   const walk = (q: number): PathStep[] => {
     let p = availablePressure(supply, q);
     return parts.map((part, i) => {
-      const loss = (part.law ? part.law.loss(q) : 0) + part.lift;
+      const loss = lossOf(part, q);
       const step = { part: i, type: part.type, name: part.name, flow: q, loss, pressureFrom: p, pressureTo: p - loss };
       p -= loss;
       return step;
     });
   };
-  const available = (q: number) => Math.max(0, parts.length ? walk(q).at(-1)!.pressureTo : availablePressure(supply, q));
+  // The search asks this once per candidate it scores: the losses summed, no steps made.
+  const available = (q: number) => {
+    let p = availablePressure(supply, q);
+    for (const part of parts) p -= lossOf(part, q);
+    return Math.max(0, p);
+  };
   return {
     available,
     steps: walk,
