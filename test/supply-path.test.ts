@@ -104,6 +104,7 @@ function tree(): HydraulicModel {
       diameter,
       c: 120,
       r: resistance(length, 120, diameter),
+      run: 0,
     });
   };
   const node = (elevation: number) => nodes.push({ id: `N${nodes.length}`, elevation }) - 1;

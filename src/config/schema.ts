@@ -310,7 +310,10 @@ export function configSchema(system: UnitSystem) {
               'Least pressure at a flowing head',
             ),
             fittings: flag('Add equivalent lengths of elbows and tees inferred from the topology', true),
-            velocityPressure: flag('Ask for velocity pressure (not modelled: total pressures are used)', false),
+            velocityPressure: flag(
+              'Heads flow at the normal pressure (total less velocity pressure where water runs past them, NFPA 13 (2016 edition), 23.4.4.10); false: at the total pressure',
+              false,
+            ),
             systemType: v.optional(
               choice(['wet', 'dry', 'preaction'] as const, 'wet, dry or preaction (dry and preaction add 30% to the area)'),
               'wet',

@@ -6,7 +6,9 @@
 // stored: a comparison principle). So if every head of an area gets its required pressure at a trial pressure
 // P, the area needs at most P and then flows at most Q(P): its score (source pressure, or pressure short of the
 // supply) is at most P − supply(Q(P) + hose), as long as the supply does not rise with flow (a flow test, pipes and
-// devices never do; a pump whose curve rises somewhere does, and then every candidate is calculated).
+// devices never do; a pump whose curve rises somewhere does, and then every candidate is calculated). The proof
+// and the bounds cover pipes and heads flowing at the total pressure: at the normal pressure every candidate is
+// calculated too.
 
 import type { Settings } from '../config/settings.js';
 import { AreaCalculator, type AreaDemand, type AreaHydraulics } from '../hydraulics/calculate.js';
@@ -61,8 +63,9 @@ export function searchMostDemanding(
   const all = flowingOf([...anyArea]);
   if (all.length === 0) return { best: null, runnerUp: null, candidates, evaluated: 0, screened: 0, solves: 0, pruned: false };
   const supply = supplyOf(settings);
-  // The proof needs a supply that never rises with flow; a pump curve that rises somewhere turns pruning off.
-  const prune = options.prune !== false && (supply === null || supply.nonIncreasing);
+  // The proof needs a supply that never rises with flow (a pump curve that rises somewhere turns pruning off), and
+  // heads that flow at the total pressure.
+  const prune = options.prune !== false && (supply === null || supply.nonIncreasing) && !settings.design.velocityPressure;
   const calculator = new AreaCalculator(network, sourceNodeId, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
   const scoreAt = (pressure: number, flow: number) => (supply ? pressure - supply.available(flow + hose) : pressure);

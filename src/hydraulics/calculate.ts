@@ -8,6 +8,7 @@ import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
 import { buildModel, type FlowingHead, type HydraulicModel } from './model.js';
 import { NetworkSolver, type FlowState, type SolveResult } from './solver.js';
 import { type PathStep, supplyOf } from './supply-path.js';
+import { pipesAtNodes, solveAtNormalPressure, type NormalPressureDrops, type PressureBasis } from './velocity-pressure.js';
 import { maxOf } from '../arrays.js';
 
 export interface AreaHydraulics {
@@ -44,6 +45,8 @@ export interface AreaHydraulics {
     fittings: string[];
   }[];
   riser: HydraulicModel['riser'];
+  /** Which pressure the heads flow at: total, or normal (total less velocity pressure where water runs past). */
+  pressureBasis: PressureBasis;
   /** The classic hand method (K-factor balancing at junctions) on tree systems, for comparison; null otherwise. */
   handMethod: { sourcePressure: number; sourceFlow: number } | null;
   solves: number;
@@ -71,6 +74,8 @@ export interface CalculationStep {
   friction: number;
   /** 0.433 psi/ft × (elevation of `from` − elevation of `to`), psi. */
   elevationChange: number;
+  /** With normal pressure: the velocity pressure deducted where this pipe leaves its tee (`to`) from the side, psi; else 0. */
+  sideOutletDeduction: number;
   pressureFrom: number;
   pressureTo: number;
   velocity: number;
@@ -81,7 +86,11 @@ export interface FlowingHeadResult {
   node: string;
   kFactor: number;
   requiredPressure: number;
+  /** Total pressure at the head's node. */
   pressure: number;
+  /** The velocity pressure deducted (0 at the total pressure) and what the head flows at: flow = K·√(pressure − it). */
+  velocityPressure: number;
+  normalPressure: number;
   flow: number;
 }
 
@@ -109,8 +118,9 @@ export interface AreaDemand {
   criticalHeadId: string;
   solves: number;
   iterations: number;
-  /** The solve at the source pressure found. */
+  /** The solve at the source pressure found, and the normal-pressure deductions it was made with (null: none). */
   readonly state: SolveResult;
+  readonly drops: NormalPressureDrops | null;
 }
 
 /**
@@ -124,6 +134,8 @@ export class AreaCalculator {
   private readonly handleOf: Map<string, string>;
   private readonly hand: ReturnType<typeof kFactorWalk>;
   private lastPressure: number | undefined;
+  /** The pipes at each model node, when heads flow at the normal pressure (null: total pressure). */
+  private readonly pipesAt: number[][] | null;
 
   constructor(
     network: Network,
@@ -136,7 +148,16 @@ export class AreaCalculator {
     this.solver = new NetworkSolver(this.model);
     this.emitterOf = new Map(this.model.emitters.map((e, k) => [e.headId, k]));
     this.handleOf = new Map(mayFlow.map((f) => [f.head.id, f.head.handle]));
-    this.hand = kFactorWalk(this.model, HAND_METHOD_EXPONENT, this.solver.skeleton);
+    this.pipesAt = settings.design.velocityPressure ? pipesAtNodes(this.model) : null;
+    // The hand method balances total pressures: no comparison when heads flow at the normal pressure.
+    this.hand = this.pipesAt ? null : kFactorWalk(this.model, HAND_METHOD_EXPONENT, this.solver.skeleton);
+  }
+
+  /** A solve at source pressure P, at the heads' pressure basis (the normal pressure takes a few solves). */
+  private solveAt(P: number, open: Int32Array, keep: boolean): { state: SolveResult; solves: number; iterations: number } {
+    if (this.pipesAt) return solveAtNormalPressure(this.solver, this.pipesAt, P, open);
+    const state = this.solver.solve(P, open, keep);
+    return { state, solves: 1, iterations: state.iterations };
   }
 
   private openList(headIds: string[]): Int32Array {
@@ -149,7 +170,7 @@ export class AreaCalculator {
 
   /** One solve at source pressure P: the source flow, and whether every open head gets its required pressure. */
   satisfiedAt(headIds: string[], P: number): { satisfied: boolean; flow: number } {
-    const s = this.solver.solve(P, this.openList(headIds), false);
+    const s = this.solveAt(P, this.openList(headIds), false).state;
     let flow = 0;
     let satisfied = true;
     s.open.forEach((k, x) => {
@@ -164,12 +185,15 @@ export class AreaCalculator {
     const { model } = this;
     const open = this.openList(headIds);
     let solves = 0;
+    let trials = 0;
     let iterations = 0;
     /** Slack of the most demanding open head at source pressure P (≥ 0: every head is satisfied). */
     const slack = (P: number): Trial => {
-      const state = this.solver.solve(P, open);
-      solves++;
-      iterations += state.iterations;
+      const at = this.solveAt(P, open, true);
+      const state = at.state;
+      trials++;
+      solves += at.solves;
+      iterations += at.iterations;
       let value = Infinity;
       let critical = state.open[0]!;
       state.open.forEach((k, x) => {
@@ -185,7 +209,7 @@ export class AreaCalculator {
     const staticHead = maxOf(
       Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)),
     );
-    const found = findPressure(slack, staticHead, this.lastPressure, () => solves);
+    const found = findPressure(slack, staticHead, this.lastPressure, () => trials);
     this.lastPressure = found.P;
     return {
       headIds,
@@ -195,6 +219,7 @@ export class AreaCalculator {
       solves,
       iterations,
       state: found.state,
+      drops: found.state.solution?.drops ?? null,
     };
   }
 
@@ -207,6 +232,7 @@ export class AreaCalculator {
   hydraulicsOf(d: AreaDemand, hoseAllowance: number): AreaHydraulics {
     const { model, settings } = this;
     const s = this.solver.expand(d.state);
+    const drops = d.drops;
     const { sourcePressure: P, sourceFlow } = d;
     const totalDemand = sourceFlow + hoseAllowance;
     const supply = supplyOf(settings);
@@ -221,23 +247,27 @@ export class AreaCalculator {
       margin: supplyAvailable === null ? null : supplyAvailable - P,
       criticalHeadId: d.criticalHeadId,
       controllingHead: this.handleOf.get(d.criticalHeadId)!,
-      steps: stepsToSource(model, s, this.emitterOf.get(d.criticalHeadId)!),
+      steps: stepsToSource(model, s, drops, this.emitterOf.get(d.criticalHeadId)!),
       supplyPath: supply?.hasPath ? supply.steps(totalDemand) : [],
       heads: d.state.open.length
         ? Array.from(d.state.open, (k) => {
             const e = model.emitters[k]!;
+            const velocityPressure = drops?.emitter[k] ?? 0;
             return {
               handle: this.handleOf.get(e.headId)!,
               node: model.nodes[e.node]!.id,
               kFactor: e.k,
               requiredPressure: e.required,
               pressure: s.pressure[e.node]!,
+              velocityPressure,
+              normalPressure: s.pressure[e.node]! - velocityPressure,
               flow: s.emitterFlow[k]!,
             };
           })
         : [],
       ...busyTables(model, s, sourceFlow),
       riser: model.riser,
+      pressureBasis: this.pipesAt ? 'normal' : 'total',
       handMethod: hand && { sourcePressure: hand.pressure, sourceFlow: hand.flow },
       solves: d.solves,
       iterations: d.iterations,
@@ -290,7 +320,7 @@ function busyTables(model: HydraulicModel, s: FlowState, sourceFlow: number): Pi
  * The way from emitter `k`'s node to the source against the flow: at each node the pipe bringing it the most
  * water (flow runs from higher to lower head, so the way never turns back), one step per pipe.
  */
-function stepsToSource(model: HydraulicModel, s: FlowState, k: number): CalculationStep[] {
+function stepsToSource(model: HydraulicModel, s: FlowState, drops: NormalPressureDrops | null, k: number): CalculationStep[] {
   const incident: number[][] = model.nodes.map(() => []);
   model.pipes.forEach((p, i) => {
     incident[p.from]!.push(i);
@@ -322,6 +352,7 @@ function stepsToSource(model: HydraulicModel, s: FlowState, k: number): Calculat
       frictionPerLength: perLength,
       friction: p.r * flow ** HW_EXPONENT,
       elevationChange: PSI_PER_FT * (model.nodes[v]!.elevation - model.nodes[u]!.elevation),
+      sideOutletDeduction: drops ? (p.from === u ? 1 : -1) * drops.pipe[i]! : 0,
       pressureFrom: s.pressure[v]!,
       pressureTo: s.pressure[u]!,
       velocity: velocityFtPerS(flow, p.diameter),

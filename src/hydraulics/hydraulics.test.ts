@@ -28,6 +28,7 @@ const onePipe = (): HydraulicModel => ({
       diameter: 1.049,
       c: 120,
       r: resistance(100, 120, 1.049),
+      run: 0,
     },
   ],
   emitters: [{ node: 1, headId: 'H1', k: 5.6, required: 7 }],
@@ -96,6 +97,7 @@ describe('network solver', () => {
           diameter: 1.049,
           c: 120,
           r: resistance(10, 120, 1.049),
+          run: 0,
         },
         {
           id: 'B',
@@ -108,6 +110,7 @@ describe('network solver', () => {
           diameter: 1.049,
           c: 120,
           r: resistance(12, 120, 1.049),
+          run: 0,
         },
       ],
       emitters: [

@@ -24,6 +24,8 @@ export interface ModelPipe {
   diameter: number;
   c: number;
   r: number;
+  /** The straight run the pipe lies on (−1: the virtual riser); a pipe on another run than its feed leaves a tee from the side. */
+  run: number;
 }
 export interface Emitter {
   node: number;
@@ -87,6 +89,7 @@ export function buildModel(network: Network, sourceNodeId: string, flowing: Flow
         diameter: p.innerDiameter,
         c: p.cFactor,
         r: resistance(length, p.cFactor, p.innerDiameter),
+        run: p.run,
       };
     });
   // Heads on piping that does not reach the source cannot flow: they are no emitters of this model.
@@ -132,6 +135,7 @@ function addRiser(
     diameter: feed.innerDiameter,
     c: feed.cFactor,
     r: resistance(length, feed.cFactor, feed.innerDiameter),
+    run: -1,
   });
   return { source: nodes.length - 1, riser: { modelled: 'virtual', length, nominalSize: feed.nominalSize } };
 }

@@ -16,6 +16,7 @@ const pipe = (from: number, to: number, r: number) => ({
   diameter: 1,
   c: 120,
   r,
+  run: 0,
 });
 
 // S(0) — 1 — T(2) — 3 — 4 (end), and T(2) — 5 — 6 — back to T(2) (a loop), pipe 4 drawn backwards.

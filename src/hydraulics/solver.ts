@@ -10,6 +10,7 @@ import { EMITTER, HAZEN_WILLIAMS } from './laws.js';
 import type { HydraulicModel } from './model.js';
 import { buildSkeleton, type Skeleton } from './skeleton.js';
 import { SparseSpdSystem } from './sparse-cholesky.js';
+import type { NormalPressureDrops } from './velocity-pressure.js';
 
 /** Pressures and flows of the whole model. */
 export interface FlowState {
@@ -101,6 +102,8 @@ interface Iteration {
 
 interface Solution {
   live: LivePart;
+  /** The deductions the solve was made with (null: none). */
+  drops: NormalPressureDrops | null;
   anchorHead: Float64Array;
   headPotential: Float64Array;
   segmentFlow: Float64Array;
@@ -123,8 +126,13 @@ export class NetworkSolver {
   private readonly lastChainFlow: Float64Array;
   private readonly lastEmitterFlow: Float64Array;
   private work: Workspace;
+  /**
+   * Pressure each open head and each pipe entry deducts (normal pressure; null: none, total pressure). The solver
+   * takes them as fixed; whoever wants them consistent with the flows sets them again from the solve and repeats.
+   */
+  drops: NormalPressureDrops | null = null;
 
-  constructor(private readonly model: HydraulicModel) {
+  constructor(readonly model: HydraulicModel) {
     const sk = (this.skeleton = buildSkeleton(model));
     const couples = (a: number, b: number) => a !== sk.source && b !== sk.source && a !== b;
     const edges = sk.chains.filter((c) => couples(c.a, c.b)).map((c) => [c.a - 1, c.b - 1] as [number, number]);
@@ -289,13 +297,13 @@ export class NetworkSolver {
       const k = headEmitter[h]!;
       w.qH[h] = firstFlow(k);
       w.kH[h] = model.emitters[k]!.k;
-      w.zH[h] = zOf(model.emitters[k]!.node);
+      w.zH[h] = zOf(model.emitters[k]!.node) + (this.drops?.emitter[k] ?? 0);
     }
     for (let e = 0; e < nE; e++) {
       const k = anchorEmitters[e]!;
       w.qA[e] = firstFlow(k);
       w.kA[e] = model.emitters[k]!.k;
-      w.zA[e] = zOf(model.emitters[k]!.node);
+      w.zA[e] = zOf(model.emitters[k]!.node) + (this.drops?.emitter[k] ?? 0);
       w.atA[e] = this.emitterAnchor[k]!;
     }
     // Segments of each live chain: resistance, whether it reaches a linked end, and a first flow.
@@ -314,6 +322,7 @@ export class NetworkSolver {
         const from = j === 0 ? 0 : headIndex[h0 + j - 1]! + 1;
         const to = j === m ? c.nodes.length + 1 : headIndex[h0 + j]! + 1;
         w.segR[base + j] = c.cumR[to]! - c.cumR[from]!;
+        w.segD[base + j] = this.drops ? chainDrop(this.drops.pipe, c, from, to) : 0;
         w.segOn[base + j] = (j === 0 && !aLinked[i]) || (j === m && !bLinked[i]) ? 0 : 1;
         w.q[base + j] = w.segOn[base + j] ? flow : 0;
         if (j < m) flow -= w.qH[h0 + j]!;
@@ -348,7 +357,7 @@ export class NetworkSolver {
       const qx = w.q[x]!;
       const gx = 1 / Math.max(HAZEN_WILLIAMS.slope(w.segR[x]!, qx), MIN_SLOPE);
       w.g[x] = gx;
-      w.s[x] = qx - HAZEN_WILLIAMS.loss(w.segR[x]!, qx) * gx;
+      w.s[x] = qx - (HAZEN_WILLIAMS.loss(w.segR[x]!, qx) + w.segD[x]!) * gx;
     }
   }
 
@@ -484,7 +493,7 @@ export class NetworkSolver {
     for (let e = 0; e < nE; e++) put(e, anchorEmitters[e]!, w.anchorHead[w.atA[e]!]!, w.qA[e]!, w.zA[e]!);
     for (let h = 0; h < T; h++) put(nE + h, headEmitter[h]!, w.H[h]!, w.qH[h]!, w.zH[h]!);
     const solution = keep
-      ? { live, anchorHead: w.anchorHead.slice(0, nA), headPotential: w.H.slice(0, T), segmentFlow: w.q.slice(0, T + L) }
+      ? { live, drops: this.drops, anchorHead: w.anchorHead.slice(0, nA), headPotential: w.H.slice(0, T), segmentFlow: w.q.slice(0, T + L) }
       : null;
     return { open: openOut, pressure, flow, iterations: it.iterations, solution };
   }
@@ -493,7 +502,7 @@ export class NetworkSolver {
   expand(result: SolveResult): FlowState {
     const { model, skeleton: sk } = this;
     if (!result.solution) throw new Error('the solve did not keep its solution');
-    const { live, anchorHead, headPotential, segmentFlow } = result.solution;
+    const { live, drops, anchorHead, headPotential, segmentFlow } = result.solution;
     const H = new Float64Array(model.nodes.length);
     const flow = new Float64Array(model.pipes.length);
     const Hanchor = Float64Array.from(anchorHead);
@@ -511,7 +520,7 @@ export class NetworkSolver {
         for (let x = from; x < to; x++) {
           const k = c.pipes[x]!;
           flow[k] = q * c.sign[x]!;
-          h -= HAZEN_WILLIAMS.loss(model.pipes[k]!.r, q);
+          h -= HAZEN_WILLIAMS.loss(model.pipes[k]!.r, q) + (drops && linked ? drops.pipe[k]! * c.sign[x]! : 0);
           if (x < c.nodes.length) H[c.nodes[x]!] = h;
         }
       }
@@ -543,6 +552,13 @@ export class NetworkSolver {
     });
     return { pressure, flow, emitterFlow, iterations: result.iterations };
   }
+}
+
+/** The deductions at pipe entries along chain positions from … to, in the chain's a → b sense. */
+function chainDrop(pipeDrop: Float64Array, c: Skeleton['chains'][number], from: number, to: number): number {
+  let d = 0;
+  for (let x = from; x < to; x++) d += pipeDrop[c.pipes[x]!]! * c.sign[x]!;
+  return d;
 }
 
 /** Heads as links to the atmosphere at their own elevation z, linearised by the emitter law: q = g·H + c. */
@@ -581,6 +597,8 @@ function workspace(emitters: number, chains: number, anchors: number) {
     atA: new Int32Array(emitters),
     // segments of live chains, and the chains' end anchors
     segR: f(emitters + chains),
+    /** What the pipes' entries deduct along each segment, in the chain's a → b sense (normal pressure). */
+    segD: f(emitters + chains),
     q: f(emitters + chains),
     g: f(emitters + chains),
     s: f(emitters + chains),

@@ -1,6 +1,7 @@
 // The report JSON of the contract: every top-level key always present, values converted to the chosen
 // unit system, numbers rounded to a stated precision so reports are stable byte for byte.
 
+import { PRESSURE_BASIS, type PressureBasis } from '../hydraulics/velocity-pressure.js';
 import { LAYER_ROLES, type LayerRole } from '../config/settings.js';
 import type { Point } from '../geometry/point.js';
 import type { PipeRole } from '../network/types.js';
@@ -174,6 +175,8 @@ export interface ReportDesignArea {
     supplyPath: { part: number; type: string; name: string; flow: number; loss: number; pressureFrom: number; pressureTo: number }[];
     heads: FlowingHeadResult[];
     riser: { modelled: string; length: number; nominalSize: string };
+    /** Which pressure the heads flow at, and how, in words. */
+    pressureBasis: { basis: PressureBasis; method: string };
     handMethod: { sourcePressure: number; sourceFlow: number } | null;
     nodes: { id: string; pressure: number; flow: number; elevation: number }[];
     pipes: { id: string; flow: number; velocity: number; frictionLoss: number; equivalentLength: number; fittings: string[] }[];
@@ -419,6 +422,7 @@ function designAreasOf(r: ReportInput, c: Converter): ReportDesignArea[] {
           frictionPerLength: round(c.pressure(x.frictionPerLength) / c.length(1), 6),
           friction: round(c.pressure(x.friction)),
           elevationChange: round(c.pressure(x.elevationChange)),
+          sideOutletDeduction: round(c.pressure(x.sideOutletDeduction)),
           pressureFrom: round(c.pressure(x.pressureFrom)),
           pressureTo: round(c.pressure(x.pressureTo)),
           velocity: round(c.velocity(x.velocity)),
@@ -438,9 +442,12 @@ function designAreasOf(r: ReportInput, c: Converter): ReportDesignArea[] {
           kFactor: round(c.kFactor(x.kFactor), 3),
           requiredPressure: round(c.pressure(x.requiredPressure)),
           pressure: round(c.pressure(x.pressure)),
+          velocityPressure: round(c.pressure(x.velocityPressure)),
+          normalPressure: round(c.pressure(x.normalPressure)),
           flow: round(c.flow(x.flow)),
         })),
         riser: { modelled: h.riser.modelled, length: round(c.length(h.riser.length)), nominalSize: h.riser.nominalSize },
+        pressureBasis: { basis: h.pressureBasis, method: PRESSURE_BASIS[h.pressureBasis] },
         handMethod: h.handMethod && {
           sourcePressure: round(c.pressure(h.handMethod.sourcePressure)),
           sourceFlow: round(c.flow(h.handMethod.sourceFlow)),

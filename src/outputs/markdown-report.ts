@@ -1,6 +1,7 @@
 // The review summary in plain Markdown, to paste into a review letter: verdict, caution, findings with their
 // handles and places, each design area's demand and the supply's margin, and what was checked against what.
 
+import { PRESSURE_BASIS } from '../hydraulics/velocity-pressure.js';
 import type { Reviewed } from './reviewed.js';
 import { formatterFor } from '../quantities/format.js';
 import { CAUTION } from './caution.js';
@@ -78,6 +79,7 @@ export function markdownReport(r: Reviewed): string {
         ]),
       );
     }
+    out.push('', PRESSURE_BASIS[r.settings.design.velocityPressure ? 'normal' : 'total']);
   }
   const supply = r.settings.supply;
   out.push(

@@ -23,7 +23,6 @@ export const designAreaMissing: Rule<'design-area-missing'> = {
         }),
       );
     }
-    if (settings.design.velocityPressure) out.push(finding(this.meta, { params: { kind: 'velocity-pressure' }, handles: [], at }));
     for (const a of design.areas.filter((x) => !x.hydraulics)) {
       out.push(
         finding(this.meta, {

@@ -65,7 +65,6 @@ export interface FindingParams {
   'design-area-missing':
     | { kind: 'note'; note: string }
     | { kind: 'not-drawn' }
-    | { kind: 'velocity-pressure' }
     | { kind: 'not-calculated'; source: 'drawn' | 'search'; note: string };
   'pipe-size-defaulted': { pipes: string[]; size: string; reach: number; unreadLabels: string[] };
   'network-topology': {
@@ -174,8 +173,6 @@ export const MESSAGES: Templates = {
         return p.note;
       case 'not-drawn':
         return 'no design area is drawn (a closed polyline on the design-area layer): only the searched area is reported';
-      case 'velocity-pressure':
-        return 'velocity pressure is not modelled: total pressures are used at the heads (conservative)';
       case 'not-calculated':
         return `a ${p.source} design area was not calculated: ${p.note}`;
     }
