@@ -47,12 +47,12 @@ export function computeCoverage(heads: Head[], network: Network, walls: Walls): 
       walls,
     ),
   ];
-  const summaries = lines.map((l) => summarise(l, pos));
+  const index = new LineIndex(lines.map((l) => summarise(l, pos)));
   for (const line of lines) {
     const u = line.direction;
     const v = { x: -u.y, y: u.x };
     const along = line.headIds.map((id) => ({ id, t: dot(pos.get(id)!, u) })).sort((a, b) => a.t - b.t);
-    const near = linesNear(line, along, summaries, pos, v);
+    const near = linesNear(line, along, index, pos, v);
     along.forEach(({ id, t }, i) => {
       const p = pos.get(id)!;
       const before = i > 0 ? t - along[i - 1]!.t : null;
@@ -113,18 +113,83 @@ function summarise(line: BranchLine, pos: Map<string, Point>): LineSummary {
   };
 }
 
+/** Directions are grouped by their angle (mod 180°) rounded to this many radians. */
+const ANGLE_STEP = 1e-6;
+
+/**
+ * The lines by direction: each group, one angle to within ANGLE_STEP, sorted by its centroids' offset across the
+ * group's direction, so that the lines beside a line of the same direction are a window found by bisection.
+ */
+class LineIndex {
+  private readonly groups: { angle: number; normal: Point; offset: Float64Array; lines: LineSummary[] }[] = [];
+  /** How far an offset measured across one direction of a group can be from one across another, ft. */
+  private readonly slack: number;
+
+  constructor(all: LineSummary[]) {
+    const byAngle = new Map<number, LineSummary[]>();
+    let extent = 0;
+    for (const s of all) {
+      // A line whose centroid is not finite is beside no line (no offset to it is within reach): left out.
+      if (!Number.isFinite(s.centroid.x) || !Number.isFinite(s.centroid.y)) continue;
+      const key = angleKey(s.line.direction);
+      const list = byAngle.get(key);
+      if (list) list.push(s);
+      else byAngle.set(key, [s]);
+      extent = Math.max(extent, Math.abs(s.centroid.x), Math.abs(s.centroid.y));
+    }
+    this.slack = 4 * ANGLE_STEP * extent + 1e-3;
+    for (const [key, list] of byAngle) {
+      const normal = { x: -list[0]!.line.direction.y, y: list[0]!.line.direction.x };
+      const sorted = list.map((line) => ({ line, offset: dot(line.centroid, normal) })).sort((a, b) => a.offset - b.offset);
+      this.groups.push({ angle: key, normal, offset: Float64Array.from(sorted, (x) => x.offset), lines: sorted.map((x) => x.line) });
+    }
+  }
+
+  /**
+   * A superset of the lines whose centroid lies between `lo` and `hi` across a line of direction u (normal v):
+   * in the group of u's own direction by bisection, in every other group whole (they are few, or not parallel).
+   */
+  around(u: Point, v: Point, lo: number, hi: number): LineSummary[] {
+    const key = angleKey(u);
+    const out: LineSummary[] = [];
+    for (const g of this.groups) {
+      if (g.angle !== key) {
+        out.push(...g.lines);
+        continue;
+      }
+      const sign = dot(v, g.normal) >= 0 ? 1 : -1;
+      const a = (sign > 0 ? lo : -hi) - this.slack;
+      const b = (sign > 0 ? hi : -lo) + this.slack;
+      for (let i = lowerBound(g.offset, a); i < g.offset.length && g.offset[i]! <= b; i++) out.push(g.lines[i]!);
+    }
+    return out;
+  }
+}
+
+/** A direction's angle mod 180°, in steps of ANGLE_STEP. */
+function angleKey(u: Point): number {
+  const angle = Math.atan2(u.y, u.x);
+  return Math.round((angle < 0 ? angle + Math.PI : angle) / ANGLE_STEP) % Math.round(Math.PI / ANGLE_STEP);
+}
+
+/** The first index whose value is ≥ x in an ascending array. */
+function lowerBound(values: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = values.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (values[mid]! < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
 /**
  * The lines that `adjacentLines` could accept for some head of `line`: its tests, taken over the range of the
- * line's heads (along u and across it), are necessary for each head. One pass over the lines per line, so the
- * heads × lines loop becomes heads × neighbours.
+ * line's heads (along u and across it), are necessary for each head. The index gives the lines across within
+ * reach, so the heads × lines loop becomes heads × neighbours.
  */
-function linesNear(
-  line: BranchLine,
-  along: { id: string; t: number }[],
-  others: LineSummary[],
-  pos: Map<string, Point>,
-  v: Point,
-): LineSummary[] {
+function linesNear(line: BranchLine, along: { id: string; t: number }[], index: LineIndex, pos: Map<string, Point>, v: Point): LineSummary[] {
   const u = line.direction;
   const tLo = along[0]!.t;
   const tHi = along.at(-1)!.t;
@@ -135,7 +200,7 @@ function linesNear(
     vLo = Math.min(vLo, w);
     vHi = Math.max(vHi, w);
   }
-  return others.filter((other) => {
+  return index.around(u, v, vLo - REACH_FT, vHi + REACH_FT).filter((other) => {
     if (other.line === line || Math.abs(cross(other.line.direction, u)) > PARALLEL_SIN) return false;
     const t0 = dot(other.ends[0], u);
     const t1 = dot(other.ends[1], u);
