@@ -23,7 +23,9 @@ function bruteForce(p: Point, own: BranchLine, lines: BranchLine[], pos: Map<str
     if (other === own || Math.abs(d.x * u.y - d.y * u.x) > Math.sin((10 * Math.PI) / 180)) continue;
     const pts = other.headIds.map((id) => pos.get(id)!);
     const ts = pts.map((q) => q.x * u.x + q.y * u.y);
-    const spacing = (Math.max(...pts.map((q) => q.x * d.x + q.y * d.y)) - Math.min(...pts.map((q) => q.x * d.x + q.y * d.y))) / Math.max(1, pts.length - 1);
+    const spacing =
+      (Math.max(...pts.map((q) => q.x * d.x + q.y * d.y)) - Math.min(...pts.map((q) => q.x * d.x + q.y * d.y))) /
+      Math.max(1, pts.length - 1);
     const slack = Math.max(spacing, 1) * 0.75;
     const tp = p.x * u.x + p.y * u.y;
     // the extent along u from the two end heads along the other line's own direction

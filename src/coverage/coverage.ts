@@ -189,7 +189,13 @@ function lowerBound(values: Float64Array, x: number): number {
  * line's heads (along u and across it), are necessary for each head. The index gives the lines across within
  * reach, so the heads × lines loop becomes heads × neighbours.
  */
-function linesNear(line: BranchLine, along: { id: string; t: number }[], index: LineIndex, pos: Map<string, Point>, v: Point): LineSummary[] {
+function linesNear(
+  line: BranchLine,
+  along: { id: string; t: number }[],
+  index: LineIndex,
+  pos: Map<string, Point>,
+  v: Point,
+): LineSummary[] {
   const u = line.direction;
   const tLo = along[0]!.t;
   const tHi = along.at(-1)!.t;
