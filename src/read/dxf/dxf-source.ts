@@ -42,7 +42,7 @@ export function dxfSource(bytes: Uint8Array, limits: Pick<InputLimits, 'entities
       const stop = block.rows.end > block.rows.first ? table.start[block.rows.first]! : block.end;
       while (c.next() && c.start < stop) {
         if (c.code === 0 && c.start > block.start) break;
-        const v = Number(c.latin1());
+        const v = c.number();
         if (c.code === 10 && Number.isFinite(v)) base.x = v;
         else if (c.code === 20 && Number.isFinite(v)) base.y = v;
       }

@@ -39,7 +39,7 @@ export class EntityReader {
 
   /** The value as a number; a value that is no number reads as `fallback`. */
   number(fallback = 0): number {
-    const v = Number(this.c.latin1());
+    const v = this.c.number();
     return Number.isFinite(v) ? v : fallback;
   }
 

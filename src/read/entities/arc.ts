@@ -18,7 +18,7 @@ export const ARC: EntityKind<Arc> = {
   shape: 'stroke',
   decode(r, base) {
     const center = origin();
-    const e: Arc = { ...base, center, radius: 0, startDeg: 0, endDeg: 0 };
+    const e: Arc = { center, radius: 0, startDeg: 0, endDeg: 0, ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       if (r.code === 10) center.x = r.number();

@@ -14,7 +14,7 @@ export const ATTDEF: EntityKind<AttDef> = {
   type: 'ATTDEF',
   shape: 'other',
   decode(r, base) {
-    const e: AttDef = { ...base, tag: '', value: '' };
+    const e: AttDef = { tag: '', value: '', ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       if (r.code === 2) e.tag = r.text();

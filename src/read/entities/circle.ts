@@ -18,7 +18,7 @@ export const CIRCLE: EntityKind<Circle> = {
   shape: 'outline',
   decode(r, base) {
     const center = origin();
-    const e: Circle = { ...base, center, radius: 0 };
+    const e: Circle = { center, radius: 0, ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       if (r.code === 10) center.x = r.number();

@@ -29,7 +29,6 @@ export const INSERT: EntityKind<Insert> = {
   decode(r, base) {
     const at = origin();
     const e: Insert = {
-      ...base,
       block: '',
       at,
       scaleX: 1,
@@ -40,6 +39,7 @@ export const INSERT: EntityKind<Insert> = {
       columnSpacing: 0,
       rowSpacing: 0,
       attributes: {},
+      ...base,
     };
     // After the first ATTRIB record, groups belong to attributes: a tag (2) and a value (1) each.
     let attribute: { tag: string; value: string } | null = null;

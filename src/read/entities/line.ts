@@ -15,7 +15,7 @@ export const LINE: EntityKind<Line> = {
   decode(r, base) {
     const a = origin();
     const b = origin();
-    const e: Line = { ...base, a, b };
+    const e: Line = { a, b, ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       if (r.code === 10) a.x = r.number();

@@ -12,7 +12,7 @@ export const LWPOLYLINE: EntityKind<PolylineShape> = {
   scan: { closedBit: true },
   decode(r, base) {
     const vertices: Vertex[] = [];
-    const e: PolylineShape = { ...base, vertices, closed: false };
+    const e: PolylineShape = { vertices, closed: false, ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       const last = vertices.at(-1);

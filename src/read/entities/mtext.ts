@@ -19,7 +19,7 @@ export const MTEXT: EntityKind<MText> = {
   decode(r, base) {
     const at = origin();
     let raw = '';
-    const e: MText = { ...base, at, height: 0, text: '' };
+    const e: MText = { at, height: 0, text: '', ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       if (r.code === 10) at.x = r.number();

@@ -13,7 +13,7 @@ export const POINT: EntityKind<PointEntity> = {
   shape: 'point',
   decode(r, base) {
     const at = origin();
-    const e: PointEntity = { ...base, at };
+    const e: PointEntity = { at, ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       if (r.code === 10) at.x = r.number();

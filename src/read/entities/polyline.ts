@@ -22,7 +22,7 @@ export const POLYLINE: EntityKind<Polyline> = {
   scan: { closedBit: true },
   decode(r, base) {
     const vertices: Vertex[] = [];
-    const e: Polyline = { ...base, vertices, closed: false, is3d: false, mesh: false };
+    const e: Polyline = { vertices, closed: false, is3d: false, mesh: false, ...base };
     let vertex: Vertex | null = null;
     let done = false;
     while (r.next()) {

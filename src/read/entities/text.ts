@@ -20,7 +20,7 @@ export const TEXT: EntityKind<Text> = {
   scan: { label: true },
   decode(r, base) {
     const at = origin();
-    const e: Text = { ...base, at, alignAt: null, aligned: false, height: 0, text: '' };
+    const e: Text = { at, alignAt: null, aligned: false, height: 0, text: '', ...base };
     while (r.next()) {
       if (takeCommon(r, e)) continue;
       switch (r.code) {
