@@ -53,8 +53,10 @@ const lineSpec = fc.record({
   n: fc.integer({ min: 1, max: 8 }),
 });
 
+type LineSpec = typeof lineSpec extends fc.Arbitrary<infer T> ? T : never;
+
 /** The lines' heads 12 ft apart, all moved far from the origin. */
-function layout(specs: fc.RecordValue<typeof lineSpec>[], origin: Point): { heads: Head[]; network: Network } {
+function layout(specs: LineSpec[], origin: Point): { heads: Head[]; network: Network } {
   const heads: Head[] = [];
   const lines: BranchLine[] = [];
   for (const [k, spec] of specs.entries()) {

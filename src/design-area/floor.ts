@@ -4,7 +4,7 @@
 import type { Coverage } from '../coverage/coverage.js';
 import { clipPolygon } from '../geometry/clip.js';
 import { dot, type Point } from '../geometry/point.js';
-import { signedArea } from '../geometry/polygon.js';
+import { convexHolds, signedArea } from '../geometry/polygon.js';
 import { unionOfRects, type Rect } from '../geometry/rect-union.js';
 import type { Head } from '../read/plan.js';
 import type { Outline } from '../read/types.js';
@@ -45,7 +45,9 @@ export function floorOf(
   const inRoom = rooms.length === 1 && rooms[0] ? rooms[0].points : null;
   const outline = rings
     .map((r) => r.map(world))
-    .flatMap((ring) => (inRoom && signedArea(ring) > 0 ? clipPolygon(ring, inRoom).map(anticlockwise) : [ring]));
+    .flatMap((ring) =>
+      inRoom && signedArea(ring) > 0 && !convexHolds(inRoom, ring) ? clipPolygon(ring, inRoom).map(anticlockwise) : [ring],
+    );
   const byLine = new Map<string, Rect[]>();
   heads.forEach((h, k) => {
     const line = coverage.get(h.id)?.branchLine ?? h.id;

@@ -1,7 +1,9 @@
-// Polygon clipping against hand-worked overlaps (common practice, no source).
+// Polygon clipping against hand-worked overlaps, and the test that spares it where the room holds the ring
+// (common practice, no source).
 
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { signedArea } from './polygon.js';
+import { convexHolds, signedArea } from './polygon.js';
 import { clipPolygon } from './clip.js';
 
 const square = (x: number, y: number, s: number) => [
@@ -40,5 +42,49 @@ describe('clipPolygon', () => {
     ];
     const pieces = clipPolygon(bar, l).map((p) => Math.abs(signedArea(p)));
     expect(pieces.sort()).toEqual([expect.closeTo(8, 9), expect.closeTo(8, 9)]);
+  });
+});
+
+describe('convexHolds: when a clip would give the ring back', () => {
+  const star = Array.from({ length: 5 }, (_, k) => ({ x: Math.cos((4 * Math.PI * k) / 5), y: Math.sin((4 * Math.PI * k) / 5) }));
+  it('a convex room holding the ring, its boundary included; not one it sticks out of', () => {
+    expect(convexHolds(square(0, 0, 10), square(2, 2, 3))).toBe(true);
+    expect(convexHolds(square(0, 0, 10), square(0, 0, 10))).toBe(true);
+    expect(convexHolds(square(0, 0, 10), square(8, 8, 3))).toBe(false);
+    expect(convexHolds([...square(0, 0, 10)].reverse(), square(2, 2, 3))).toBe(true);
+  });
+  it('never for a room that is not convex (an L, a star whose turns all go one way), nor a degenerate one', () => {
+    const l = [
+      { x: 0, y: 0 },
+      { x: 10, y: 0 },
+      { x: 10, y: 10 },
+      { x: 6, y: 10 },
+      { x: 6, y: 4 },
+      { x: 0, y: 4 },
+    ];
+    expect(convexHolds(l, square(1, 1, 2))).toBe(false);
+    expect(convexHolds(star, [{ x: 0, y: 0 }])).toBe(false);
+    expect(convexHolds([square(0, 0, 1)[0]!, square(0, 0, 1)[1]!], [{ x: 0, y: 0 }])).toBe(false);
+  });
+  it('where it holds, the clip gives the ring back (random rings in random convex rooms)', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 3, max: 9 }),
+        fc.double({ min: 5, max: 50, noNaN: true }),
+        fc.record({ x: fc.double({ min: -40, max: 40, noNaN: true }), y: fc.double({ min: -40, max: 40, noNaN: true }) }),
+        fc.double({ min: 1, max: 30, noNaN: true }),
+        (sides, radius, at, size) => {
+          const room = Array.from({ length: sides }, (_, k) => ({
+            x: radius * Math.cos((2 * Math.PI * k) / sides),
+            y: radius * Math.sin((2 * Math.PI * k) / sides),
+          }));
+          const ring = square(at.x, at.y, size);
+          const area = clipPolygon(ring, room).reduce((s, p) => s + Math.abs(signedArea(p)), 0);
+          if (convexHolds(room, ring)) expect(area).toBeCloseTo(size * size, 6);
+          else expect(area).toBeLessThan(size * size * (1 + 1e-9));
+        },
+      ),
+      { numRuns: 300 },
+    );
   });
 });
