@@ -53,7 +53,6 @@ export async function checkDrawingFile(
   options: { reportUnits: UnitSystem; requireHydraulics: boolean; dwgThread: DwgThread },
 ): Promise<CheckResult> {
   const { bytes, sha256, dwgVersion } = await drawingBytes(file, settings, options.dwgThread);
-  const onStage = collectBetweenStages(bytes.length);
   const input = {
     bytes,
     fileName: file,
@@ -62,7 +61,7 @@ export async function checkDrawingFile(
     settings,
     reportUnits: options.reportUnits,
     requireHydraulics: options.requireHydraulics,
-    ...(onStage ? { onStage } : {}),
+    onStage: collectBetweenStages(),
   };
   return withFile(file, () => runCheck(input));
 }
