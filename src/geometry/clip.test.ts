@@ -13,6 +13,18 @@ const square = (x: number, y: number, s: number) => [
   { x, y: y + s },
 ];
 
+/** A room of two 4-wide arms rising from a 4-deep base, 10 × 10 in all. */
+const twoArms = [
+  { x: 0, y: 0 },
+  { x: 10, y: 0 },
+  { x: 10, y: 10 },
+  { x: 6, y: 10 },
+  { x: 6, y: 4 },
+  { x: 4, y: 4 },
+  { x: 4, y: 10 },
+  { x: 0, y: 10 },
+];
+
 describe('clipPolygon', () => {
   it('keeps the overlap of two squares: 10 × 10 and 10 × 10 offset by (5, 5) share 25', () => {
     expect(clipPolygon(square(0, 0, 10), square(5, 5, 10)).map((p) => Math.abs(signedArea(p)))).toEqual([expect.closeTo(25, 9)]);
@@ -23,24 +35,14 @@ describe('clipPolygon', () => {
   it('returns no piece when they do not overlap', () => {
     expect(clipPolygon(square(0, 0, 1), square(5, 5, 1))).toEqual([]);
   });
-  it('returns both pieces of a bar across an L: a 10 × 2 bar over an L of two 4-wide arms keeps 4 × 2 twice', () => {
-    const l = [
-      { x: 0, y: 0 },
-      { x: 10, y: 0 },
-      { x: 10, y: 10 },
-      { x: 6, y: 10 },
-      { x: 6, y: 4 },
-      { x: 4, y: 4 },
-      { x: 4, y: 10 },
-      { x: 0, y: 10 },
-    ];
+  it('returns both pieces of a bar across two arms: a 10 × 2 bar over two 4-wide arms keeps 4 × 2 twice', () => {
     const bar = [
       { x: -1, y: 6 },
       { x: 11, y: 6 },
       { x: 11, y: 8 },
       { x: -1, y: 8 },
     ];
-    const pieces = clipPolygon(bar, l).map((p) => Math.abs(signedArea(p)));
+    const pieces = clipPolygon(bar, twoArms).map((p) => Math.abs(signedArea(p)));
     expect(pieces.sort()).toEqual([expect.closeTo(8, 9), expect.closeTo(8, 9)]);
   });
 });
@@ -53,16 +55,8 @@ describe('convexHolds: when a clip would give the ring back', () => {
     expect(convexHolds(square(0, 0, 10), square(8, 8, 3))).toBe(false);
     expect(convexHolds([...square(0, 0, 10)].reverse(), square(2, 2, 3))).toBe(true);
   });
-  it('never for a room that is not convex (an L, a star whose turns all go one way), nor a degenerate one', () => {
-    const l = [
-      { x: 0, y: 0 },
-      { x: 10, y: 0 },
-      { x: 10, y: 10 },
-      { x: 6, y: 10 },
-      { x: 6, y: 4 },
-      { x: 0, y: 4 },
-    ];
-    expect(convexHolds(l, square(1, 1, 2))).toBe(false);
+  it('never for a room that is not convex (two arms, a star whose turns all go one way), nor a degenerate one', () => {
+    expect(convexHolds(twoArms, square(1, 1, 2))).toBe(false);
     expect(convexHolds(star, [{ x: 0, y: 0 }])).toBe(false);
     expect(convexHolds([square(0, 0, 1)[0]!, square(0, 0, 1)[1]!], [{ x: 0, y: 0 }])).toBe(false);
   });
