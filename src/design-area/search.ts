@@ -7,8 +7,8 @@
 // P, the area needs at most P and then flows at most Q(P): its score (source pressure, or pressure short of the
 // supply) is at most P − supply(Q(P) + hose), as long as the supply does not rise with flow (a flow test, pipes and
 // devices never do; a pump whose curve rises somewhere does, and then every candidate is calculated). The proof
-// and the bounds cover pipes and heads flowing at the total pressure: at the normal pressure every candidate is
-// calculated too.
+// and the bounds cover pipes and heads flowing at the total pressure: with velocity pressure asked for, the areas
+// are ranked at the total pressure and the two found are calculated at the normal pressure (ranked again so).
 //
 // One solve proves several placements at once: opening more heads lowers every node's pressure and raises the
 // source flow at a given source pressure (the same comparison principle: the added outflow pulls every head
@@ -72,6 +72,33 @@ export function searchMostDemanding(
   hose: number,
   options: { prune?: boolean } = {},
 ): SearchOutcome {
+  if (!settings.design.velocityPressure) return searchAtTotalPressure(network, sourceNodeId, groups, flowingOf, settings, hose, options);
+  const totalBasis = { ...settings, design: { ...settings.design, velocityPressure: false } };
+  const found = searchAtTotalPressure(network, sourceNodeId, groups, flowingOf, totalBasis, hose, options);
+  const chosen = [found.best, found.runnerUp].flatMap((x) => (x ? [x.candidate] : []));
+  if (!chosen.length) return found;
+  const calculator = new AreaCalculator(network, sourceNodeId, flowingOf([...new Set(chosen.flatMap((c) => c.headIds))]), settings);
+  const supply = supplyOf(settings);
+  const atNormal = chosen
+    .map((candidate) => {
+      const hydraulics = calculator.calculate(candidate.headIds, hose);
+      const score = supply ? hydraulics.sourcePressure - supply.available(hydraulics.totalDemand) : hydraulics.sourcePressure;
+      return { candidate, hydraulics, score };
+    })
+    .sort((a, b) => b.score - a.score);
+  return { ...found, best: atNormal[0] ?? null, runnerUp: atNormal[1] ?? null };
+}
+
+/** The search proper, every head at the total pressure. */
+function searchAtTotalPressure(
+  network: Network,
+  sourceNodeId: string,
+  groups: CandidateGroup[],
+  flowingOf: (ids: string[]) => FlowingHead[],
+  settings: Settings,
+  hose: number,
+  options: { prune?: boolean },
+): SearchOutcome {
   const candidates = groups.reduce((n, g) => n + memberCount(g), 0);
   // Every head any candidate flows (a set filled head by head: the flat list of all candidates' heads would be
   // twenty times as long as the set).
@@ -80,9 +107,8 @@ export function searchMostDemanding(
   const all = flowingOf([...anyArea]);
   if (all.length === 0) return { best: null, runnerUp: null, candidates, evaluated: 0, screened: 0, solves: 0, pruned: false };
   const supply = supplyOf(settings);
-  // The proof needs a supply that never rises with flow (a pump curve that rises somewhere turns pruning off), and
-  // heads that flow at the total pressure.
-  const prune = options.prune !== false && (supply === null || supply.nonIncreasing) && !settings.design.velocityPressure;
+  // The proof needs a supply that never rises with flow (a pump curve that rises somewhere turns pruning off).
+  const prune = options.prune !== false && (supply === null || supply.nonIncreasing);
   const calculator = new AreaCalculator(network, sourceNodeId, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
   const scoreAt = (pressure: number, flow: number) => (supply ? pressure - supply.available(flow + hose) : pressure);

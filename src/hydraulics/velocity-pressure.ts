@@ -17,7 +17,8 @@ export const PRESSURE_BASIS = {
     'Heads flow at the normal pressure, total less velocity pressure, as NFPA 13 (2016 edition), 23.4.4.10 permits, on branch lines ' +
     'and cross mains alike: at a head the water runs past, and where a pipe leaves a tee from the side while the water runs on along ' +
     'the tee, the velocity pressure of the pipe feeding it (the pipe upstream: flow found by iteration) is deducted; at an end head and ' +
-    'where the run ends in the tee, nothing is (from memory: the standard’s explanatory annex; check it against the adopted edition).',
+    'where the run ends in the tee, nothing is (from memory: the standard’s explanatory annex; check it against the adopted edition). ' +
+    'A searched design area is found at the total pressure, where the search’s proof holds, and calculated at the normal pressure.',
 } as const;
 export type PressureBasis = keyof typeof PRESSURE_BASIS;
 
