@@ -192,7 +192,11 @@ describe('the check with velocityPressure', () => {
     expect(normal.report.design.search).toEqual(total.report.design.search);
     expect(normal.report.design.search?.evaluated).toBeLessThan(normal.report.design.search!.candidates);
     const areas = (r: typeof normal) => r.report.designAreas.filter((a) => a.rank !== null);
-    expect(areas(normal).map((a) => [...a.heads].sort())).toEqual(areas(total).map((a) => [...a.heads].sort()).slice(0, 2));
+    expect(areas(normal).map((a) => [...a.heads].sort())).toEqual(
+      areas(total)
+        .map((a) => [...a.heads].sort())
+        .slice(0, 2),
+    );
     // ranked again at the normal pressure: the most demanding needs at least what the runner-up needs
     const [best, runnerUp] = areas(normal).map((a) => a.hydraulics!);
     expect(best!.sourcePressure).toBeGreaterThanOrEqual(runnerUp!.sourcePressure - 1e-9);
