@@ -60,6 +60,32 @@ const WINDOW = 2;
 const placementsOf = (g: CandidateGroup, from: number, count: number): CandidateGroup =>
   g.next ? { ...g, next: { ...g.next, first: g.next.first + from, last: g.next.first + from + count - 1 } } : g;
 
+/** An area's score: the supply's shortfall at the source (−margin) with a supply, else the source pressure. */
+const demandScore = (supply: ReturnType<typeof supplyOf>, pressure: number, totalFlow: number): number =>
+  supply ? pressure - supply.available(totalFlow) : pressure;
+
+/** The two areas a search at the total pressure found, calculated at the normal pressure and ranked again. */
+function rankedAtNormalPressure(
+  found: SearchOutcome,
+  network: Network,
+  sourceNodeId: string,
+  flowingOf: (ids: string[]) => FlowingHead[],
+  settings: Settings,
+  hose: number,
+): Pick<SearchOutcome, 'best' | 'runnerUp'> {
+  const chosen = [found.best, found.runnerUp].flatMap((x) => (x ? [x.candidate] : []));
+  if (!chosen.length) return found;
+  const calculator = new AreaCalculator(network, sourceNodeId, flowingOf([...new Set(chosen.flatMap((c) => c.headIds))]), settings);
+  const supply = supplyOf(settings);
+  const ranked = chosen
+    .map((candidate) => {
+      const hydraulics = calculator.calculate(candidate.headIds, hose);
+      return { candidate, hydraulics, score: demandScore(supply, hydraulics.sourcePressure, hydraulics.totalDemand) };
+    })
+    .sort((a, b) => b.score - a.score);
+  return { best: ranked[0] ?? null, runnerUp: ranked[1] ?? null };
+}
+
 /** Margin over the solver's pressure tolerance when comparing scores, psi. */
 const SCORE_TOL = 1e-5;
 
@@ -72,33 +98,11 @@ export function searchMostDemanding(
   hose: number,
   options: { prune?: boolean } = {},
 ): SearchOutcome {
-  if (!settings.design.velocityPressure) return searchAtTotalPressure(network, sourceNodeId, groups, flowingOf, settings, hose, options);
-  const totalBasis = { ...settings, design: { ...settings.design, velocityPressure: false } };
-  const found = searchAtTotalPressure(network, sourceNodeId, groups, flowingOf, totalBasis, hose, options);
-  const chosen = [found.best, found.runnerUp].flatMap((x) => (x ? [x.candidate] : []));
-  if (!chosen.length) return found;
-  const calculator = new AreaCalculator(network, sourceNodeId, flowingOf([...new Set(chosen.flatMap((c) => c.headIds))]), settings);
-  const supply = supplyOf(settings);
-  const atNormal = chosen
-    .map((candidate) => {
-      const hydraulics = calculator.calculate(candidate.headIds, hose);
-      const score = supply ? hydraulics.sourcePressure - supply.available(hydraulics.totalDemand) : hydraulics.sourcePressure;
-      return { candidate, hydraulics, score };
-    })
-    .sort((a, b) => b.score - a.score);
-  return { ...found, best: atNormal[0] ?? null, runnerUp: atNormal[1] ?? null };
-}
-
-/** The search proper, every head at the total pressure. */
-function searchAtTotalPressure(
-  network: Network,
-  sourceNodeId: string,
-  groups: CandidateGroup[],
-  flowingOf: (ids: string[]) => FlowingHead[],
-  settings: Settings,
-  hose: number,
-  options: { prune?: boolean },
-): SearchOutcome {
+  if (settings.design.velocityPressure) {
+    const atTotal = { ...settings, design: { ...settings.design, velocityPressure: false } };
+    const found = searchMostDemanding(network, sourceNodeId, groups, flowingOf, atTotal, hose, options);
+    return { ...found, ...rankedAtNormalPressure(found, network, sourceNodeId, flowingOf, settings, hose) };
+  }
   const candidates = groups.reduce((n, g) => n + memberCount(g), 0);
   // Every head any candidate flows (a set filled head by head: the flat list of all candidates' heads would be
   // twenty times as long as the set).
@@ -111,7 +115,7 @@ function searchAtTotalPressure(
   const prune = options.prune !== false && (supply === null || supply.nonIncreasing);
   const calculator = new AreaCalculator(network, sourceNodeId, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
-  const scoreAt = (pressure: number, flow: number) => (supply ? pressure - supply.available(flow + hose) : pressure);
+  const scoreAt = (pressure: number, flow: number) => demandScore(supply, pressure, flow + hose);
   const scoreOf = (d: Demand | null | undefined) => (d ? scoreAt(d.pressure, d.flow) : null);
   /** The two most demanding areas calculated so far. */
   const top: { best: Scored | null; runnerUp: Scored | null } = { best: null, runnerUp: null };

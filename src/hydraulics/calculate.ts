@@ -5,10 +5,10 @@ import type { Settings } from '../config/settings.js';
 import type { Network } from '../network/types.js';
 import { frictionPsiPerFt, HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
-import { buildModel, type FlowingHead, type HydraulicModel } from './model.js';
+import { buildModel, pipesAtNodes, type FlowingHead, type HydraulicModel } from './model.js';
 import { NetworkSolver, type FlowState, type SolveResult } from './solver.js';
 import { type PathStep, supplyOf } from './supply-path.js';
-import { pipesAtNodes, solveAtNormalPressure, type NormalPressureDrops, type PressureBasis } from './velocity-pressure.js';
+import { solveAtNormalPressure, type NormalPressureDrops, type PressureBasis } from './velocity-pressure.js';
 import { maxOf } from '../arrays.js';
 
 export interface AreaHydraulics {
@@ -321,11 +321,7 @@ function busyTables(model: HydraulicModel, s: FlowState, sourceFlow: number): Pi
  * water (flow runs from higher to lower head, so the way never turns back), one step per pipe.
  */
 function stepsToSource(model: HydraulicModel, s: FlowState, drops: NormalPressureDrops | null, k: number): CalculationStep[] {
-  const incident: number[][] = model.nodes.map(() => []);
-  model.pipes.forEach((p, i) => {
-    incident[p.from]!.push(i);
-    incident[p.to]!.push(i);
-  });
+  const incident = pipesAtNodes(model);
   const steps: CalculationStep[] = [];
   const seen = new Set<number>();
   for (let v = model.emitters[k]!.node; v !== model.source && !seen.has(v); ) {

@@ -2,7 +2,7 @@
 // method; with 1/1.85 a safe upper bound on the demand, which prunes the design-area search.
 
 import { HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
-import type { Emitter, HydraulicModel } from './model.js';
+import { pipesAtNodes, type Emitter, type HydraulicModel } from './model.js';
 import { buildSkeleton, type Skeleton } from './skeleton.js';
 import { maxOf, minOf } from '../arrays.js';
 
@@ -487,11 +487,7 @@ function breadthFirst(model: HydraulicModel): { order: number[]; parentPipe: Int
   const n = model.nodes.length;
   const parentPipe = new Int32Array(n).fill(-1);
   const parentNode = new Int32Array(n).fill(-1);
-  const incident: number[][] = model.nodes.map(() => []);
-  model.pipes.forEach((p, k) => {
-    incident[p.from]!.push(k);
-    incident[p.to]!.push(k);
-  });
+  const incident = pipesAtNodes(model);
   const seen = new Uint8Array(n);
   const order = [model.source];
   seen[model.source] = 1;

@@ -140,6 +140,16 @@ function addRiser(
   return { source: nodes.length - 1, riser: { modelled: 'virtual', length, nominalSize: feed.nominalSize } };
 }
 
+/** The pipes at each node of a model, by index. */
+export function pipesAtNodes(model: Pick<HydraulicModel, 'nodes' | 'pipes'>): number[][] {
+  const at: number[][] = model.nodes.map(() => []);
+  model.pipes.forEach((p, k) => {
+    at[p.from]!.push(k);
+    at[p.to]!.push(k);
+  });
+  return at;
+}
+
 /** The network's nodes and pipes by index: each pipe's ends, and the pipes at each node. */
 interface Indexed {
   from: Int32Array;

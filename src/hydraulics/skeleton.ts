@@ -1,7 +1,7 @@
 // The hydraulic model seen as anchors (the source and every node where pipes do not simply continue) joined
 // by chains of pipes in series; a design area's solve works on this, with only its open heads added.
 
-import type { HydraulicModel } from './model.js';
+import { pipesAtNodes, type HydraulicModel } from './model.js';
 
 /** A run of pipes in series from anchor `a` to anchor `b` (a = b for a loop on one anchor). */
 export interface Chain {
@@ -33,11 +33,7 @@ export interface Skeleton {
 
 export function buildSkeleton(model: HydraulicModel): Skeleton {
   const n = model.nodes.length;
-  const incident: number[][] = Array.from({ length: n }, () => []);
-  model.pipes.forEach((p, k) => {
-    incident[p.from]!.push(k);
-    incident[p.to]!.push(k);
-  });
+  const incident = pipesAtNodes(model);
   const anchorOf = new Int32Array(n).fill(-1);
   const anchorNode: number[] = [];
   const makeAnchor = (v: number) => {

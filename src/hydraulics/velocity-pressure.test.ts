@@ -4,9 +4,9 @@
 import { describe, expect, it } from 'vitest';
 import { checkLayout } from '../../test/support/check.js';
 import { frictionPsiPerFt, resistance } from './hazen-williams.js';
-import type { HydraulicModel, ModelPipe } from './model.js';
+import { pipesAtNodes, type HydraulicModel, type ModelPipe } from './model.js';
 import { NetworkSolver } from './solver.js';
-import { normalPressureDrops, pipesAtNodes, solveAtNormalPressure, velocityPressurePsi } from './velocity-pressure.js';
+import { normalPressureDrops, solveAtNormalPressure, velocityPressurePsi } from './velocity-pressure.js';
 
 /** 1 in and 2 in Schedule 40 inside diameters, in (common practice, no source: the steel pipe tables). */
 const D1 = 1.049;

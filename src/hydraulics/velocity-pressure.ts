@@ -31,16 +31,6 @@ export interface NormalPressureDrops {
 /** Flows below this, gpm, run nowhere (the solver's flows are exact to far less). */
 const STILL = 1e-9;
 
-/** The pipes at each model node, built once per model. */
-export function pipesAtNodes(model: HydraulicModel): number[][] {
-  const at: number[][] = model.nodes.map(() => []);
-  model.pipes.forEach((p, k) => {
-    at[p.from]!.push(k);
-    at[p.to]!.push(k);
-  });
-  return at;
-}
-
 /**
  * The deductions in state `s`. At each node: the pipes bringing water in, and those taking it on. Water runs past
  * the node when a pipe takes it on along the run of a pipe bringing it; then a head there, and each pipe leaving on
