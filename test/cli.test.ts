@@ -274,6 +274,25 @@ describe('the installed command', () => {
     expect(bad.status).toBe(2);
     expect(bad.stderr.trim().split('\n')).toHaveLength(1);
   });
+
+  it('starts from the code cache the build wrote, which this Node accepts; without it the same command runs', () => {
+    // One copy of the bundle: a lazy chunk's require('./main.cjs') gets the module the loader ran (else an error
+    // thrown in a chunk would not be the bundle's InputError). Common practice, no source.
+    const probe = `
+      import { createRequire } from 'node:module';
+      import { BUNDLE, loadCli } from './bin/load-cli.js';
+      const cached = loadCli();
+      const fresh = loadCli({ useCache: false });
+      console.log(JSON.stringify({
+        rejected: cached.script.cachedDataRejected,
+        freshCache: fresh.script.cachedDataRejected ?? null,
+        shared: createRequire(BUNDLE)('./main.cjs') === fresh.cli,
+        main: typeof fresh.cli.main,
+      }));`;
+    const r = spawnSync(process.execPath, ['--input-type=module', '-e', probe], { encoding: 'utf8', timeout: 60_000 });
+    expect(r.stderr).toBe('');
+    expect(JSON.parse(r.stdout)).toEqual({ rejected: false, freshCache: null, shared: true, main: 'function' });
+  });
 });
 
 describe('which config a command uses', () => {
