@@ -62,3 +62,18 @@ describe('loss laws: the slope is the derivative of the loss', () => {
     }
   });
 });
+
+describe('loss laws: loss and slope at once are the two alone, bit for bit', () => {
+  // The solver's inner loop takes both from one call; its results must not move by a rounding (common practice, no source).
+  const families = [
+    ['pipe', HAZEN_WILLIAMS, resistance(50, 120, 2.067)],
+    ['head', EMITTER, 5.6],
+  ] as const;
+  it.each(families)('%s', (_name, family, coefficient) => {
+    const out = new Float64Array(2);
+    for (const q of [-880, -3, 0, 1e-9, 3, 37, 260, 1230]) {
+      family.lossAndSlope(coefficient, q, out);
+      expect([out[0], out[1]]).toEqual([family.loss(coefficient, q), family.slope(coefficient, q)]);
+    }
+  });
+});

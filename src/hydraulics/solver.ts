@@ -63,6 +63,8 @@ const MAX_ITERATIONS = 200;
  * converged flows, which satisfy the exact loss law, unchanged.
  */
 const MIN_SLOPE = 1e-5;
+/** One link's loss and slope at its present flow, as its law writes them (the solver runs on one thread). */
+const law = new Float64Array(2);
 /** First guess of the flow in a chain not solved before, gpm. */
 const COLD_FLOW = 10;
 
@@ -355,9 +357,10 @@ export class NetworkSolver {
         continue;
       }
       const qx = w.q[x]!;
-      const gx = 1 / Math.max(HAZEN_WILLIAMS.slope(w.segR[x]!, qx), MIN_SLOPE);
+      HAZEN_WILLIAMS.lossAndSlope(w.segR[x]!, qx, law);
+      const gx = 1 / Math.max(law[1]!, MIN_SLOPE);
       w.g[x] = gx;
-      w.s[x] = qx - (HAZEN_WILLIAMS.loss(w.segR[x]!, qx) + w.segD[x]!) * gx;
+      w.s[x] = qx - (law[0]! + w.segD[x]!) * gx;
     }
   }
 
@@ -564,9 +567,10 @@ function chainDrop(pipeDrop: Float64Array, c: Skeleton['chains'][number], from: 
 /** Heads as links to the atmosphere at their own elevation z, linearised by the emitter law: q = g·H + c. */
 function linearizeEmitters(q: Float64Array, k: Float64Array, z: Float64Array, g: Float64Array, c: Float64Array, n: number): void {
   for (let e = 0; e < n; e++) {
-    const ge = 1 / Math.max(EMITTER.slope(k[e]!, q[e]!), MIN_SLOPE);
+    EMITTER.lossAndSlope(k[e]!, q[e]!, law);
+    const ge = 1 / Math.max(law[1]!, MIN_SLOPE);
     g[e] = ge;
-    c[e] = q[e]! - EMITTER.loss(k[e]!, q[e]!) * ge - ge * z[e]!;
+    c[e] = q[e]! - law[0]! * ge - ge * z[e]!;
   }
 }
 
