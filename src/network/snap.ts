@@ -5,7 +5,8 @@
 // pieces are dropped.
 
 import RBush from 'rbush';
-import { pointBox, type IndexedBox } from '../geometry/boxes.js';
+import { type IndexedBox } from '../geometry/boxes.js';
+import { PointGrid } from '../geometry/point-grid.js';
 import { closestOnSegment, distance, type Point } from '../geometry/point.js';
 import type { Stroke } from '../read/types.js';
 
@@ -98,20 +99,21 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
 
   // Merge endpoints into nodes.
   const nodes: Point[] = [];
-  const nodeIndex = new RBush<IndexedBox>();
+  const nodeIndex = new PointGrid(snap);
+  /** The nearest node within the snap tolerance (the first made among equals), else a new one. */
   const nodeAt = (p: Point): number => {
     let best = -1;
     let bestD = Infinity;
-    for (const box of nodeIndex.search({ minX: p.x - snap, minY: p.y - snap, maxX: p.x + snap, maxY: p.y + snap })) {
-      const d = distance(p, nodes[box.i]!);
-      if (d <= snap && d < bestD) {
-        best = box.i;
+    nodeIndex.visitNear(p, (i) => {
+      const d = distance(p, nodes[i]!);
+      if (d <= snap && (d < bestD || (d === bestD && i < best))) {
+        best = i;
         bestD = d;
       }
-    }
+    });
     if (best >= 0) return best;
     nodes.push(p);
-    nodeIndex.insert(pointBox(p, nodes.length - 1));
+    nodeIndex.insert(p, nodes.length - 1);
     return nodes.length - 1;
   };
   const edges: Edge[] = [];
@@ -127,17 +129,17 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
 
 /** For each stroke, whether an earlier one follows the same points (either way round) within `tol`. */
 function twinStrokes(strokes: Stroke[], tol: number): boolean[] {
-  const byStart = new RBush<IndexedBox>();
+  const byStart = new PointGrid(tol);
   return strokes.map((s, i) => {
     const pts = strokePoints(s);
-    const near = (p: Point) => byStart.search({ minX: p.x - tol, minY: p.y - tol, maxX: p.x + tol, maxY: p.y + tol });
-    const same = [...near(s.a), ...near(s.b)].some((box) => {
-      const other = strokePoints(strokes[box.i]!);
+    const follows = (j: number) => {
+      const other = strokePoints(strokes[j]!);
       if (other.length !== pts.length) return false;
       const along = distance(other[0]!, pts[0]!) <= tol ? other : [...other].reverse();
       return along.every((p, k) => distance(p, pts[k]!) <= tol);
-    });
-    if (!same) byStart.insert(pointBox(s.a, i));
+    };
+    const same = byStart.visitNear(s.a, follows) || byStart.visitNear(s.b, follows);
+    if (!same) byStart.insert(s.a, i);
     return same;
   });
 }

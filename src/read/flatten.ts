@@ -110,7 +110,7 @@ export function flatten(
         });
       },
       outline(points, t) {
-        if (keep.outlines(layer)) out.outlines.push({ handle, layer, type: e.type, points: points.map((p) => apply(t, p)) });
+        if (keep.outlines(layer)) out.outlines.push({ handle, layer, type: e.type, points: points().map((p) => apply(t, p)) });
       },
       text(at, t, text, localHeight) {
         if (keep.texts(layer)) out.texts.push({ handle, layer, position: apply(t, at), text, height: localHeight * meanScale(t) });

@@ -29,7 +29,7 @@ export const CIRCLE: EntityKind<Circle> = {
   },
   expand(e, ctx) {
     if (!(e.radius > 0)) return;
-    ctx.outline(sampleArc(e.center, e.radius, 0, 2 * Math.PI).slice(0, CIRCLE_STEPS), ctx.ocs);
+    ctx.outline(() => sampleArc(e.center, e.radius, 0, 2 * Math.PI).slice(0, CIRCLE_STEPS), ctx.ocs);
     ctx.symbol(e.center, ctx.ocs, e.radius);
   },
 };

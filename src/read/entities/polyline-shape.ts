@@ -37,5 +37,5 @@ export function expandPolyline(e: PolylineShape, ctx: ExpandContext, t: Affine):
     ctx.stroke(pts, t, segmentLength(p1, p2));
     for (let i = 0; i < pts.length - 1; i++) outline.push(pts[i]!);
   }
-  if (e.closed && n >= 3) ctx.outline(outline, t);
+  if (e.closed && n >= 3) ctx.outline(() => outline, t);
 }

@@ -28,7 +28,8 @@ export interface ExpandContext {
   ocs: Affine;
   /** A piece of linework through `points` under `t`; its true length in local units when it is curved or known. */
   stroke(points: Point[], t: Affine, localLength: number): void;
-  outline(points: Point[], t: Affine): void;
+  /** A closed outline under `t`; its points are made only where the layer's roles keep outlines. */
+  outline(points: () => Point[], t: Affine): void;
   text(at: Point, t: Affine, text: string, localHeight: number): void;
   point(at: Point, t: Affine): void;
   /** A round symbol (a circle drawn alone may be a head of an exploded drawing): its centre and radius. */

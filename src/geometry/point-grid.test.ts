@@ -1,0 +1,44 @@
+// The point grid against a search over every point: whatever lies within the reach of a place is visited, at any
+// scale of coordinates and reach, and a visit that returns true ends the search.
+
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { PointGrid } from './point-grid.js';
+import type { Point } from './point.js';
+
+describe('PointGrid', () => {
+  it('visits every inserted point within the reach in x and y (property, against all points)', () => {
+    // Coordinates far from the origin and points exactly at the reach included (common practice, no source).
+    const coordinate = fc.oneof(fc.double({ min: -50, max: 50, noNaN: true }), fc.double({ min: 1e6, max: 1e6 + 10, noNaN: true }));
+    const point = fc.record({ x: coordinate, y: coordinate });
+    fc.assert(
+      fc.property(fc.array(point, { maxLength: 60 }), point, fc.double({ min: 1e-3, max: 5, noNaN: true }), (points, at, reach) => {
+        const grid = new PointGrid(reach);
+        points.forEach((p, i) => grid.insert(p, i));
+        // Points at exactly the reach along one axis too.
+        const edge: Point[] = [
+          { x: at.x + reach, y: at.y },
+          { x: at.x, y: at.y - reach },
+        ];
+        edge.forEach((p, k) => grid.insert(p, points.length + k));
+        const all = [...points, ...edge];
+        const visited = new Set<number>();
+        grid.visitNear(at, (i) => {
+          visited.add(i);
+        });
+        for (const [i, p] of all.entries())
+          if (Math.abs(p.x - at.x) <= reach && Math.abs(p.y - at.y) <= reach) expect(visited.has(i)).toBe(true);
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it('stops at the first visit that returns true, and says so', () => {
+    const grid = new PointGrid(1);
+    for (let i = 0; i < 5; i++) grid.insert({ x: 0.1 * i, y: 0 }, i);
+    let visits = 0;
+    expect(grid.visitNear({ x: 0, y: 0 }, () => ++visits === 2)).toBe(true);
+    expect(visits).toBe(2);
+    expect(grid.visitNear({ x: 10, y: 10 }, () => true)).toBe(false);
+  });
+});
