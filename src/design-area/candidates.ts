@@ -105,14 +105,24 @@ interface Target {
 }
 
 /**
+ * Where one start's area lies, before it is built: from line `start` across the family, each whole line's window
+ * of heads (`windows`: line, first head, end, … in the order taken) and the leftover on the next line, if any.
+ */
+interface Sketch {
+  windows: number[];
+  heads: number;
+  next: { line: number; first: number; last: number; size: number } | null;
+}
+
+/**
  * The candidates of one start: from line `start` across the family in direction `dir`, the area's edge along the
  * lines at `edge`. Each line takes its own number of heads along (1.2·√A over its own spacing) from the edge;
  * whole lines are taken while the target is not reached, and the heads still wanting go on the next line as a
  * run anywhere between its cross-main end and the rectangle.
  */
-function groupAt(fam: LineFamily, start: number, dir: 1 | -1, edge: number, target: Target): CandidateGroup {
-  const base: string[] = [];
-  const lines: string[] = [];
+function sketchAt(fam: LineFamily, start: number, dir: 1 | -1, edge: number, target: Target): Sketch {
+  const windows: number[] = [];
+  let heads = 0;
   let covered = 0;
   const reached = (count: number, area: number) => count >= target.count && area >= target.area - 1e-6;
   for (let j = start; j >= 0 && j < fam.lines.length; j += dir) {
@@ -121,42 +131,53 @@ function groupAt(fam: LineFamily, start: number, dir: 1 | -1, edge: number, targ
     const from = firstAtOrAfter(line.heads, edge - 1e-9);
     const to = Math.min(line.heads.length, from + along);
     if (from >= to) continue;
-    const window = line.heads.slice(from, to);
-    const windowArea = window.reduce((s, h) => s + target.areaOf(h.id), 0);
-    if (!reached(base.length + window.length, covered + windowArea) || base.length + window.length === target.count) {
-      for (const h of window) base.push(h.id);
-      lines.push(line.id);
+    let windowArea = 0;
+    for (let k = from; k < to; k++) windowArea += target.areaOf(line.ids[k]!);
+    if (!reached(heads + to - from, covered + windowArea) || heads + to - from === target.count) {
+      windows.push(j, from, to);
+      heads += to - from;
       covered += windowArea;
-      if (reached(base.length, covered)) break;
+      if (reached(heads, covered)) break;
       continue;
     }
     // The leftover: as many heads as the nearest-the-feed order within the window needs to reach the target.
     // The cross-main end nearest the rectangle (a grid's line has one at each end).
-    const middle = (window[0]!.t + window[window.length - 1]!.t) / 2;
+    const middle = (line.heads[from]!.t + line.heads[to - 1]!.t) / 2;
     const feedT = line.feedTs.length
       ? line.feedTs.reduce((a, b) => (Math.abs(b - middle) < Math.abs(a - middle) ? b : a))
       : line.heads[0]!.t;
     let size = 0;
     let area = covered;
-    for (const h of [...window].sort((a, b) => Math.abs(a.t - feedT) - Math.abs(b.t - feedT))) {
+    const nearestFirst = Array.from({ length: to - from }, (_, k) => from + k);
+    nearestFirst.sort((a, b) => Math.abs(line.heads[a]!.t - feedT) - Math.abs(line.heads[b]!.t - feedT));
+    for (const k of nearestFirst) {
       size++;
-      area += target.areaOf(h.id);
-      if (reached(base.length + size, area)) break;
+      area += target.areaOf(line.ids[k]!);
+      if (reached(heads + size, area)) break;
     }
     // Runs of `size` heads lying between the feed end and the far side of the window.
-    const lo = Math.min(feedT, window[0]!.t) - 1e-6;
-    const hi = Math.max(feedT, window[window.length - 1]!.t) + 1e-6;
+    const lo = Math.min(feedT, line.heads[from]!.t) - 1e-6;
+    const hi = Math.max(feedT, line.heads[to - 1]!.t) + 1e-6;
     const first = firstAtOrAfter(line.heads, lo);
     const last = firstAtOrAfter(line.heads, hi) - size;
-    return {
-      base: base.slice(),
-      lines: lines.slice(),
-      next: { line: line.id, heads: line.ids, first, last: Math.max(first, last), size },
-    };
+    return { windows, heads, next: { line: j, first, last: Math.max(first, last), size } };
   }
-  // Exact-length copies: an array grown by pushing keeps up to twice its length in slots, and a search keeps
-  // tens of thousands of groups.
-  return { base: base.slice(), lines: lines.slice(), next: null };
+  return { windows, heads, next: null };
+}
+
+/** The group a sketch describes, its arrays of exact length (a search keeps tens of thousands of groups). */
+function groupOf(fam: LineFamily, sketch: Sketch): CandidateGroup {
+  const base = new Array<string>(sketch.heads);
+  const lines = new Array<string>(sketch.windows.length / 3);
+  let at = 0;
+  for (let w = 0; w < sketch.windows.length; w += 3) {
+    const line = fam.lines[sketch.windows[w]!]!;
+    lines[w / 3] = line.id;
+    for (let k = sketch.windows[w + 1]!; k < sketch.windows[w + 2]!; k++) base[at++] = line.ids[k]!;
+  }
+  const n = sketch.next;
+  const line = n && fam.lines[n.line]!;
+  return { base, lines, next: n && line ? { line: line.id, heads: line.ids, first: n.first, last: n.last, size: n.size } : null };
 }
 
 /** Index of the first head at or after position t along the line (heads sorted by t). */
@@ -183,16 +204,17 @@ export function candidateGroupsOf(fam: LineFamily, areaOf: (id: string) => numbe
   fam.lines.forEach((line, k) => {
     for (const dir of [1, -1] as const) {
       for (const h of line.heads) {
-        const g = groupAt(fam, k, dir, h.t - line.spacing / 2, target);
-        if (g.base.length === 0 && !g.next) continue;
-        const key = keyOf(g);
+        const sketch = sketchAt(fam, k, dir, h.t - line.spacing / 2, target);
+        if (sketch.heads === 0 && !sketch.next) continue;
+        const key = keyOf(sketch);
         const same = byKey.get(key);
         if (!same) {
+          const g = groupOf(fam, sketch);
           byKey.set(key, g);
           out.push(g);
-        } else if (same.next && g.next) {
-          same.next.first = Math.min(same.next.first, g.next.first);
-          same.next.last = Math.max(same.next.last, g.next.last);
+        } else if (same.next && sketch.next) {
+          same.next.first = Math.min(same.next.first, sketch.next.first);
+          same.next.last = Math.max(same.next.last, sketch.next.last);
         }
       }
     }
@@ -232,20 +254,24 @@ export const lastRun = (g: CandidateGroup): number => (g.next ? Math.min(g.next.
 export const memberCount = (g: CandidateGroup): number => (g.next ? Math.max(0, lastRun(g) - g.next.first + 1) : 1);
 
 /**
- * A key per group that is the same for two groups with the same whole lines and the same next line: a 53-bit
- * hash of the base's head numbers (order-independent) and the next line's id.
+ * A key per start that is the same for two starts with the same whole lines' heads and the same next line: a
+ * 53-bit hash of the heads' numbers in the family (order-independent) and the next line.
  */
-function distinctKeys(fam: LineFamily): (g: CandidateGroup) => string {
-  const numberOf = new Map<string, number>();
-  for (const line of fam.lines) for (const h of line.heads) numberOf.set(h.id, numberOf.size);
-  return (g) => {
+function distinctKeys(fam: LineFamily): (sketch: Sketch) => string {
+  const firstNumber = new Int32Array(fam.lines.length);
+  for (let j = 1; j < fam.lines.length; j++) firstNumber[j] = firstNumber[j - 1]! + fam.lines[j - 1]!.heads.length;
+  return (sketch) => {
     let sum = 0;
     let xor = 0;
-    for (const id of g.base) {
-      const x = Math.imul((numberOf.get(id) ?? -1) + 1, 0x9e3779b1);
-      sum = (sum + (x ^ (x >>> 15))) | 0;
-      xor ^= Math.imul(x ^ (x >>> 13), 0x85ebca6b);
+    for (let w = 0; w < sketch.windows.length; w += 3) {
+      const j = sketch.windows[w]!;
+      for (let k = sketch.windows[w + 1]!; k < sketch.windows[w + 2]!; k++) {
+        const x = Math.imul(firstNumber[j]! + k + 1, 0x9e3779b1);
+        sum = (sum + (x ^ (x >>> 15))) | 0;
+        xor ^= Math.imul(x ^ (x >>> 13), 0x85ebca6b);
+      }
     }
-    return `${(sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff)}:${g.base.length}:${g.next?.line ?? ''}:${g.next?.size ?? 0}`;
+    const next = sketch.next ? fam.lines[sketch.next.line]!.id : '';
+    return `${(sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff)}:${sketch.heads}:${next}:${sketch.next?.size ?? 0}`;
   };
 }
