@@ -14,13 +14,13 @@ describe('PointGrid', () => {
     fc.assert(
       fc.property(fc.array(point, { maxLength: 60 }), point, fc.double({ min: 1e-3, max: 5, noNaN: true }), (points, at, reach) => {
         const grid = new PointGrid(reach);
-        points.forEach((p, i) => grid.insert(p, i));
+        for (const [i, p] of points.entries()) grid.insert(p, i);
         // Points at exactly the reach along one axis too.
         const edge: Point[] = [
           { x: at.x + reach, y: at.y },
           { x: at.x, y: at.y - reach },
         ];
-        edge.forEach((p, k) => grid.insert(p, points.length + k));
+        for (const [k, p] of edge.entries()) grid.insert(p, points.length + k);
         const all = [...points, ...edge];
         const visited = new Set<number>();
         grid.visitNear(at, (i) => {
