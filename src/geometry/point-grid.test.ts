@@ -25,6 +25,7 @@ describe('PointGrid', () => {
         const visited = new Set<number>();
         grid.visitNear(at, (i) => {
           visited.add(i);
+          return false;
         });
         for (const [i, p] of all.entries())
           if (Math.abs(p.x - at.x) <= reach && Math.abs(p.y - at.y) <= reach) expect(visited.has(i)).toBe(true);

@@ -28,13 +28,13 @@ export class PointGrid {
    * Calls `visit` with the index of every point inserted within the reach of `p` in x and in y (and perhaps with
    * others: the caller measures), until it returns true; returns whether it did.
    */
-  visitNear(p: Point, visit: (i: number) => boolean | void): boolean {
+  visitNear(p: Point, visit: (i: number) => boolean): boolean {
     const cx = Math.floor(p.x / this.cell);
     const cy = Math.floor(p.y / this.cell);
     for (let dx = -1; dx <= 1; dx++)
       for (let dy = -1; dy <= 1; dy++) {
         const bucket = this.buckets.get(PointGrid.keyOf(cx + dx, cy + dy));
-        if (bucket) for (const i of bucket) if (visit(i) === true) return true;
+        if (bucket) for (const i of bucket) if (visit(i)) return true;
       }
     return false;
   }

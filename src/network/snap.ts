@@ -5,7 +5,7 @@
 // pieces are dropped.
 
 import RBush from 'rbush';
-import { type IndexedBox } from '../geometry/boxes.js';
+import type { IndexedBox } from '../geometry/boxes.js';
 import { PointGrid } from '../geometry/point-grid.js';
 import { closestOnSegment, distance, type Point } from '../geometry/point.js';
 import type { Stroke } from '../read/types.js';
@@ -110,6 +110,7 @@ export function snapStrokes(strokes: Stroke[], attachPoints: { at: Point; reach:
         best = i;
         bestD = d;
       }
+      return false;
     });
     if (best >= 0) return best;
     nodes.push(p);
