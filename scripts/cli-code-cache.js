@@ -3,9 +3,9 @@
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { CODE_CACHE, loadCli } from '../bin/load-cli.js';
+import { CODE_CACHE, loadCli, sourceDigest } from '../bin/load-cli.js';
 
-const { cli, script } = loadCli({ useCache: false });
+const { cli, script, source } = loadCli({ useCache: false });
 const out = mkdtempSync(join(tmpdir(), 'headcheck-code-cache-'));
 const write = process.stdout.write;
 try {
@@ -17,5 +17,5 @@ try {
   rmSync(out, { recursive: true, force: true });
 }
 const cache = script.createCachedData();
-writeFileSync(CODE_CACHE, cache);
+writeFileSync(CODE_CACHE, Buffer.concat([Buffer.from(sourceDigest(source), 'latin1'), cache]));
 console.log(`code cache of the command line: ${(cache.length / 1024).toFixed(0)} KiB in ${CODE_CACHE}`);

@@ -275,23 +275,35 @@ describe('the installed command', () => {
     expect(bad.stderr.trim().split('\n')).toHaveLength(1);
   });
 
-  it('starts from the code cache the build wrote, which this Node accepts; without it the same command runs', () => {
+  it('starts from the code cache the build wrote for this bundle, which this Node accepts; without it the same command runs', () => {
     // One copy of the bundle: a lazy chunk's require('./main.cjs') gets the module the loader ran (else an error
     // thrown in a chunk would not be the bundle's InputError). Common practice, no source.
     const probe = `
+      import { readFileSync } from 'node:fs';
       import { createRequire } from 'node:module';
-      import { BUNDLE, loadCli } from './bin/load-cli.js';
+      import { BUNDLE, CODE_CACHE, cachedDataFor, loadCli } from './bin/load-cli.js';
       const cached = loadCli();
       const fresh = loadCli({ useCache: false });
+      const file = readFileSync(CODE_CACHE);
       console.log(JSON.stringify({
         rejected: cached.script.cachedDataRejected,
         freshCache: fresh.script.cachedDataRejected ?? null,
         shared: createRequire(BUNDLE)('./main.cjs') === fresh.cli,
         main: typeof fresh.cli.main,
+        forThisSource: cachedDataFor(fresh.source, file)?.length === file.length - 64,
+        forAnEditedOne: cachedDataFor(fresh.source.replace('headcheck', 'headchecc'), file) ?? null,
       }));`;
     const r = spawnSync(process.execPath, ['--input-type=module', '-e', probe], { encoding: 'utf8', timeout: 60_000 });
     expect(r.stderr).toBe('');
-    expect(JSON.parse(r.stdout)).toEqual({ rejected: false, freshCache: null, shared: true, main: 'function' });
+    expect(JSON.parse(r.stdout)).toEqual({
+      rejected: false,
+      freshCache: null,
+      shared: true,
+      main: 'function',
+      forThisSource: true,
+      // A bundle edited to the same length keeps V8's own check happy: the digest refuses the old cache.
+      forAnEditedOne: null,
+    });
   });
 });
 
