@@ -4,33 +4,44 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { PointGrid } from './point-grid.js';
-import type { Point } from './point.js';
+import { distance, type Point } from './point.js';
 
 describe('PointGrid', () => {
   it('visits every inserted point within the reach in x and y (property, against all points)', () => {
-    // Coordinates far from the origin and points exactly at the reach included (common practice, no source).
-    const coordinate = fc.oneof(fc.double({ min: -50, max: 50, noNaN: true }), fc.double({ min: 1e6, max: 1e6 + 10, noNaN: true }));
+    // Coordinates far from the origin (state-plane feet run to 1e7, where x / reach loses the last digits a small
+    // reach needs) and points exactly at the reach included (common practice, no source).
+    const coordinate = fc.oneof(
+      fc.double({ min: -50, max: 50, noNaN: true }),
+      fc.double({ min: 1e6, max: 1e6 + 10, noNaN: true }),
+      fc.double({ min: 3e7, max: 3e7 + 1, noNaN: true }),
+    );
     const point = fc.record({ x: coordinate, y: coordinate });
     fc.assert(
-      fc.property(fc.array(point, { maxLength: 60 }), point, fc.double({ min: 1e-3, max: 5, noNaN: true }), (points, at, reach) => {
-        const grid = new PointGrid(reach);
-        for (const [i, p] of points.entries()) grid.insert(p, i);
-        // Points at exactly the reach along one axis too.
-        const edge: Point[] = [
-          { x: at.x + reach, y: at.y },
-          { x: at.x, y: at.y - reach },
-        ];
-        for (const [k, p] of edge.entries()) grid.insert(p, points.length + k);
-        const all = [...points, ...edge];
-        const visited = new Set<number>();
-        grid.visitNear(at, (i) => {
-          visited.add(i);
-          return false;
-        });
-        for (const [i, p] of all.entries())
-          if (Math.abs(p.x - at.x) <= reach && Math.abs(p.y - at.y) <= reach) expect(visited.has(i)).toBe(true);
-      }),
-      { numRuns: 500 },
+      fc.property(
+        fc.array(point, { maxLength: 60 }),
+        point,
+        fc.oneof(fc.double({ min: 1e-3, max: 5, noNaN: true }), fc.constantFrom(1 / 12, 1e-3)),
+        (points, at, reach) => {
+          const grid = new PointGrid(reach);
+          for (const [i, p] of points.entries()) grid.insert(p, i);
+          // Points at exactly the reach along one axis too.
+          const edge: Point[] = [
+            { x: at.x + reach, y: at.y },
+            { x: at.x, y: at.y - reach },
+          ];
+          for (const [k, p] of edge.entries()) grid.insert(p, points.length + k);
+          const all = [...points, ...edge];
+          const visited = new Set<number>();
+          grid.visitNear(at, (i) => {
+            visited.add(i);
+            return false;
+          });
+          for (const [i, p] of all.entries())
+            if ((Math.abs(p.x - at.x) <= reach && Math.abs(p.y - at.y) <= reach) || distance(p, at) <= reach)
+              expect(visited.has(i)).toBe(true);
+        },
+      ),
+      { numRuns: 2000 },
     );
   });
 
