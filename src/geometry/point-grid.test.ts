@@ -53,4 +53,22 @@ describe('PointGrid', () => {
     expect(visits).toBe(2);
     expect(grid.visitNear({ x: 10, y: 10 }, () => true)).toBe(false);
   });
+
+  it('ends on extreme coordinates (the numbers of a hostile drawing) and still finds a point at the same place', () => {
+    // Past 2^53 cells a cell number plus one is itself; an infinite coordinate stays infinite (common practice, no source).
+    for (const v of [1e21, -1e21, 2 ** 53 / 12, 1e300, -1e300, Number.MAX_VALUE]) {
+      const grid = new PointGrid(1 / 12);
+      grid.insert({ x: v, y: v }, 7);
+      const seen: number[] = [];
+      grid.visitNear({ x: v, y: v }, (i) => {
+        seen.push(i);
+        return false;
+      });
+      expect(new Set(seen)).toEqual(new Set([7]));
+    }
+    // An infinite coordinate ends too (a distance to it is never within reach, so what it finds does not matter).
+    const grid = new PointGrid(1 / 12);
+    grid.insert({ x: Number.POSITIVE_INFINITY, y: 0 }, 0);
+    expect(typeof grid.visitNear({ x: Number.POSITIVE_INFINITY, y: Number.NaN }, () => false)).toBe('boolean');
+  });
 });

@@ -33,17 +33,21 @@ export class PointGrid {
 
   /**
    * Calls `visit` with the index of every point inserted within the reach of `p` in x and in y, as a distance
-   * computed to `p` would find it, at any magnitude of coordinates (and perhaps with others: the caller measures),
-   * until it returns true; returns whether it did.
+   * computed to `p` would find it, at any magnitude of coordinates (and perhaps with others, or twice past 2⁵³
+   * cells: the caller measures), until it returns true; returns whether it did.
    */
   visitNear(p: Point, visit: (i: number) => boolean): boolean {
     const r = this.reach * MARGIN;
-    const x1 = this.cellOf(p.x + r);
+    const x0 = this.cellOf(p.x - r);
     const y0 = this.cellOf(p.y - r);
-    const y1 = this.cellOf(p.y + r);
-    for (let cx = this.cellOf(p.x - r); cx <= x1; cx++)
-      for (let cy = y0; cy <= y1; cy++) {
-        const bucket = this.buckets.get(PointGrid.keyOf(cx, cy));
+    // Counted steps, not `cx++`: past 2⁵³ a cell number plus one is itself, and an infinite one stays infinite.
+    // The cells between hold at most 8 steps (where a coordinate's own spacing passes the reach, p ± r is p).
+    // An infinite cell number (a coordinate near the largest double) is one cell, as `insert` hashes it.
+    const nx = this.cellOf(p.x + r) - x0 || 0;
+    const ny = this.cellOf(p.y + r) - y0 || 0;
+    for (let dx = 0; dx <= nx; dx++)
+      for (let dy = 0; dy <= ny; dy++) {
+        const bucket = this.buckets.get(PointGrid.keyOf(x0 + dx, y0 + dy));
         if (bucket) for (const i of bucket) if (visit(i)) return true;
       }
     return false;
