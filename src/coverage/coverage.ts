@@ -6,7 +6,7 @@ import type { BranchLine, Network } from '../network/types.js';
 import type { Head } from '../read/plan.js';
 import { headRows } from './rows.js';
 import type { Walls } from './walls.js';
-import { maxOf } from '../arrays.js';
+import { lowerBound, maxOf } from '../arrays.js';
 
 export interface Coverage {
   headId: string;
@@ -160,7 +160,8 @@ class LineIndex {
       const sign = dot(v, g.normal) >= 0 ? 1 : -1;
       const a = (sign > 0 ? lo : -hi) - this.slack;
       const b = (sign > 0 ? hi : -lo) + this.slack;
-      for (let i = lowerBound(g.offset, a); i < g.offset.length && g.offset[i]! <= b; i++) out.push(g.lines[i]!);
+      for (let i = lowerBound(g.offset.length, (k) => g.offset[k]!, a); i < g.offset.length && g.offset[i]! <= b; i++)
+        out.push(g.lines[i]!);
     }
     return out;
   }
@@ -170,18 +171,6 @@ class LineIndex {
 function angleKey(u: Point): number {
   const angle = Math.atan2(u.y, u.x);
   return Math.round((angle < 0 ? angle + Math.PI : angle) / ANGLE_STEP) % Math.round(Math.PI / ANGLE_STEP);
-}
-
-/** The first index whose value is ≥ x in an ascending array. */
-function lowerBound(values: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = values.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (values[mid]! < x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }
 
 /**

@@ -7,6 +7,7 @@ import type { BranchLine, Network } from '../network/types.js';
 import type { Head } from '../read/plan.js';
 import type { Coverage } from '../coverage/coverage.js';
 import { areaShape, type AreaShape } from './shape.js';
+import { lowerBound } from '../arrays.js';
 
 export interface LineFamily {
   /** Unit vector along the lines, and across them. */
@@ -181,16 +182,7 @@ function groupOf(fam: LineFamily, sketch: Sketch): CandidateGroup {
 }
 
 /** Index of the first head at or after position t along the line (heads sorted by t). */
-function firstAtOrAfter(heads: { t: number }[], t: number): number {
-  let lo = 0;
-  let hi = heads.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (heads[mid]!.t < t) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
+const firstAtOrAfter = (heads: { t: number }[], t: number): number => lowerBound(heads.length, (k) => heads[k]!.t, t);
 
 /**
  * Every distinct group of candidate areas of a family. Starts sharing whole lines and next line are one group,
