@@ -39,13 +39,15 @@ export const HAZEN_WILLIAMS: LawFamily = {
 };
 
 /** Heads discharging to the atmosphere: q = K·√p (the K-factor formula, from memory), so p = q·|q| / K². */
+const emitterLoss = (k: number, q: number) => (q * Math.abs(q)) / (k * k);
+const emitterSlope = (k: number, q: number) => (2 * Math.abs(q)) / (k * k);
 export const EMITTER: LawFamily = {
   kind: 'emitter',
-  loss: (k, q) => (q * Math.abs(q)) / (k * k),
-  slope: (k, q) => (2 * Math.abs(q)) / (k * k),
+  loss: emitterLoss,
+  slope: emitterSlope,
   lossAndSlope: (k, q, out) => {
-    out[0] = (q * Math.abs(q)) / (k * k);
-    out[1] = (2 * Math.abs(q)) / (k * k);
+    out[0] = emitterLoss(k, q);
+    out[1] = emitterSlope(k, q);
   },
 };
 
