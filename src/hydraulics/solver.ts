@@ -84,10 +84,23 @@ interface LivePart {
   liveAnchor: Uint8Array;
   anchorEmitters: Int32Array;
   /** Anchors peeled off as dead ends, in order, each with the chain it hangs on (−1: none). */
-  peeled: { anchor: number; chain: number }[];
+  peeledAnchor: Int32Array;
+  peeledChain: Int32Array;
   /** Live chain of each skeleton chain, or −1. */
   liveIndex: Int32Array;
 }
+
+/**
+ * A live part that outlives the next solve. The arrays sized by the whole skeleton are the workspace's (a solve
+ * of a few heads on a system of thousands would otherwise allocate them each time), so a kept solve copies them.
+ */
+const detached = (live: LivePart): LivePart => ({
+  ...live,
+  liveAnchor: live.liveAnchor.slice(),
+  peeledAnchor: live.peeledAnchor.slice(),
+  peeledChain: live.peeledChain.slice(),
+  liveIndex: live.liveIndex.slice(),
+});
 
 /** One solve in progress: its live part, the solver's buffers, the counts that size them, the source's head. */
 interface Iteration {
@@ -173,10 +186,10 @@ export class NetworkSolver {
       }
     }
     chainHeads.sort((x, y) => emitterChain[x]! - emitterChain[y]! || emitterIndex[x]! - emitterIndex[y]!);
-    const { liveAnchor, peeled } = this.peelDeadEnds(pinned, headCount);
+    const peeled = this.peelDeadEnds(pinned, headCount);
     const chain: number[] = [];
     const headStart: number[] = [0];
-    const liveIndex = new Int32Array(nC).fill(-1);
+    const liveIndex = this.work.liveIndex.fill(-1);
     let next = 0;
     for (let i = 0; i < nC; i++) {
       const heads = headCount[i]!;
@@ -203,9 +216,10 @@ export class NetworkSolver {
       headStart: Int32Array.from(headStart),
       headIndex: headEmitter.map((k) => emitterIndex[k]!),
       headEmitter,
-      liveAnchor,
+      liveAnchor: this.work.liveAnchor,
       anchorEmitters: Int32Array.from(anchorEmitters),
-      peeled,
+      peeledAnchor: this.work.peeledAnchor.subarray(0, peeled),
+      peeledChain: this.work.peeledChain.subarray(0, peeled),
       liveIndex,
     };
   }
@@ -213,13 +227,14 @@ export class NetworkSolver {
   /**
    * Peels dead ends: an anchor with one live chain end or none, no open head and no source is idle; a chain
    * without open heads that loses an end carries nothing; one with open heads stops at its last open head.
-   * Leaves `alive`, `aLink` and `bLink` of the workspace set per chain.
+   * Leaves `alive`, `aLink`, `bLink` and `liveAnchor` of the workspace set, and the peeled anchors in order in
+   * `peeledAnchor` and `peeledChain`; returns how many were peeled.
    */
-  private peelDeadEnds(pinned: Uint8Array, headCount: Int32Array): { liveAnchor: Uint8Array; peeled: LivePart['peeled'] } {
+  private peelDeadEnds(pinned: Uint8Array, headCount: Int32Array): number {
     const { skeleton: sk, chainA, chainB } = this;
     const nA = sk.anchorNode.length;
     const nC = sk.chains.length;
-    const { alive, aLink, bLink, degree } = this.work;
+    const { alive, aLink, bLink, degree, liveAnchor, peeledAnchor, peeledChain, stack } = this.work;
     degree.fill(0);
     for (let i = 0; i < nC; i++) {
       const on = chainA[i] !== chainB[i] || headCount[i]! > 0 ? 1 : 0;
@@ -229,12 +244,13 @@ export class NetworkSolver {
         degree[chainB[i]!]!++;
       }
     }
-    const liveAnchor = new Uint8Array(nA).fill(1);
-    const stack: number[] = [];
-    for (let v = 0; v < nA; v++) if (degree[v]! <= 1 && !pinned[v]) stack.push(v);
-    const peeled: LivePart['peeled'] = [];
-    while (stack.length) {
-      const v = stack.pop()!;
+    liveAnchor.fill(1);
+    // An anchor is pushed once at first and once each time a chain at it dies: nA + nC slots hold them all.
+    let top = 0;
+    for (let v = 0; v < nA; v++) if (degree[v]! <= 1 && !pinned[v]) stack[top++] = v;
+    let peeled = 0;
+    while (top > 0) {
+      const v = stack[--top]!;
       if (!liveAnchor[v] || pinned[v] || degree[v]! > 1) continue;
       liveAnchor[v] = 0;
       let on = -1;
@@ -243,7 +259,8 @@ export class NetworkSolver {
           on = i;
           break;
         }
-      peeled.push({ anchor: v, chain: on });
+      peeledAnchor[peeled] = v;
+      peeledChain[peeled++] = on;
       if (on < 0) continue;
       const atA = chainA[on] === v;
       if (atA) aLink[on] = 0;
@@ -254,10 +271,10 @@ export class NetworkSolver {
       if (atA ? bLink[on] : aLink[on]) {
         if (atA) bLink[on] = 0;
         else aLink[on] = 0;
-        if (--degree[w]! <= 1 && !pinned[w]) stack.push(w);
+        if (--degree[w]! <= 1 && !pinned[w]) stack[top++] = w;
       }
     }
-    return { liveAnchor, peeled };
+    return peeled;
   }
 
   /**
@@ -496,7 +513,13 @@ export class NetworkSolver {
     for (let e = 0; e < nE; e++) put(e, anchorEmitters[e]!, w.anchorHead[w.atA[e]!]!, w.qA[e]!, w.zA[e]!);
     for (let h = 0; h < T; h++) put(nE + h, headEmitter[h]!, w.H[h]!, w.qH[h]!, w.zH[h]!);
     const solution = keep
-      ? { live, drops: this.drops, anchorHead: w.anchorHead.slice(0, nA), headPotential: w.H.slice(0, T), segmentFlow: w.q.slice(0, T + L) }
+      ? {
+          live: detached(live),
+          drops: this.drops,
+          anchorHead: w.anchorHead.slice(0, nA),
+          headPotential: w.H.slice(0, T),
+          segmentFlow: w.q.slice(0, T + L),
+        }
       : null;
     return { open: openOut, pressure, flow, iterations: it.iterations, solution };
   }
@@ -530,8 +553,9 @@ export class NetworkSolver {
     });
     // Peeled anchors, last first: each has the head of what it hangs on (a dangling chain's nearest open head,
     // or the far anchor of a dead chain, whose own head is known by then).
-    for (let x = live.peeled.length - 1; x >= 0; x--) {
-      const { anchor, chain } = live.peeled[x]!;
+    for (let x = live.peeledAnchor.length - 1; x >= 0; x--) {
+      const anchor = live.peeledAnchor[x]!;
+      const chain = live.peeledChain[x]!;
       if (chain < 0) continue;
       const c = sk.chains[chain]!;
       const li = live.liveIndex[chain]!;
@@ -621,6 +645,11 @@ function workspace(emitters: number, chains: number, anchors: number) {
     aLink: new Uint8Array(chains),
     bLink: new Uint8Array(chains),
     headCount: new Int32Array(chains),
+    liveAnchor: new Uint8Array(anchors),
+    peeledAnchor: new Int32Array(anchors),
+    peeledChain: new Int32Array(anchors),
+    stack: new Int32Array(anchors + chains),
+    liveIndex: new Int32Array(chains),
   };
 }
 
