@@ -190,19 +190,27 @@ const firstAtOrAfter = (heads: { t: number }[], t: number): number => lowerBound
  */
 export function candidateGroupsOf(fam: LineFamily, areaOf: (id: string) => number, area: number): CandidateGroup[] {
   const target: Target = { count: fam.shape.totalHeads, area, areaOf };
-  const byKey = new Map<string, CandidateGroup>();
+  /** The groups by the hash of their whole lines' heads (a number: tens of thousands of string keys weigh megabytes). */
+  const byHash = new Map<number, CandidateGroup[]>();
   const out: CandidateGroup[] = [];
-  const keyOf = distinctKeys(fam);
+  const hashOf = headSetHash(fam);
+  /** Whether a group is the one a sketch describes: the same whole lines' heads, next line and leftover. */
+  const sameAs = (g: CandidateGroup, sketch: Sketch) =>
+    g.base.length === sketch.heads &&
+    (g.next?.line ?? null) === (sketch.next ? fam.lines[sketch.next.line]!.id : null) &&
+    (g.next?.size ?? 0) === (sketch.next?.size ?? 0);
   fam.lines.forEach((line, k) => {
     for (const dir of [1, -1] as const) {
       for (const h of line.heads) {
         const sketch = sketchAt(fam, k, dir, h.t - line.spacing / 2, target);
         if (sketch.heads === 0 && !sketch.next) continue;
-        const key = keyOf(sketch);
-        const same = byKey.get(key);
+        const hash = hashOf(sketch);
+        const bucket = byHash.get(hash);
+        const same = bucket?.find((g) => sameAs(g, sketch));
         if (!same) {
           const g = groupOf(fam, sketch);
-          byKey.set(key, g);
+          if (bucket) bucket.push(g);
+          else byHash.set(hash, [g]);
           out.push(g);
         } else if (same.next && sketch.next) {
           same.next.first = Math.min(same.next.first, sketch.next.first);
@@ -246,10 +254,10 @@ export const lastRun = (g: CandidateGroup): number => (g.next ? Math.min(g.next.
 export const memberCount = (g: CandidateGroup): number => (g.next ? Math.max(0, lastRun(g) - g.next.first + 1) : 1);
 
 /**
- * A key per start that is the same for two starts with the same whole lines' heads and the same next line: a
- * 53-bit hash of the heads' numbers in the family (order-independent) and the next line.
+ * A hash of a start's whole lines' heads, the same for two starts with the same heads: 53 bits of the heads'
+ * numbers in the family, order-independent (two sets of heads are taken as one where their hashes agree).
  */
-function distinctKeys(fam: LineFamily): (sketch: Sketch) => string {
+function headSetHash(fam: LineFamily): (sketch: Sketch) => number {
   const firstNumber = new Int32Array(fam.lines.length);
   for (let j = 1; j < fam.lines.length; j++) firstNumber[j] = firstNumber[j - 1]! + fam.lines[j - 1]!.heads.length;
   return (sketch) => {
@@ -263,7 +271,6 @@ function distinctKeys(fam: LineFamily): (sketch: Sketch) => string {
         xor ^= Math.imul(x ^ (x >>> 13), 0x85ebca6b);
       }
     }
-    const next = sketch.next ? fam.lines[sketch.next.line]!.id : '';
-    return `${(sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff)}:${sketch.heads}:${next}:${sketch.next?.size ?? 0}`;
+    return (sum >>> 0) * 0x200000 + ((xor >>> 0) & 0x1fffff);
   };
 }

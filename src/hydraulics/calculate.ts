@@ -5,7 +5,7 @@ import type { Settings } from '../config/settings.js';
 import type { Network } from '../network/types.js';
 import { frictionPsiPerFt, HW_EXPONENT, PSI_PER_FT } from './hazen-williams.js';
 import { HAND_METHOD_EXPONENT, kFactorWalk } from './k-factor-walk.js';
-import { buildModel, pipesAtNodes, type FlowingHead, type HydraulicModel } from './model.js';
+import { buildModel, pipesAtNodes, type FlowingHead, type HydraulicModel, type PipesAtNodes } from './model.js';
 import { NetworkSolver, type FlowState, type SolveResult } from './solver.js';
 import { type PathStep, supplyOf } from './supply-path.js';
 import { solveAtNormalPressure, type NormalPressureDrops, type PressureBasis } from './velocity-pressure.js';
@@ -135,7 +135,7 @@ export class AreaCalculator {
   private readonly hand: ReturnType<typeof kFactorWalk>;
   private lastPressure: number | undefined;
   /** The pipes at each model node, when heads flow at the normal pressure (null: total pressure). */
-  private readonly pipesAt: number[][] | null;
+  private readonly pipesAt: PipesAtNodes | null;
 
   constructor(
     network: Network,

@@ -1,7 +1,7 @@
 // The hydraulic model seen as anchors (the source and every node where pipes do not simply continue) joined
 // by chains of pipes in series; a design area's solve works on this, with only its open heads added.
 
-import { pipesAtNodes, type HydraulicModel } from './model.js';
+import { pipesAtNodes, type HydraulicModel, type PipesAtNodes } from './model.js';
 
 /** A run of pipes in series from anchor `a` to anchor `b` (a = b for a loop on one anchor). */
 export interface Chain {
@@ -63,7 +63,7 @@ export function buildSkeleton(model: HydraulicModel): Skeleton {
 /** What walking a chain reads and marks: the model, each node's pipes, the anchors, and the marks it leaves. */
 interface ChainWalk {
   model: HydraulicModel;
-  incident: number[][];
+  incident: PipesAtNodes;
   anchorOf: Int32Array;
   chainOf: Int32Array;
   indexInChain: Int32Array;

@@ -1,7 +1,7 @@
 // Normal pressure at flowing outlets (total pressure less the velocity pressure of the water running past), as
 // NFPA 13 permits: where each head and each side outlet of a tee loses it, read from a solved state of the model.
 
-import type { HydraulicModel } from './model.js';
+import type { HydraulicModel, PipesAtNodes } from './model.js';
 import type { FlowState, NetworkSolver, SolveResult } from './solver.js';
 
 /**
@@ -37,7 +37,7 @@ const STILL = 1e-9;
  * another run (a side outlet), lose the least velocity pressure among the feeding pipes on such a run (the least,
  * where two feed it: the smaller deduction is the safe one). Where no water runs past, nothing is deducted.
  */
-export function normalPressureDrops(model: HydraulicModel, pipesAt: number[][], s: FlowState): NormalPressureDrops {
+export function normalPressureDrops(model: HydraulicModel, pipesAt: PipesAtNodes, s: FlowState): NormalPressureDrops {
   const emitter = new Float64Array(model.emitters.length);
   const pipe = new Float64Array(model.pipes.length);
   const emitterAt = new Int32Array(model.nodes.length).fill(-1);
@@ -75,7 +75,7 @@ const MAX_DROP_ROUNDS = 50;
  */
 export function solveAtNormalPressure(
   solver: NetworkSolver,
-  pipesAt: number[][],
+  pipesAt: PipesAtNodes,
   P: number,
   open?: Int32Array,
 ): { state: SolveResult; solves: number; iterations: number } {
