@@ -56,6 +56,16 @@ interface Scored {
  */
 const WINDOW = 2;
 
+/**
+ * How many of a looped system's candidates are taken in the order of the estimate before the rest follow in the
+ * order of their groups: a share, and at least a few. On the 5,040-head grid of the bench (282,003 placements),
+ * all in the estimate's order: 225,935 solves, 46.9 s; the first 1% so, then the groups' order: 183,449 solves,
+ * 23.8 s (Newton iterations a proving solve 6.3 → 4.0), the same two areas. On
+ * the 1,000-head grid 24,146 → 19,030 solves for 1%, 20,687 for 10%.
+ */
+const LEAD_SHARE = 0.01;
+const LEAD_MIN = 32;
+
 /** The placements `from` … `from + count − 1` of a group's leftover, as a group of their own. */
 const placementsOf = (g: CandidateGroup, from: number, count: number): CandidateGroup =>
   g.next ? { ...g, next: { ...g.next, first: g.next.first + from, last: g.next.first + from + count - 1 } } : g;
@@ -203,15 +213,19 @@ export function searchMostDemanding(
       explore(g, g.next?.first ?? 0, lastRun(g), upper[order[at]!]!);
     }
   } else {
-    // Looped systems (or no pruning): every candidate, in order of the same walk on a spanning tree, which
-    // estimates which areas are demanding, so that a demanding runner-up is found early and proofs rule out the rest.
+    // Looped systems (or no pruning): first the candidates a walk on a spanning tree estimates most demanding, so
+    // that a demanding runner-up is found early; then the rest in the order of their groups, where each placement
+    // neighbours the last one solved (its solve starts warm from that one's flows, whose flow guesses its own).
     // A candidate not yet decided is first tried with its undecided neighbours along its group (the placements
     // after it), WINDOW of them at once by the proof above; what that does not rule out is considered alone.
     const walk = prune ? treeBound(spanningTreeModel(calculator.model)) : null;
     const members = groups.flatMap((g, group) => membersOf(g).map((candidate, placement) => ({ candidate, group, placement })));
     const estimate = members.map((m) => scoreOf(walk?.bound(m.candidate.headIds)) ?? 0);
+    const byEstimate = members.map((_, i) => i).sort((a, b) => estimate[b]! - estimate[a]!);
+    const lead = Math.max(LEAD_MIN, Math.ceil(LEAD_SHARE * members.length));
+    const order = [...byEstimate.slice(0, lead), ...byEstimate.slice(lead).sort((a, b) => a - b)];
     const decided = new Uint8Array(members.length);
-    for (const k of members.map((_, i) => i).sort((a, b) => estimate[b]! - estimate[a]!)) {
+    for (const k of order) {
       if (decided[k]) continue;
       let run = 1;
       while (run < WINDOW && k + run < members.length && !decided[k + run] && members[k + run]!.group === members[k]!.group) run++;
