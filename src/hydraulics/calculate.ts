@@ -277,43 +277,44 @@ export class AreaCalculator {
 
 /** The nodes and pipes that carry the area's water (more than a trace of it), as the report tables them. */
 function busyTables(model: HydraulicModel, s: FlowState, sourceFlow: number): Pick<AreaHydraulics, 'nodes' | 'pipes'> {
-  const busy = model.pipes.map((_, k) => Math.abs(s.flow[k]!) > IDLE_SHARE * sourceFlow);
-  const onBusy = new Set<number>([model.source]);
+  // Flags and indexes by number: an area's tables are drawn from models of tens of thousands of nodes.
+  const busy = Uint8Array.from(model.pipes, (_, k) => (Math.abs(s.flow[k]!) > IDLE_SHARE * sourceFlow ? 1 : 0));
+  const onBusy = new Uint8Array(model.nodes.length);
+  onBusy[model.source] = 1;
   model.pipes.forEach((p, k) => {
-    if (busy[k]) {
-      onBusy.add(p.from);
-      onBusy.add(p.to);
-    }
+    if (busy[k]) onBusy[p.from] = onBusy[p.to] = 1;
   });
-  const emitterAtNode = new Map(model.emitters.map((e, k) => [e.node, k]));
-  return {
-    nodes: model.nodes.flatMap((n, i) => {
-      if (!onBusy.has(i)) return [];
-      const k = emitterAtNode.get(i);
-      return [{ id: n.id, pressure: s.pressure[i]!, flow: k !== undefined ? s.emitterFlow[k]! : 0, elevation: n.elevation }];
-    }),
-    pipes: model.pipes.flatMap((p, k) =>
-      busy[k]
-        ? [
-            {
-              id: p.id,
-              from: model.nodes[p.from]!.id,
-              to: model.nodes[p.to]!.id,
-              nominalSize: p.nominalSize,
-              innerDiameter: p.diameter,
-              cFactor: p.c,
-              flow: s.flow[k]!,
-              velocity: velocityFtPerS(s.flow[k]!, p.diameter),
-              frictionPerLength: frictionPsiPerFt(s.flow[k]!, p.c, p.diameter),
-              frictionLoss: p.r * Math.abs(s.flow[k]!) ** HW_EXPONENT,
-              length: p.length,
-              fittingsLength: p.fittingsLength,
-              fittings: p.fittings,
-            },
-          ]
-        : [],
-    ),
-  };
+  const emitterAtNode = new Int32Array(model.nodes.length).fill(-1);
+  model.emitters.forEach((e, k) => {
+    emitterAtNode[e.node] = k;
+  });
+  const nodes: AreaHydraulics['nodes'] = [];
+  model.nodes.forEach((n, i) => {
+    if (!onBusy[i]) return;
+    const k = emitterAtNode[i]!;
+    nodes.push({ id: n.id, pressure: s.pressure[i]!, flow: k >= 0 ? s.emitterFlow[k]! : 0, elevation: n.elevation });
+  });
+  const pipes: AreaHydraulics['pipes'] = [];
+  model.pipes.forEach((p, k) => {
+    if (!busy[k]) return;
+    const flow = s.flow[k]!;
+    pipes.push({
+      id: p.id,
+      from: model.nodes[p.from]!.id,
+      to: model.nodes[p.to]!.id,
+      nominalSize: p.nominalSize,
+      innerDiameter: p.diameter,
+      cFactor: p.c,
+      flow,
+      velocity: velocityFtPerS(flow, p.diameter),
+      frictionPerLength: frictionPsiPerFt(flow, p.c, p.diameter),
+      frictionLoss: p.r * Math.abs(flow) ** HW_EXPONENT,
+      length: p.length,
+      fittingsLength: p.fittingsLength,
+      fittings: p.fittings,
+    });
+  });
+  return { nodes, pipes };
 }
 
 /**
