@@ -88,6 +88,8 @@ interface LivePart {
   peeledChain: Int32Array;
   /** Live chain of each skeleton chain, or −1. */
   liveIndex: Int32Array;
+  /** The anchor system's columns of the live anchors, or null when all are live (see SparseSpdSystem.solve). */
+  columns: Int32Array | null;
 }
 
 /**
@@ -209,6 +211,10 @@ export class NetworkSolver {
       return out;
     };
     const headEmitter = Int32Array.from(chainHeads);
+    // The anchor system is factored over the live anchors alone: a few heads open on a large tree leave most idle.
+    const liveAnchors: number[] = [];
+    for (let v = 0; v < sk.anchorNode.length; v++) if (v !== sk.source && this.work.liveAnchor[v]) liveAnchors.push(v - 1);
+    const columns = liveAnchors.length < sk.anchorNode.length - 1 ? this.system.columnsOf(liveAnchors) : null;
     return {
       chain: liveChain,
       aLinked: linked(aLink),
@@ -221,6 +227,7 @@ export class NetworkSolver {
       peeledAnchor: this.work.peeledAnchor.subarray(0, peeled),
       peeledChain: this.work.peeledChain.subarray(0, peeled),
       liveIndex,
+      columns,
     };
   }
 
@@ -288,7 +295,7 @@ export class NetworkSolver {
     for (let previous: Change = { flow: Infinity, head: Infinity, totalFlow: 0 }; ; ) {
       this.coefficients(it);
       this.assemble(it);
-      const anchorHeads = this.system.solve(it.w.rhs.subarray(0, it.nA - 1), it.w.solved);
+      const anchorHeads = this.system.solve(it.w.rhs.subarray(0, it.nA - 1), it.w.solved, it.live.columns);
       const change = this.updateFlows(it, anchorHeads);
       it.iterations++;
       if (it.iterations > 1 && converged(change, previous)) break;
@@ -388,12 +395,11 @@ export class NetworkSolver {
   private assemble(it: Iteration): void {
     const { system, diagSlot, pairSlot, skeleton: sk } = this;
     const { w, live, L, nE, nA, sourceHead } = it;
-    const { chain, aLinked, bLinked, headStart, liveAnchor } = live;
+    const { chain, aLinked, bLinked, headStart } = live;
     const { g, s, gE, cE, x0, xa, xb, rhs } = w;
     const src = sk.source;
-    system.clear();
+    system.clear(live.columns);
     rhs.fill(0, 0, nA - 1);
-    for (let v = 0; v < nA; v++) if (v !== src && !liveAnchor[v]) system.addAt(diagSlot[v]!, 1);
     for (let e = 0; e < nE; e++) {
       const v = w.atA[e]!;
       if (v === src) continue;

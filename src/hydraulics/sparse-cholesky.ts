@@ -1,10 +1,12 @@
 // A sparse symmetric positive-definite solver for the network equations: minimum-degree ordering, symbolic
-// factorisation once per structure, then numeric LDLᵀ per solve. Zero fill on trees; little on grids.
+// factorisation once per structure, then numeric LDLᵀ per solve, of all unknowns or of a set of them that nothing
+// couples to the rest (the live part of a large system). Zero fill on trees; little on grids.
 
 export class SparseSpdSystem {
   readonly n: number;
-  /** Elimination position of each original index. */
+  /** Elimination position of each original index, and the original index at each position. */
   private readonly pos: Int32Array;
+  private readonly order: Int32Array;
   /** Column j of L (elimination order): its rows colRows[colStart[j] .. colStart[j+1]) and their value slots. */
   private readonly colStart: Int32Array;
   private readonly colRows: Int32Array;
@@ -20,12 +22,15 @@ export class SparseSpdSystem {
   private readonly values: Float64Array;
   /** Work vector of the triangular solves, in elimination order. */
   private readonly work: Float64Array;
+  /** 0 … n − 1: every column. */
+  private readonly everyColumn: Int32Array;
 
   /** @param edges pairs of original indices with a non-zero off-diagonal entry */
   constructor(n: number, edges: readonly (readonly [number, number])[]) {
     this.n = n;
     const { order, structure } = minimumDegree(n, edges);
     this.pos = new Int32Array(n);
+    this.order = Int32Array.from(order);
     order.forEach((v, j) => {
       this.pos[v] = j;
     });
@@ -49,6 +54,7 @@ export class SparseSpdSystem {
     this.colSlot = Int32Array.from(slots);
     this.values = new Float64Array(next);
     this.work = new Float64Array(n);
+    this.everyColumn = Int32Array.from({ length: n }, (_, j) => j);
     // Updates: eliminating column j changes entry (a, b) for every pair of its rows a ≥ b (a = b: diagonal).
     const target: number[] = [];
     const ua: number[] = [];
@@ -76,8 +82,25 @@ export class SparseSpdSystem {
     return this.values.length;
   }
 
-  clear(): void {
-    this.values.fill(0);
+  /**
+   * The columns (elimination positions, in order) of some unknowns (original indices), for `clear` and `solve` to
+   * work on those alone.
+   */
+  columnsOf(indices: ArrayLike<number>): Int32Array {
+    return Int32Array.from(indices, (i) => this.pos[i]!).sort();
+  }
+
+  /** Sets the matrix to zero: every entry, or those of the given columns. */
+  clear(columns: Int32Array | null = null): void {
+    if (!columns) {
+      this.values.fill(0);
+      return;
+    }
+    const { values: v, colStart, colSlot, diagSlot } = this;
+    for (const j of columns) {
+      v[diagSlot[j]!] = 0;
+      for (let x = colStart[j]!; x < colStart[j + 1]!; x++) v[colSlot[x]!] = 0;
+    }
   }
 
   /** Adds v to entry (i, j) and (j, i) of the matrix, original indices (only entries given as edges, or diagonal). */
@@ -102,30 +125,36 @@ export class SparseSpdSystem {
 
   /**
    * Factorises in place (LDLᵀ) and solves A·x = b (original indices) into `out` (a new array when not given).
-   * Throws if A is not positive definite.
+   * Given `columns`, only those: no entry may couple them to the other unknowns (whose entries are then neither
+   * read nor changed, and whose places in `out` keep what they held). Throws if A is not positive definite.
    */
-  solve(b: Float64Array, out = new Float64Array(this.n)): Float64Array {
-    const { n, values: v, colStart, colRows, colSlot, diagSlot, updStart, updTarget, updA, updB } = this;
-    for (let j = 0; j < n; j++) {
+  solve(b: Float64Array, out = new Float64Array(this.n), columns: Int32Array | null = null): Float64Array {
+    const { values: v, colStart, colRows, colSlot, diagSlot, updStart, updTarget, updA, updB, order } = this;
+    const cols = columns ?? this.everyColumn;
+    for (const j of cols) {
       const d = v[diagSlot[j]!]!;
       if (!(d > 0)) throw new Error('network matrix is not positive definite (a part of the network has no fixed pressure)');
       // The updates use L·d·L with L = a/d: multiply the raw entries and divide by d once.
       for (let u = updStart[j]!; u < updStart[j + 1]!; u++) v[updTarget[u]!]! -= (v[updA[u]!]! * v[updB[u]!]!) / d;
       for (let x = colStart[j]!; x < colStart[j + 1]!; x++) v[colSlot[x]!]! /= d;
     }
+    // Rows outside the columns are reached below only through entries that are zero: they start at 0 (not at what
+    // an earlier solve left, which a failed one may have left not finite).
     const y = this.work;
-    for (let i = 0; i < n; i++) y[this.pos[i]!] = b[i]!;
-    for (let j = 0; j < n; j++) {
+    if (columns) for (const j of cols) for (let x = colStart[j]!; x < colStart[j + 1]!; x++) y[colRows[x]!] = 0;
+    for (const j of cols) y[j] = b[order[j]!]!;
+    for (const j of cols) {
       const yj = y[j]!;
       for (let x = colStart[j]!; x < colStart[j + 1]!; x++) y[colRows[x]!]! -= v[colSlot[x]!]! * yj;
     }
-    for (let j = 0; j < n; j++) y[j] = y[j]! / v[diagSlot[j]!]!;
-    for (let j = n - 1; j >= 0; j--) {
+    for (const j of cols) y[j] = y[j]! / v[diagSlot[j]!]!;
+    for (let k = cols.length - 1; k >= 0; k--) {
+      const j = cols[k]!;
       let s = y[j]!;
       for (let x = colStart[j]!; x < colStart[j + 1]!; x++) s -= v[colSlot[x]!]! * y[colRows[x]!]!;
       y[j] = s;
     }
-    for (let i = 0; i < n; i++) out[i] = y[this.pos[i]!]!;
+    for (const j of cols) out[order[j]!] = y[j]!;
     return out;
   }
 }
