@@ -26,19 +26,25 @@ function denseSolve(a: number[][], b: number[]): number[] {
   return x;
 }
 
+/** A random connected network of n unknowns: a random tree and up to n/2 more edges (no loops), and the generator. */
+function randomNetwork(n: number, seed: number): { rnd: () => number; edges: [number, number][] } {
+  let s = seed;
+  const rnd = () => (s = (s * 1103515245 + 12345) % 2147483648) / 2147483648;
+  const edges: [number, number][] = [];
+  for (let i = 1; i < n; i++) edges.push([i, Math.floor(rnd() * i)]);
+  for (let e = 0; e < n / 2; e++) {
+    const a = Math.floor(rnd() * n);
+    const b = Math.floor(rnd() * n);
+    if (a !== b) edges.push([a, b]);
+  }
+  return { rnd, edges };
+}
+
 describe('SparseSpdSystem', () => {
   it('solves random grounded Laplacians like dense elimination', () => {
     fc.assert(
       fc.property(fc.integer({ min: 2, max: 25 }), fc.integer({ min: 0, max: 1_000_000 }), (n, seed) => {
-        let s = seed;
-        const rnd = () => (s = (s * 1103515245 + 12345) % 2147483648) / 2147483648;
-        const edges: [number, number][] = [];
-        for (let i = 1; i < n; i++) edges.push([i, Math.floor(rnd() * i)]);
-        for (let e = 0; e < n / 2; e++) {
-          const a = Math.floor(rnd() * n);
-          const b = Math.floor(rnd() * n);
-          if (a !== b) edges.push([a, b]);
-        }
+        const { rnd, edges } = randomNetwork(n, seed);
         const sys = new SparseSpdSystem(n, edges);
         const dense = Array.from({ length: n }, () => new Array(n).fill(0));
         for (const [a, b] of edges) {
@@ -67,24 +73,17 @@ describe('SparseSpdSystem', () => {
   it('solves a part nothing couples to the rest alone: the same numbers as the whole system with the rest idle, the rest untouched', () => {
     fc.assert(
       fc.property(fc.integer({ min: 3, max: 25 }), fc.integer({ min: 0, max: 1_000_000 }), (n, seed) => {
-        let s = seed;
-        const rnd = () => (s = (s * 1103515245 + 12345) % 2147483648) / 2147483648;
-        const edges: [number, number][] = [];
-        for (let i = 1; i < n; i++) edges.push([i, Math.floor(rnd() * i)]);
-        for (let e = 0; e < n / 2; e++) edges.push([Math.floor(rnd() * n), Math.floor(rnd() * n)]);
-        const sys = new SparseSpdSystem(
-          n,
-          edges.filter(([a, b]) => a !== b),
-        );
+        const { rnd, edges } = randomNetwork(n, seed);
+        const sys = new SparseSpdSystem(n, edges);
         // A first solve of the whole system leaves its values behind, as a solve of another live part would.
-        for (const [a, b] of edges) if (a !== b) sys.add(a, b, -1 - rnd());
+        for (const [a, b] of edges) sys.add(a, b, -1 - rnd());
         for (let i = 0; i < n; i++) sys.add(i, i, 2 * n);
         sys.solve(Float64Array.from({ length: n }, () => rnd()));
         // The live part, as a network's: connected to unknown 0 (grounded) through the tree's edges, each unknown
         // live with its parent at even odds; only edges within it carry entries.
         const live: boolean[] = [true];
         for (let i = 1; i < n; i++) live.push(live[edges[i - 1]![1]]! && rnd() < 0.5);
-        const inside = edges.filter(([a, b]) => a !== b && live[a] && live[b]).map(([a, b]) => [a, b, 0.1 + rnd() * 10] as const);
+        const inside = edges.filter(([a, b]) => live[a] && live[b]).map(([a, b]) => [a, b, 0.1 + rnd() * 10] as const);
         const fill = (m: SparseSpdSystem, idle: boolean) => {
           for (const [a, b, w] of inside) {
             m.add(a, a, w);
@@ -100,10 +99,7 @@ describe('SparseSpdSystem', () => {
         fill(sys, false);
         const out = new Float64Array(n).fill(-7);
         sys.solve(b, out, columns);
-        const whole = new SparseSpdSystem(
-          n,
-          edges.filter(([a, b]) => a !== b),
-        );
+        const whole = new SparseSpdSystem(n, edges);
         fill(whole, true);
         const reference = whole.solve(b);
         for (let i = 0; i < n; i++) expect(out[i]).toBe(live[i] ? reference[i] : -7);
