@@ -60,8 +60,8 @@ const WINDOW = 2;
  * How many of a looped system's candidates are taken in the order of the estimate before the rest follow in the
  * order of their groups: a share, and at least a few. On the 5,040-head grid of the bench (282,003 placements),
  * all in the estimate's order: 225,935 solves, 46.9 s; the first 1% so, then the groups' order: 183,449 solves,
- * 23.8 s (Newton iterations a proving solve 6.3 → 4.0), the same two areas. On
- * the 1,000-head grid 24,146 → 19,030 solves for 1%, 20,687 for 10%.
+ * 23.8 s (Newton iterations a proving solve 6.3 → 4.0), the same two areas. On the 1,000-head grid 24,146 →
+ * 19,030 solves for 1%, 20,687 for 10%.
  */
 const LEAD_SHARE = 0.01;
 const LEAD_MIN = 32;

@@ -140,10 +140,10 @@ function addRiser(
   return { source: nodes.length - 1, riser: { modelled: 'virtual', length, nominalSize: feed.nominalSize } };
 }
 
-/** Each model's pipes at its nodes, made once: the skeleton, the tree walk and the tables all ask for them. */
 /** The pipes at each node of a model, by index. */
 export type PipesAtNodes = readonly (readonly number[])[];
 
+/** Each model's pipes at its nodes, made once: the skeleton, the tree walk and the tables all ask for them. */
 const pipesAtOf = new WeakMap<object, PipesAtNodes>();
 
 /** The pipes at each node of a model (one list per model, shared). */
