@@ -211,10 +211,14 @@ export class NetworkSolver {
       return out;
     };
     const headEmitter = Int32Array.from(chainHeads);
-    // The anchor system is factored over the live anchors alone: a few heads open on a large tree leave most idle.
-    const liveAnchors: number[] = [];
-    for (let v = 0; v < sk.anchorNode.length; v++) if (v !== sk.source && this.work.liveAnchor[v]) liveAnchors.push(v - 1);
-    const columns = liveAnchors.length < sk.anchorNode.length - 1 ? this.system.columnsOf(liveAnchors) : null;
+    // The anchor system is factored over the live anchors alone where some were peeled (a few heads open on a
+    // large tree leave most idle); a grid, where none is, keeps the whole system without listing it each solve.
+    let columns: Int32Array | null = null;
+    if (peeled > 0) {
+      const liveAnchors: number[] = [];
+      for (let v = 0; v < sk.anchorNode.length; v++) if (v !== sk.source && this.work.liveAnchor[v]) liveAnchors.push(v - 1);
+      columns = this.system.columnsOf(liveAnchors);
+    }
     return {
       chain: liveChain,
       aLinked: linked(aLink),
