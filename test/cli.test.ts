@@ -305,6 +305,20 @@ describe('the installed command', () => {
       forAnEditedOne: null,
     });
   });
+
+  it("checks a drawing without loading Node's modules for child processes, threads or V8's internals", () => {
+    // Each cost a small check 3-5 ms to load (measured with `require` alone in a fresh process); only batch, DWG
+    // and large drawings' collections use them, and commander spawns no program here. Common practice, no source.
+    const probe = `
+      import { loadCli } from './bin/load-cli.js';
+      process.stdout.write = () => true;
+      await loadCli().cli.main(['node', 'headcheck', 'check', 'fixtures/bay2-r2000.dxf']);
+      console.error(JSON.stringify(process.moduleLoadList));`;
+    const r = spawnSync(process.execPath, ['--input-type=module', '-e', probe], { encoding: 'utf8', timeout: 60_000 });
+    const loaded: string[] = JSON.parse(r.stderr);
+    expect(loaded).toContain('NativeModule fs'); // the list is the one asked for
+    expect(loaded.filter((m) => /^NativeModule (child_process|worker_threads|v8)$/.test(m))).toEqual([]);
+  });
 });
 
 describe('which config a command uses', () => {

@@ -4,7 +4,6 @@
 import { createHash, randomBytes } from 'node:crypto';
 import { readdirSync, readFileSync, renameSync, rmSync, statSync } from 'node:fs';
 import { open } from 'node:fs/promises';
-import { isMainThread } from 'node:worker_threads';
 import { basename, dirname, join, resolve } from 'node:path';
 import type { OutputData } from '../check/formats.js';
 import { InputError } from '../input-error.js';
@@ -160,10 +159,10 @@ function cleanAndEnd(signal: NodeJS.Signals): void {
 /**
  * While outputs are written (a write yields to the event loop between pieces), a SIGINT, SIGTERM or SIGHUP removes
  * the temporary files before the process ends. Outside writes the default stands: a check is stopped at once, and
- * it has written nothing. Returns the function that takes the guard off.
+ * it has written nothing. Returns the function that takes the guard off. In a worker thread the handlers never run
+ * (Node delivers signals to the main thread only, whose cleanUpOnSignals covers the workers' folders).
  */
 function guardTemps(): () => void {
-  if (typeof process.on !== 'function' || !isMainThread) return () => undefined;
   const handlers = SIGNALS.map((signal) => [signal, () => cleanAndEnd(signal)] as const);
   for (const [signal, handler] of handlers) process.on(signal, handler);
   return () => {
