@@ -11,8 +11,7 @@ import { CAUTION } from './caution.js';
 import { calculationHtml, type HeadNames } from './calculation-html.js';
 import { valueText } from './finding-values.js';
 import { escapeHtml as esc } from './html-escape.js';
-import { REPORT_SCRIPT } from './report-script.generated.js';
-import { sha256Base64 } from './sha256.js';
+import { REPORT_SCRIPT, REPORT_SCRIPT_SHA256 } from './report-script.generated.js';
 import { supplyGraph } from './supply-graph.js';
 import { supplyOf } from '../hydraulics/supply-path.js';
 import { pushAll } from '../arrays.js';
@@ -288,4 +287,4 @@ section{break-inside:avoid-page}header{border-left-width:4px}a{color:inherit}}
 `;
 
 /** The CSP source of the report's one script, by its SHA-256 (no other inline script may run). */
-export const REPORT_SCRIPT_HASH = `sha256-${sha256Base64(REPORT_SCRIPT)}`;
+export const REPORT_SCRIPT_HASH = `sha256-${REPORT_SCRIPT_SHA256}`;
