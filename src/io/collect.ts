@@ -38,9 +38,14 @@ function collector(): (() => void) | null {
   return gc;
 }
 
+/** A full collection where the heap has grown large. */
+export function collectIfLarge(): void {
+  if (process.memoryUsage().heapUsed > LARGE_HEAP_BYTES) collector()?.();
+}
+
 /** A stage hook for runCheck: after the stages above, a full collection where the heap has grown large. */
 export function collectBetweenStages(): (stage: string) => void {
   return (stage) => {
-    if (COLLECT_AFTER.has(stage) && process.memoryUsage().heapUsed > LARGE_HEAP_BYTES) collector()?.();
+    if (COLLECT_AFTER.has(stage)) collectIfLarge();
   };
 }

@@ -4,6 +4,8 @@
 import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 import { describe, expect, it } from 'vitest';
 import { InputError } from '../input-error.js';
 import { readInputFile, writeAllAtomically } from './files.js';
@@ -62,6 +64,35 @@ describe('writeAllAtomically', () => {
     ).rejects.toThrow(/^the drawing has no ENTITIES section$/);
     expect(made).toEqual(['json']); // the HTML was never made
     expect(readdirSync(dir)).toEqual([]);
+  });
+
+  it('holds an output no longer once it is written: it is garbage when the next is made', async () => {
+    setFlagsFromString('--expose-gc');
+    const gc = runInNewContext('gc') as () => void;
+    const dir = folder();
+    let first: WeakRef<Uint8Array> | null = null;
+    let firstAlive: boolean | null = null;
+    await writeAllAtomically([
+      {
+        path: join(dir, 'plan.dxf'),
+        data: () => {
+          const bytes = new Uint8Array(1 << 20).fill(0x20);
+          first = new WeakRef(bytes);
+          return bytes;
+        },
+      },
+      {
+        path: join(dir, 'report.json'),
+        data: () => {
+          gc();
+          firstAlive = first?.deref() !== undefined;
+          return '{}\n';
+        },
+      },
+    ]);
+    // A full collection frees what nothing reaches (common practice, no source): nothing may still hold the bytes.
+    expect(readFileSync(join(dir, 'plan.dxf')).length).toBe(1 << 20);
+    expect(firstAlive).toBe(false);
   });
 });
 
