@@ -83,15 +83,14 @@ const demandScore = (supply: ReturnType<typeof supplyOf>, pressure: number, tota
 
 /** The two areas a search at the total pressure found, calculated at the normal pressure and ranked again. */
 function rankedAtNormalPressure(
-  found: SearchOutcome,
+  chosen: Candidate[],
   network: Network,
   sourceNodeId: string,
   flowingOf: (ids: string[]) => FlowingHead[],
   settings: Settings,
   hose: number,
 ): Pick<SearchOutcome, 'best' | 'runnerUp'> {
-  const chosen = [found.best, found.runnerUp].flatMap((x) => (x ? [x.candidate] : []));
-  if (!chosen.length) return found;
+  if (!chosen.length) return { best: null, runnerUp: null };
   const calculator = new AreaCalculator(network, sourceNodeId, flowingOf([...new Set(chosen.flatMap((c) => c.headIds))]), settings);
   const supply = supplyOf(settings);
   const ranked = chosen
@@ -116,17 +115,46 @@ export function searchMostDemanding(
   options: { prune?: boolean } = {},
 ): SearchOutcome {
   if (settings.design.velocityPressure) {
+    // The tables of the two found are made at the normal pressure only: the search's model of every head is
+    // garbage by then (on 20,000 heads its two tables cost tens of megabytes).
     const atTotal = { ...settings, design: { ...settings.design, velocityPressure: false } };
-    const found = searchMostDemanding(network, sourceNodeId, groups, flowingOf, atTotal, hose, options);
-    return { ...found, ...rankedAtNormalPressure(found, network, sourceNodeId, flowingOf, settings, hose) };
+    const { top, stats } = rankAtTotalPressure(network, sourceNodeId, groups, flowingOf, atTotal, hose, options);
+    const chosen = [top.best, top.runnerUp].flatMap((x) => (x ? [x.candidate] : []));
+    return { ...stats, ...rankedAtNormalPressure(chosen, network, sourceNodeId, flowingOf, settings, hose) };
   }
+  const { top, stats, calculator } = rankAtTotalPressure(network, sourceNodeId, groups, flowingOf, settings, hose, options);
+  const withTables = (x: Scored | null): ScoredArea | null =>
+    x && calculator && { candidate: x.candidate, score: x.score, hydraulics: calculator.hydraulicsOf(x.demand, hose) };
+  return { ...stats, best: withTables(top.best), runnerUp: withTables(top.runnerUp) };
+}
+
+/** The two most demanding candidates at the total pressure, with the search's counts and its calculator. */
+function rankAtTotalPressure(
+  network: Network,
+  sourceNodeId: string,
+  groups: CandidateGroup[],
+  flowingOf: (ids: string[]) => FlowingHead[],
+  settings: Settings,
+  hose: number,
+  options: { prune?: boolean },
+): {
+  top: { best: Scored | null; runnerUp: Scored | null };
+  stats: Omit<SearchOutcome, 'best' | 'runnerUp'>;
+  calculator: AreaCalculator | null;
+} {
   const candidates = groups.reduce((n, g) => n + memberCount(g), 0);
   // Every head any candidate flows (a set filled head by head: the flat list of all candidates' heads would be
   // twenty times as long as the set).
   const anyArea = new Set<string>();
   for (const g of groups) for (const id of unionOf(g)) anyArea.add(id);
   const all = flowingOf([...anyArea]);
-  if (all.length === 0) return { best: null, runnerUp: null, candidates, evaluated: 0, screened: 0, solves: 0, pruned: false };
+  if (all.length === 0) {
+    return {
+      top: { best: null, runnerUp: null },
+      stats: { candidates, evaluated: 0, screened: 0, solves: 0, pruned: false },
+      calculator: null,
+    };
+  }
   const supply = supplyOf(settings);
   // The proof needs a supply that never rises with flow (a pump curve that rises somewhere turns pruning off).
   const prune = options.prune !== false && (supply === null || supply.nonIncreasing);
@@ -251,15 +279,5 @@ export function searchMostDemanding(
       consider(members[k]!.candidate, Infinity);
     }
   }
-  const withTables = (x: Scored | null): ScoredArea | null =>
-    x && { candidate: x.candidate, score: x.score, hydraulics: calculator.hydraulicsOf(x.demand, hose) };
-  return {
-    best: withTables(top.best),
-    runnerUp: withTables(top.runnerUp),
-    candidates,
-    evaluated,
-    screened,
-    solves,
-    pruned: bound !== null,
-  };
+  return { top, stats: { candidates, evaluated, screened, solves, pruned: bound !== null }, calculator };
 }
