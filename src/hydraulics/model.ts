@@ -66,9 +66,14 @@ export function buildModel(network: Network, sourceNodeId: string, flowing: Flow
   }
   const g = indexNetwork(network, sourceNodeId);
   const keep = pruneDeadEnds(network, g, new Set(flowingByNode.keys()));
-  const nodeIds = network.nodes.filter((_, v) => keep.nodes[v]).map((n) => n.id);
-  const index = new Map(nodeIds.map((id, i) => [id, i]));
-  const nodes: ModelNode[] = nodeIds.map((id) => ({ id, elevation: headOfNode.get(id)?.elevation ?? pipeLevel }));
+  // Each kept network node's index in the model (−1: pruned), in the network's order.
+  const modelIndex = new Int32Array(network.nodes.length).fill(-1);
+  const nodes: ModelNode[] = [];
+  network.nodes.forEach((n, v) => {
+    if (!keep.nodes[v]) return;
+    modelIndex[v] = nodes.length;
+    nodes.push({ id: n.id, elevation: headOfNode.get(n.id)?.elevation ?? pipeLevel });
+  });
   const fittings = settings.design.fittings ? inferFittings(network, g) : null;
   const pipes: ModelPipe[] = network.pipes
     .flatMap((p, k) => (keep.pipes[k] ? [{ p, k }] : []))
@@ -80,8 +85,8 @@ export function buildModel(network: Network, sourceNodeId: string, flowing: Flow
       const length = p.length + fittingsLength;
       return {
         id: p.id,
-        from: index.get(p.from)!,
-        to: index.get(p.to)!,
+        from: modelIndex[g.from[k]!]!,
+        to: modelIndex[g.to[k]!]!,
         length,
         fittingsLength,
         fittings: list,
@@ -93,15 +98,12 @@ export function buildModel(network: Network, sourceNodeId: string, flowing: Flow
       };
     });
   // Heads on piping that does not reach the source cannot flow: they are no emitters of this model.
-  const emitters: Emitter[] = [...flowingByNode.entries()]
-    .filter(([nodeId]) => index.has(nodeId))
-    .map(([nodeId, f]) => ({
-      node: index.get(nodeId)!,
-      headId: f.head.id,
-      k: f.head.kFactor,
-      required: f.required,
-    }));
-  const { source, riser } = addRiser(network, sourceNodeId, index.get(sourceNodeId)!, nodes, pipes, settings);
+  const emitters: Emitter[] = [];
+  for (const [nodeId, f] of flowingByNode) {
+    const node = modelIndex[g.at.get(nodeId) ?? -1] ?? -1;
+    if (node >= 0) emitters.push({ node, headId: f.head.id, k: f.head.kFactor, required: f.required });
+  }
+  const { source, riser } = addRiser(network, sourceNodeId, modelIndex[g.source]!, nodes, pipes, settings);
   return { nodes, pipes, emitters, source, riser };
 }
 
@@ -166,11 +168,17 @@ export function pipesAtNodes(model: Pick<HydraulicModel, 'nodes' | 'pipes'>): Pi
   return at;
 }
 
-/** The network's nodes and pipes by index: each pipe's ends, and the pipes at each node. */
+/**
+ * The network's nodes and pipes by index: each node's index by id, each pipe's ends, and the pipes at each node,
+ * node v's at `incident[start[v]]` … `incident[start[v + 1] − 1]` (one array for all: a list a node, grown by push,
+ * made megabytes of garbage per model on 20,000 heads).
+ */
 interface Indexed {
+  at: Map<string, number>;
   from: Int32Array;
   to: Int32Array;
-  incident: number[][];
+  start: Int32Array;
+  incident: Int32Array;
   source: number;
 }
 
@@ -178,19 +186,26 @@ function indexNetwork(network: Network, sourceNodeId: string): Indexed {
   const at = new Map(network.nodes.map((n, i) => [n.id, i]));
   const from = Int32Array.from(network.pipes, (p) => at.get(p.from)!);
   const to = Int32Array.from(network.pipes, (p) => at.get(p.to)!);
-  const incident: number[][] = network.nodes.map(() => []);
+  const start = new Int32Array(network.nodes.length + 1);
   for (let k = 0; k < from.length; k++) {
-    incident[from[k]!]!.push(k);
-    incident[to[k]!]!.push(k);
+    start[from[k]! + 1]!++;
+    start[to[k]! + 1]!++;
   }
-  return { from, to, incident, source: at.get(sourceNodeId)! };
+  for (let v = 0; v < network.nodes.length; v++) start[v + 1]! += start[v]!;
+  const incident = new Int32Array(2 * from.length);
+  const filled = start.slice(0, -1);
+  for (let k = 0; k < from.length; k++) {
+    incident[filled[from[k]!]!++] = k;
+    incident[filled[to[k]!]!++] = k;
+  }
+  return { at, from, to, start, incident, source: at.get(sourceNodeId) ?? -1 };
 }
 
 /** Removes, repeatedly, end nodes that neither flow nor feed (their pipes carry no water), and what does not reach the source. */
 function pruneDeadEnds(network: Network, g: Indexed, flowingNodes: Set<string>): { nodes: Uint8Array; pipes: Uint8Array } {
   const n = network.nodes.length;
   const flowing = Uint8Array.from(network.nodes, (node) => (flowingNodes.has(node.id) ? 1 : 0));
-  const degree = Int32Array.from(g.incident, (list) => list.length);
+  const degree = Int32Array.from({ length: n }, (_, v) => g.start[v + 1]! - g.start[v]!);
   const nodeOn = new Uint8Array(n).fill(1);
   const pipeOn = new Uint8Array(g.from.length).fill(1);
   const removable = (v: number) => nodeOn[v] === 1 && degree[v]! <= 1 && v !== g.source && !flowing[v];
@@ -200,7 +215,8 @@ function pruneDeadEnds(network: Network, g: Indexed, flowingNodes: Set<string>):
     const v = queue.pop()!;
     if (!removable(v)) continue;
     nodeOn[v] = 0;
-    for (const k of g.incident[v]!) {
+    for (let i = g.start[v]!; i < g.start[v + 1]!; i++) {
+      const k = g.incident[i]!;
       if (!pipeOn[k]) continue;
       pipeOn[k] = 0;
       const other = g.from[k] === v ? g.to[k]! : g.from[k]!;
@@ -215,7 +231,10 @@ function pruneDeadEnds(network: Network, g: Indexed, flowingNodes: Set<string>):
     const v = stack.pop()!;
     if (reached[v]) continue;
     reached[v] = 1;
-    for (const k of g.incident[v]!) if (pipeOn[k]) stack.push(g.from[k] === v ? g.to[k]! : g.from[k]!);
+    for (let i = g.start[v]!; i < g.start[v + 1]!; i++) {
+      const k = g.incident[i]!;
+      if (pipeOn[k]) stack.push(g.from[k] === v ? g.to[k]! : g.from[k]!);
+    }
   }
   for (let k = 0; k < pipeOn.length; k++) if (!reached[g.from[k]!]) pipeOn[k] = 0;
   return { nodes: reached, pipes: pipeOn };
@@ -227,8 +246,11 @@ function pruneDeadEnds(network: Network, g: Indexed, flowingNodes: Set<string>):
  * that feeds the junction (flow straight through a tee is not charged). Feeding direction: breadth-first
  * from the source. By pipe index.
  */
-function inferFittings(network: Network, g: Indexed): string[][] {
-  const out = network.pipes.map((p) => Array.from({ length: p.bends }, () => 'elbow'));
+function inferFittings(network: Network, g: Indexed): (string[] | undefined)[] {
+  // A list only for pipes with a fitting: most have none, and the network's pipes outnumber the model's.
+  const out: (string[] | undefined)[] = network.pipes.map((p) =>
+    p.bends > 0 ? Array.from({ length: p.bends }, () => 'elbow') : undefined,
+  );
   if (g.source < 0) return out;
   const feeder = new Int32Array(network.nodes.length).fill(-1);
   const seen = new Uint8Array(network.nodes.length);
@@ -236,14 +258,16 @@ function inferFittings(network: Network, g: Indexed): string[][] {
   const queue = [g.source];
   for (let i = 0; i < queue.length; i++) {
     const u = queue[i]!;
-    for (const k of g.incident[u]!) {
+    const junction = g.start[u + 1]! - g.start[u]! >= 3;
+    for (let j = g.start[u]!; j < g.start[u + 1]!; j++) {
+      const k = g.incident[j]!;
       const v = g.from[k] === u ? g.to[k]! : g.from[k]!;
       if (seen[v]) continue;
       seen[v] = 1;
       queue.push(v);
       feeder[v] = k;
       const upstream = feeder[u]!;
-      if (upstream >= 0 && g.incident[u]!.length >= 3 && network.pipes[upstream]!.run !== network.pipes[k]!.run) out[k]!.push('tee');
+      if (upstream >= 0 && junction && network.pipes[upstream]!.run !== network.pipes[k]!.run) (out[k] ??= []).push('tee');
     }
   }
   return out;
