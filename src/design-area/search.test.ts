@@ -123,9 +123,15 @@ describe('design-area search', () => {
             ids.map((id) => ({ head: byId.get(id)!, required: Math.max(7, ((0.2 * areaOf(id)) / 5.6) ** 2) }));
           const bound = treeBound(buildModel(r.network, source, flowingOf(r.plan.heads.map((h) => h.id)), settings))!;
           const fam = lineFamilies(r.network, r.network.branchLines, r.plan.heads, r.coverage, basis.area)[0]!;
-          for (const g of candidateGroupsOf(fam, areaOf, basis.area)) {
-            // one bound for every placement of the group's leftover: above each one's exact demand
-            const any = g.next ? bound.boundAlong(g.base, g.next.heads, g.next.first, lastRun(g), g.next.size)! : bound.bound(g.base)!;
+          const groups = candidateGroupsOf(fam, areaOf, basis.area);
+          bound.knowLines(fam.lines.map((l) => l.ids));
+          for (const g of groups) {
+            // one bound for every placement of the group's leftover, summed window by window as the search does:
+            // above each one's exact demand
+            const any = bound.boundOfGroup(
+              g.base,
+              g.next && { heads: g.next.heads, first: g.next.first, last: lastRun(g), size: g.next.size },
+            )!;
             for (const c of membersOf(g)) {
               const exact = calculateArea(r.network, source, flowingOf(c.headIds), settings, 0);
               const b = bound.bound(c.headIds)!;

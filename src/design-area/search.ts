@@ -210,9 +210,12 @@ function rankAtTotalPressure(
 
   if (bound) {
     // Trees: groups in order of a bound that holds for all their candidates (every placement of the leftover);
-    // once a group cannot beat the runner-up, neither can any group left.
+    // once a group cannot beat the runner-up, neither can any group left. Each line's windows are summed once for
+    // every group that holds them (the lines are those the groups' leftovers go on: every line but at an edge).
+    // 38,597 groups of a 20,000-head tree: bounds 335-515 → 229-310 ms.
+    bound.knowLines(new Set(groups.flatMap((g) => (g.next ? [g.next.heads] : []))));
     const upperOfGroup = (g: CandidateGroup, first: number, last: number) =>
-      scoreOf(g.next ? bound.boundAlong(g.base, g.next.heads, first, last, g.next.size) : bound.bound(g.base)) ?? Infinity;
+      scoreOf(bound.boundOfGroup(g.base, g.next && { heads: g.next.heads, first, last, size: g.next.size })) ?? Infinity;
     const upper = groups.map((g) => upperOfGroup(g, g.next?.first ?? 0, lastRun(g)));
     const order = groups.map((_, i) => i).sort((a, b) => upper[b]! - upper[a]!);
     /** A group's placements `first` … `last`, halved while their common bound beats the runner-up (the more demanding half first). */

@@ -21,6 +21,15 @@ export interface TreeBound {
    * pressure, draws at least the flow of each. `line` is the heads of a line in order, the same array every call.
    */
   boundAlong(base: string[], line: readonly string[], first: number, last: number, size: number): Demand | null;
+  /**
+   * The bound of `boundAlong` (of `bound` where `next` is null) for a group whose `base` is whole windows of lines
+   * made known by `knowLines`, each a row of a line's heads: each window's water is summed where its line's water
+   * meets other water, once for every group that holds the window, and enters the walk there as one input. The
+   * same bound to rounding; the plain walk where a head's line is unknown or its water meets another line's below.
+   */
+  boundOfGroup(base: string[], next: { heads: readonly string[]; first: number; last: number; size: number } | null): Demand | null;
+  /** Lines whose windows `boundOfGroup` may sum once: each the heads of a line in order, the same array every call. */
+  knowLines(lines: Iterable<readonly string[]>): void;
 }
 
 /**
@@ -91,10 +100,23 @@ interface LineWater {
   top: number;
   belowAnchor: Set<number>;
   belowChain: Set<number>;
-  runs: Map<number, (Demand | null)[]>;
+  runs: Map<number, Runs>;
+  /** Each window's pressure and flow at `top`, by `from · (length + 1) + to`. */
+  windows: Map<number, Demand | null>;
 }
 
-/** An input joining at an anchor once every input from below has arrived (the summed runs of a line). */
+/**
+ * The runs of one size along a line, by first head, as summed at the line's top once `summed`: each one's pressure
+ * (Infinity: no bound holds) and its flow over the pressure's power, q / p^e: at a pressure P above p the run draws
+ * at most that times P^e.
+ */
+interface Runs {
+  summed: Uint8Array;
+  pressure: Float64Array;
+  perPower: Float64Array;
+}
+
+/** An input joining at an anchor once every input from below has arrived (a line's summed runs, or a window's water). */
 interface Extra {
   anchor: number;
   pressure: number;
@@ -103,6 +125,8 @@ interface Extra {
 
 /** a^x for a > 0 (exp and log: twice as fast as the power operator in V8). */
 const pow = (a: number, x: number) => Math.exp(x * Math.log(a));
+
+const NO_EXTRAS: readonly Extra[] = [];
 
 class KFactorWalk implements TreeBound {
   private readonly sk: Skeleton;
@@ -147,6 +171,16 @@ class KFactorWalk implements TreeBound {
   private readonly scratch = new Float64Array(3);
   private levelSeen = false;
   private readonly lines = new WeakMap<readonly string[], LineWater | null>();
+  /**
+   * The known lines by number, their waters, whether each one's water meets another's (1), and for each of their
+   * heads a slot (by id) that holds its line's number and its place on it.
+   */
+  private readonly knownLines: (readonly string[])[] = [];
+  private knownWaters: (LineWater | null)[] = [];
+  private linesMeet: Uint8Array = new Uint8Array(0);
+  private readonly slotOfHead = new Map<string, number>();
+  private slotLine: Int32Array = new Int32Array(0);
+  private slotPlace: Int32Array = new Int32Array(0);
 
   constructor(
     private readonly model: HydraulicModel,
@@ -188,31 +222,138 @@ class KFactorWalk implements TreeBound {
   }
 
   bound(headIds: string[]): Demand | null {
-    return this.walk(headIds, -1, null);
+    return this.walk(headIds, -1, NO_EXTRAS);
   }
 
   boundAlong(base: string[], line: readonly string[], first: number, last: number, size: number): Demand | null {
-    if (first >= last) return this.walk([...base, ...line.slice(first, first + size)], -1, null);
+    if (first >= last) return this.walk([...base, ...line.slice(first, first + size)], -1, NO_EXTRAS);
     const w = this.lineWater(line);
     if (!w) return null;
     for (const id of base) {
       const e = this.emitterOf.get(id);
       if (!e) return null;
-      if (this.meetsBelow(e, w)) return this.walk([...base, ...line.slice(first, last + size)], -1, null);
+      if (this.meetsBelow(e, w)) return this.walk([...base, ...line.slice(first, last + size)], -1, NO_EXTRAS);
     }
-    let each = w.runs.get(size);
-    if (!each) w.runs.set(size, (each = new Array<Demand | null>(line.length)));
+    const runs = this.runsAt(line, w, first, last, size);
+    return runs && this.walk(base, -1, [runs]);
+  }
+
+  boundOfGroup(base: string[], next: { heads: readonly string[]; first: number; last: number; size: number } | null): Demand | null {
+    const plain = () => (next ? this.boundAlong(base, next.heads, next.first, next.last, next.size) : this.bound(base));
+    const windows = this.windowsOf(base);
+    const nextLine = next ? this.slotOfHead.get(next.heads[0]!) : undefined;
+    if (!windows || (next && (nextLine === undefined || this.knownLines[this.slotLine[nextLine]!] !== next.heads))) return plain();
+    const extras: Extra[] = [];
+    for (let k = 0; k < windows.length; k += 3) {
+      const number = windows[k]!;
+      if (this.linesMeet[number]) return plain();
+      const line = this.knownLines[number]!;
+      const w = this.knownWaters[number]!;
+      const key = windows[k + 1]! * (line.length + 1) + windows[k + 2]!;
+      let d = w.windows.get(key);
+      if (d === undefined) w.windows.set(key, (d = this.walk(line.slice(windows[k + 1]!, windows[k + 2]!), w.top, NO_EXTRAS)));
+      if (!d) return null;
+      extras.push({ anchor: w.top, pressure: d.pressure, flow: d.flow });
+    }
+    if (next) {
+      const number = this.slotLine[nextLine!]!;
+      if (this.linesMeet[number]) return plain();
+      const runs = this.runsAt(next.heads, this.knownWaters[number]!, next.first, next.last, next.size);
+      if (!runs) return null;
+      extras.push(runs);
+    }
+    return this.walk([], -1, extras);
+  }
+
+  knowLines(lines: Iterable<readonly string[]>): void {
+    for (const line of lines) this.knownLines.push(line);
+    const slots = this.knownLines.reduce((n, line) => n + line.length, 0);
+    this.slotLine = new Int32Array(slots);
+    this.slotPlace = new Int32Array(slots);
+    this.slotOfHead.clear();
+    let slot = 0;
+    this.knownLines.forEach((line, number) => {
+      line.forEach((id, place) => {
+        this.slotOfHead.set(id, slot);
+        this.slotLine[slot] = number;
+        this.slotPlace[slot++] = place;
+      });
+    });
+    this.knownWaters = this.knownLines.map((line) => this.lineWater(line));
+    this.linesMeet = this.meetingLines();
+  }
+
+  /**
+   * The runs of `size` heads of a line starting at `first` … `last`, summed at its top as one input: at least the
+   * pressure of each, and at any higher pressure P at least the flow of each, q·(P/p)^e = P^e · q/p^e (null: no bound).
+   */
+  private runsAt(line: readonly string[], w: LineWater, first: number, last: number, size: number): Extra | null {
+    let runs = w.runs.get(size);
+    if (!runs) {
+      runs = { summed: new Uint8Array(line.length), pressure: new Float64Array(line.length), perPower: new Float64Array(line.length) };
+      w.runs.set(size, runs);
+    }
     let pressure = 0;
+    let perPower = 0;
     for (let k = first; k <= last; k++) {
       // A run's sum at `top` is the same in every group it is a placement of.
-      let d = each[k];
-      if (d === undefined) each[k] = d = this.walk(line.slice(k, k + size), w.top, null);
-      if (!d) return null;
-      pressure = Math.max(pressure, d.pressure);
+      if (!runs.summed[k]) {
+        const d = this.walk(line.slice(k, k + size), w.top, NO_EXTRAS);
+        runs.summed[k] = 1;
+        runs.pressure[k] = d ? d.pressure : Number.POSITIVE_INFINITY;
+        runs.perPower[k] = d && d.flow > 0 ? d.flow / pow(d.pressure, this.raiseExponent) : 0;
+      }
+      if (runs.pressure[k] === Number.POSITIVE_INFINITY) return null;
+      pressure = Math.max(pressure, runs.pressure[k]!);
+      perPower = Math.max(perPower, runs.perPower[k]!);
     }
-    let flow = 0;
-    for (let k = first; k <= last; k++) flow = Math.max(flow, each[k]!.flow * pow(pressure / each[k]!.pressure, this.raiseExponent));
-    return this.walk(base, -1, { anchor: w.top, pressure, flow });
+    return { anchor: w.top, pressure, flow: perPower * pow(pressure, this.raiseExponent) };
+  }
+
+  /** A base's windows on known lines in its order, as (line number, from, to) triples; null where a head is on none. */
+  private windowsOf(base: readonly string[]): number[] | null {
+    const out: number[] = [];
+    for (const id of base) {
+      const slot = this.slotOfHead.get(id);
+      if (slot === undefined) return null;
+      const number = this.slotLine[slot]!;
+      const place = this.slotPlace[slot]!;
+      const n = out.length;
+      if (n && out[n - 3] === number && out[n - 1] === place) out[n - 1]++;
+      else out.push(number, place, place + 1);
+    }
+    return out;
+  }
+
+  /**
+   * The known lines whose water meets another known line's below that one's top, or that hold an unknown head:
+   * each line's anchors and chains below its top are its own, and a line whose heads' way up, or whose way on from
+   * its top, passes what is another's meets that one (1). Every other line's windows may be summed at its top alone.
+   */
+  private meetingLines(): Uint8Array {
+    const anchorOwner = new Int32Array(this.sk.anchorNode.length).fill(-1);
+    const chainOwner = new Int32Array(this.sk.chains.length).fill(-1);
+    const meet = new Uint8Array(this.knownLines.length);
+    const claim = (owner: Int32Array, at: number, line: number) => {
+      if (owner[at] === -1) owner[at] = line;
+      else if (owner[at] !== line) meet[line] = meet[owner[at]!] = 1;
+    };
+    this.knownWaters.forEach((w, line) => {
+      if (!w) {
+        meet[line] = 1;
+        return;
+      }
+      for (const a of w.belowAnchor) claim(anchorOwner, a, line);
+      for (const c of w.belowChain) claim(chainOwner, c, line);
+    });
+    this.knownWaters.forEach((w, line) => {
+      for (let v = w ? w.top : -1; v >= 0; v = this.upAnchor[v]!) {
+        const up = this.upChain[v]!;
+        for (const other of [anchorOwner[v]!, up >= 0 ? chainOwner[up]! : -1])
+          if (other >= 0 && other !== line) meet[line] = meet[other] = 1;
+      }
+    });
+    return meet;
   }
 
   private z(node: number): number {
@@ -291,10 +432,10 @@ class KFactorWalk implements TreeBound {
 
   /**
    * The walk of the open heads `headIds` towards the source: the source's pressure and flow, or the anchor
-   * `stopAt`'s once every head below it has arrived; `extra` joins at its anchor as one more input.
+   * `stopAt`'s once every head below it has arrived; each of `extras` joins at its anchor as one more input.
    */
-  private walk(headIds: string[], stopAt: number, extra: Extra | null): Demand | null {
-    const top = this.gather(headIds, extra);
+  private walk(headIds: string[], stopAt: number, extras: readonly Extra[]): Demand | null {
+    const top = this.gather(headIds, extras);
     if (top < 0) return null;
     this.joinAnchorHeads();
     const { P, Q, R, order, upAnchor, sk } = this;
@@ -302,7 +443,8 @@ class KFactorWalk implements TreeBound {
     this.touchedRanks.subarray(0, this.touched).sort();
     for (let x = this.touched - 1; x >= 0; x--) {
       const v = order[this.touchedRanks[x]!]!;
-      if (extra && v === extra.anchor) {
+      for (const extra of extras) {
+        if (v !== extra.anchor) continue;
         // Every input from below has arrived: the extra one joins.
         this.scratch[0] = Q[v]! > 0 ? this.pressureAt(v) : 0;
         this.scratch[1] = Q[v]!;
@@ -346,12 +488,13 @@ class KFactorWalk implements TreeBound {
    * where all the water meets touched; that meeting anchor, or −1 where no bound holds (an unknown head, no head,
    * mixed elevations).
    */
-  private gather(headIds: string[], extra: Extra | null): number {
+  private gather(headIds: string[], extras: readonly Extra[]): number {
     this.epoch++;
     this.touched = 0;
     this.levelSeen = false;
     this.headCount = 0;
-    let top = extra ? extra.anchor : -1;
+    let top = -1;
+    for (const extra of extras) top = top < 0 ? extra.anchor : this.lift.meet(top, extra.anchor);
     for (const id of headIds) {
       const e = this.emitterOf.get(id);
       if (!e) return -1;
@@ -360,7 +503,7 @@ class KFactorWalk implements TreeBound {
     }
     if (top < 0) return -1;
     if (top !== this.sk.source && !this.atLevel(this.pathLevel[this.upAnchor[top]!]!)) return -1;
-    if (extra && !this.touch(extra.anchor, top)) return -1;
+    for (const extra of extras) if (!this.touch(extra.anchor, top)) return -1;
     for (let h = 0; h < this.headCount; h++) {
       const e = this.heads[h]!;
       if (this.sk.anchorOf[e.node]! < 0) this.placeOnChain(e);
@@ -449,7 +592,7 @@ class KFactorWalk implements TreeBound {
           if (this.upChain[v]! >= 0) belowChain.add(this.upChain[v]!);
         }
       }
-      water = { top, belowAnchor, belowChain, runs: new Map() };
+      water = { top, belowAnchor, belowChain, runs: new Map(), windows: new Map() };
     }
     this.lines.set(line, water);
     return water;
