@@ -105,6 +105,18 @@ function rankedAtNormalPressure(
 /** Margin over the solver's pressure tolerance when comparing scores, psi. */
 const SCORE_TOL = 1e-5;
 
+/** What a search is asked: the groups of candidates on the system fed from `sourceNodeId`, and how heads flow. */
+interface SearchTask {
+  network: Network;
+  sourceNodeId: string;
+  groups: CandidateGroup[];
+  flowingOf: (ids: string[]) => FlowingHead[];
+  settings: Settings;
+  hose: number;
+  options: { prune?: boolean };
+}
+
+/** The most demanding design area and the runner-up among the groups' candidates, with their tables. */
 export function searchMostDemanding(
   network: Network,
   sourceNodeId: string,
@@ -114,30 +126,23 @@ export function searchMostDemanding(
   hose: number,
   options: { prune?: boolean } = {},
 ): SearchOutcome {
+  const task = { network, sourceNodeId, groups, flowingOf, settings, hose, options };
   if (settings.design.velocityPressure) {
     // The tables of the two found are made at the normal pressure only: the search's model of every head is
     // garbage by then (on 20,000 heads its two tables cost tens of megabytes).
     const atTotal = { ...settings, design: { ...settings.design, velocityPressure: false } };
-    const { top, stats } = rankAtTotalPressure(network, sourceNodeId, groups, flowingOf, atTotal, hose, options);
+    const { top, stats } = rankAtTotalPressure({ ...task, settings: atTotal });
     const chosen = [top.best, top.runnerUp].flatMap((x) => (x ? [x.candidate] : []));
     return { ...stats, ...rankedAtNormalPressure(chosen, network, sourceNodeId, flowingOf, settings, hose) };
   }
-  const { top, stats, calculator } = rankAtTotalPressure(network, sourceNodeId, groups, flowingOf, settings, hose, options);
+  const { top, stats, calculator } = rankAtTotalPressure(task);
   const withTables = (x: Scored | null): ScoredArea | null =>
     x && calculator && { candidate: x.candidate, score: x.score, hydraulics: calculator.hydraulicsOf(x.demand, hose) };
   return { ...stats, best: withTables(top.best), runnerUp: withTables(top.runnerUp) };
 }
 
 /** The two most demanding candidates at the total pressure, with the search's counts and its calculator. */
-function rankAtTotalPressure(
-  network: Network,
-  sourceNodeId: string,
-  groups: CandidateGroup[],
-  flowingOf: (ids: string[]) => FlowingHead[],
-  settings: Settings,
-  hose: number,
-  options: { prune?: boolean },
-): {
+function rankAtTotalPressure({ network, sourceNodeId, groups, flowingOf, settings, hose, options }: SearchTask): {
   top: { best: Scored | null; runnerUp: Scored | null };
   stats: Omit<SearchOutcome, 'best' | 'runnerUp'>;
   calculator: AreaCalculator | null;

@@ -8,6 +8,7 @@ import { EPANET_PSI_PER_FT, solveWithEpanet } from '../../test/support/epanet.js
 import { calculateArea } from './calculate.js';
 import { frictionPsiPerFt, resistance } from './hazen-williams.js';
 import { buildModel, type HydraulicModel } from './model.js';
+import { modelPipe } from '../../test/support/model-pipe.js';
 import { NetworkSolver } from './solver.js';
 import { availablePressure, flowAtZeroPressure } from './water-supply.js';
 
@@ -86,32 +87,8 @@ describe('network solver', () => {
         { id: 'N2', elevation: 0 },
       ],
       pipes: [
-        {
-          id: 'A',
-          from: 0,
-          to: 1,
-          length: 10,
-          fittingsLength: 0,
-          fittings: [],
-          nominalSize: '1',
-          diameter: 1.049,
-          c: 120,
-          r: resistance(10, 120, 1.049),
-          run: 0,
-        },
-        {
-          id: 'B',
-          from: 1,
-          to: 2,
-          length: 12,
-          fittingsLength: 0,
-          fittings: [],
-          nominalSize: '1',
-          diameter: 1.049,
-          c: 120,
-          r: resistance(12, 120, 1.049),
-          run: 0,
-        },
+        { ...modelPipe(0, 1, resistance(10, 120, 1.049)), id: 'A' },
+        { ...modelPipe(1, 2, resistance(12, 120, 1.049)), id: 'B', length: 12 },
       ],
       emitters: [
         { node: 1, headId: 'H1', k: 5.6, required: p2 },

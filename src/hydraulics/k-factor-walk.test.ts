@@ -4,20 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { treeBound, type Demand } from './k-factor-walk.js';
 import type { HydraulicModel } from './model.js';
-
-const pipe = (from: number, to: number, r: number) => ({
-  id: `P${from}-${to}`,
-  from,
-  to,
-  length: 10,
-  fittingsLength: 0,
-  fittings: [],
-  nominalSize: '1' as const,
-  diameter: 1.049,
-  c: 120,
-  r,
-  run: 0,
-});
+import { modelPipe as pipe } from '../../test/support/model-pipe.js';
 
 /**
  * A source (0) and a cross main 0 — 1 — 2; line A from junction 1: heads a1 (3), a2 (4), a3 (7) in a row; line B

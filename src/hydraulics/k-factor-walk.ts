@@ -346,11 +346,17 @@ class KFactorWalk implements TreeBound {
       for (const a of w.belowAnchor) claim(anchorOwner, a, line);
       for (const c of w.belowChain) claim(chainOwner, c, line);
     });
+    // Whether the way from an anchor to the source passes what a line owns (from the source down: one pass).
+    const ownedAbove = new Uint8Array(this.sk.anchorNode.length);
+    const ownedAt = (v: number) => anchorOwner[v]! >= 0 || (this.upChain[v]! >= 0 && chainOwner[this.upChain[v]!]! >= 0);
+    for (const v of this.order) ownedAbove[v] = ownedAt(v) || (this.upAnchor[v]! >= 0 && ownedAbove[this.upAnchor[v]!] === 1) ? 1 : 0;
+    // A line owns nothing above its top: whatever its way on passes is another's (those few are walked).
     this.knownWaters.forEach((w, line) => {
-      for (let v = w ? w.top : -1; v >= 0; v = this.upAnchor[v]!) {
-        const up = this.upChain[v]!;
-        for (const other of [anchorOwner[v]!, up >= 0 ? chainOwner[up]! : -1])
-          if (other >= 0 && other !== line) meet[line] = meet[other] = 1;
+      if (!w || !ownedAbove[w.top]) return;
+      meet[line] = 1;
+      for (let v = w.top; v >= 0; v = this.upAnchor[v]!) {
+        if (anchorOwner[v]! >= 0) meet[anchorOwner[v]!] = 1;
+        if (this.upChain[v]! >= 0 && chainOwner[this.upChain[v]!]! >= 0) meet[chainOwner[this.upChain[v]!]!] = 1;
       }
     });
     return meet;

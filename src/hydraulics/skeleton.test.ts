@@ -3,21 +3,8 @@
 
 import { describe, expect, it } from 'vitest';
 import type { HydraulicModel } from './model.js';
+import { modelPipe as pipe } from '../../test/support/model-pipe.js';
 import { buildSkeleton } from './skeleton.js';
-
-const pipe = (from: number, to: number, r: number) => ({
-  id: `P${from}-${to}`,
-  from,
-  to,
-  length: 1,
-  fittingsLength: 0,
-  fittings: [],
-  nominalSize: '1' as const,
-  diameter: 1,
-  c: 120,
-  r,
-  run: 0,
-});
 
 // S(0) — 1 — T(2) — 3 — 4 (end), and T(2) — 5 — 6 — back to T(2) (a loop), pipe 4 drawn backwards.
 // Resistances 1 to 7 are invented for the test: only their sums along each chain are checked.
