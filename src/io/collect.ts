@@ -1,5 +1,5 @@
-// Full garbage collections between a check's stages, where the heap has grown large: each stage leaves most of
-// what it allocated behind, and V8 lets the heap grow to about four times what was live at its last full collection.
+// Garbage collection where a check's heap has grown large: full collections between its stages and before each
+// output (each leaves most of what it allocated behind), and its design-area stage run with the heap held close.
 
 import { runInNewContext } from 'node:vm';
 
