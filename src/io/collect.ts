@@ -52,7 +52,10 @@ export function collectIfLarge(): void {
  */
 const SEARCH_HEAP_GROWTH_PERCENT = 20;
 
-/** Whether the share above is set (a process's flag: the next check's first stage takes it off if one ended early). */
+/**
+ * Whether the share above is set. It is a process's flag: the next check's first stage takes it off if one ended
+ * early, and a batch's worker threads share it (a large drawing's search then holds the others' heaps close too).
+ */
 let held = false;
 
 /** Sets V8's heap growing share (0: its own factor); false where node:v8 cannot be reached. */
