@@ -172,10 +172,11 @@ class KFactorWalk implements TreeBound {
   private levelSeen = false;
   private readonly lines = new WeakMap<readonly string[], LineWater | null>();
   /**
-   * The known lines by number, their waters, whether each one's water meets another's (1), and for each of their
-   * heads a slot (by id) that holds its line's number and its place on it.
+   * The known lines by number (and their numbers), their waters, whether each one's water meets another's (1), and
+   * for each of their heads a slot (by id) that holds its line's number and its place on it.
    */
   private readonly knownLines: (readonly string[])[] = [];
+  private readonly numberOfLine = new Map<readonly string[], number>();
   private knownWaters: (LineWater | null)[] = [];
   private linesMeet: Uint8Array = new Uint8Array(0);
   private readonly slotOfHead = new Map<string, number>();
@@ -241,8 +242,8 @@ class KFactorWalk implements TreeBound {
   boundOfGroup(base: string[], next: { heads: readonly string[]; first: number; last: number; size: number } | null): Demand | null {
     const plain = () => (next ? this.boundAlong(base, next.heads, next.first, next.last, next.size) : this.bound(base));
     const windows = this.windowsOf(base);
-    const nextLine = next ? this.slotOfHead.get(next.heads[0]!) : undefined;
-    if (!windows || (next && (nextLine === undefined || this.knownLines[this.slotLine[nextLine]!] !== next.heads))) return plain();
+    const nextLine = next ? this.numberOfLine.get(next.heads) : undefined;
+    if (!windows || (next && nextLine === undefined)) return plain();
     const extras: Extra[] = [];
     for (let k = 0; k < windows.length; k += 3) {
       const number = windows[k]!;
@@ -256,9 +257,8 @@ class KFactorWalk implements TreeBound {
       extras.push({ anchor: w.top, pressure: d.pressure, flow: d.flow });
     }
     if (next) {
-      const number = this.slotLine[nextLine!]!;
-      if (this.linesMeet[number]) return plain();
-      const runs = this.runsAt(next.heads, this.knownWaters[number]!, next.first, next.last, next.size);
+      if (this.linesMeet[nextLine!]) return plain();
+      const runs = this.runsAt(next.heads, this.knownWaters[nextLine!]!, next.first, next.last, next.size);
       if (!runs) return null;
       extras.push(runs);
     }
@@ -273,6 +273,7 @@ class KFactorWalk implements TreeBound {
     this.slotOfHead.clear();
     let slot = 0;
     this.knownLines.forEach((line, number) => {
+      this.numberOfLine.set(line, number);
       line.forEach((id, place) => {
         this.slotOfHead.set(id, slot);
         this.slotLine[slot] = number;

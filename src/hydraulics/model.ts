@@ -153,26 +153,37 @@ export function pipesAtNodes(model: Pick<HydraulicModel, 'nodes' | 'pipes'>): Pi
   const known = pipesAtOf.get(model);
   if (known) return known;
   // Lists of exact length (a list grown by push keeps room for 17 pipes: 20,000 nodes would take 4 MB, not 1).
-  const degree = new Int32Array(model.nodes.length);
-  for (const p of model.pipes) {
-    degree[p.from]!++;
-    degree[p.to]!++;
-  }
-  const at = Array.from(degree, (n) => new Array<number>(n));
-  degree.fill(0);
-  model.pipes.forEach((p, k) => {
-    at[p.from]![degree[p.from]!++] = k;
-    at[p.to]![degree[p.to]!++] = k;
-  });
+  const { start, incident } = incidence(
+    model.nodes.length,
+    Int32Array.from(model.pipes, (p) => p.from),
+    Int32Array.from(model.pipes, (p) => p.to),
+  );
+  const at = Array.from(model.nodes, (_, v) => Array.from(incident.subarray(start[v]!, start[v + 1]!)));
   pipesAtOf.set(model, at);
   return at;
 }
 
 /**
- * The network's nodes and pipes by index: each node's index by id, each pipe's ends, and the pipes at each node,
- * node v's at `incident[start[v]]` … `incident[start[v + 1] − 1]` (one array for all: a list a node, grown by push,
- * made megabytes of garbage per model on 20,000 heads).
+ * The pipes at each of `n` nodes, pipes given by their ends, in pipe order: node v's at `incident[start[v]]` …
+ * `incident[start[v + 1] − 1]` (one array for all: a list a node, grown by push, is megabytes of garbage on 20,000 heads).
  */
+function incidence(n: number, from: Int32Array, to: Int32Array): { start: Int32Array; incident: Int32Array } {
+  const start = new Int32Array(n + 1);
+  for (let k = 0; k < from.length; k++) {
+    start[from[k]! + 1]!++;
+    start[to[k]! + 1]!++;
+  }
+  for (let v = 0; v < n; v++) start[v + 1]! += start[v]!;
+  const incident = new Int32Array(2 * from.length);
+  const filled = start.slice(0, -1);
+  for (let k = 0; k < from.length; k++) {
+    incident[filled[from[k]!]!++] = k;
+    incident[filled[to[k]!]!++] = k;
+  }
+  return { start, incident };
+}
+
+/** The network's nodes and pipes by index: each node's index by id, each pipe's ends, and the pipes at each node. */
 interface Indexed {
   at: Map<string, number>;
   from: Int32Array;
@@ -186,18 +197,7 @@ function indexNetwork(network: Network, sourceNodeId: string): Indexed {
   const at = new Map(network.nodes.map((n, i) => [n.id, i]));
   const from = Int32Array.from(network.pipes, (p) => at.get(p.from)!);
   const to = Int32Array.from(network.pipes, (p) => at.get(p.to)!);
-  const start = new Int32Array(network.nodes.length + 1);
-  for (let k = 0; k < from.length; k++) {
-    start[from[k]! + 1]!++;
-    start[to[k]! + 1]!++;
-  }
-  for (let v = 0; v < network.nodes.length; v++) start[v + 1]! += start[v]!;
-  const incident = new Int32Array(2 * from.length);
-  const filled = start.slice(0, -1);
-  for (let k = 0; k < from.length; k++) {
-    incident[filled[from[k]!]!++] = k;
-    incident[filled[to[k]!]!++] = k;
-  }
+  const { start, incident } = incidence(network.nodes.length, from, to);
   return { at, from, to, start, incident, source: at.get(sourceNodeId) ?? -1 };
 }
 
