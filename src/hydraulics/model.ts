@@ -7,6 +7,7 @@ import type { NominalSize } from '../quantities/pipe-sizes.js';
 import type { Head } from '../read/plan.js';
 import { EQUIVALENT_LENGTH_FT, fittingFactor } from './fittings.js';
 import { resistance } from './hazen-williams.js';
+import { incidence } from '../network/incidence.js';
 
 export interface ModelNode {
   id: string;
@@ -161,26 +162,6 @@ export function pipesAtNodes(model: Pick<HydraulicModel, 'nodes' | 'pipes'>): Pi
   const at = Array.from(model.nodes, (_, v) => Array.from(incident.subarray(start[v]!, start[v + 1]!)));
   pipesAtOf.set(model, at);
   return at;
-}
-
-/**
- * The pipes at each of `n` nodes, pipes given by their ends, in pipe order: node v's at `incident[start[v]]` …
- * `incident[start[v + 1] − 1]` (one array for all: a list a node, grown by push, is megabytes of garbage on 20,000 heads).
- */
-function incidence(n: number, from: Int32Array, to: Int32Array): { start: Int32Array; incident: Int32Array } {
-  const start = new Int32Array(n + 1);
-  for (let k = 0; k < from.length; k++) {
-    start[from[k]! + 1]!++;
-    start[to[k]! + 1]!++;
-  }
-  for (let v = 0; v < n; v++) start[v + 1]! += start[v]!;
-  const incident = new Int32Array(2 * from.length);
-  const filled = start.slice(0, -1);
-  for (let k = 0; k < from.length; k++) {
-    incident[filled[from[k]!]!++] = k;
-    incident[filled[to[k]!]!++] = k;
-  }
-  return { start, incident };
 }
 
 /** The network's nodes and pipes by index: each node's index by id, each pipe's ends, and the pipes at each node. */

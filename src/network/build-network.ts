@@ -11,6 +11,7 @@ import { sizesFromLabels } from './size-labels.js';
 import { snapStrokes, type Edge } from './snap.js';
 import type { BranchLine, DisconnectedPart, NetNode, NetPipe, NetSystem, Network } from './types.js';
 import { minOf, pushAll } from '../arrays.js';
+import { grouped, incidence, type Grouped } from './incidence.js';
 
 /** A source symbol may sit up to 2 ft from the pipe it feeds (common practice, no source). */
 export const SOURCE_REACH_FT = 2;
@@ -44,34 +45,35 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
     (n) => headAt.has(n) || isSourceRaw.has(n),
     (e) => strokeSizes[e.stroke] ?? null,
   );
-  // Renumber the nodes that remain pipe ends.
-  const keep = new Map<number, number>();
-  const nodeOf = (raw: number) => {
-    if (!keep.has(raw)) keep.set(raw, keep.size);
-    return keep.get(raw)!;
-  };
+  // Renumber the nodes that remain pipe ends, in the order the pipes reach them.
+  const kept: number[] = [];
+  const keep = new Int32Array(g.nodes.length).fill(-1);
   for (const c of chains) {
-    nodeOf(c.from);
-    nodeOf(c.to);
+    for (const raw of [c.from, c.to]) {
+      if (keep[raw]! >= 0) continue;
+      keep[raw] = kept.length;
+      kept.push(raw);
+    }
   }
-  const nodes: NetNode[] = [...keep.entries()].map(([raw, i]) => ({
+  const nodes: NetNode[] = kept.map((raw, i) => ({
     id: `N${i + 1}`,
     position: g.nodes[raw]!,
     isSource: isSourceRaw.has(raw),
     ...(headAt.has(raw) ? { headId: headAt.get(raw)! } : {}),
   }));
+  const ends = { from: Int32Array.from(chains, (c) => keep[c.from]!), to: Int32Array.from(chains, (c) => keep[c.to]!) };
   const schedule = settings.defaults.schedule;
   const runs = groupRuns(
     nodes.length,
-    chains.map((c) => ({ from: keep.get(c.from)!, to: keep.get(c.to)!, points: c.points, size: c.size ?? defaultSize })),
+    chains.map((c, i) => ({ from: ends.from[i]!, to: ends.to[i]!, points: c.points, size: c.size ?? defaultSize })),
     (n) => nodes[n]!.headId !== undefined,
   );
   const pipes: NetPipe[] = chains.map((c, i) => {
     const size = c.size ?? defaultSize;
     return {
       id: `P${i + 1}`,
-      from: nodes[keep.get(c.from)!]!.id,
-      to: nodes[keep.get(c.to)!]!.id,
+      from: nodes[ends.from[i]!]!.id,
+      to: nodes[ends.to[i]!]!.id,
       handles: [...new Set(c.edges.map((e) => plan.pipes[e.stroke]!.handle))],
       points: c.points,
       length: c.length,
@@ -85,25 +87,33 @@ export function buildNetwork(plan: Plan, settings: Settings): Network {
       run: runs[i]!,
     };
   });
+  // Each head's node: the first head at a node, then heads attached where another one sits.
   const headNode: Record<string, string> = {};
-  for (const [raw, headId] of headAt) headNode[headId] = nodes[keep.get(raw)!]!.id;
+  const headNodeIndex = new Map<string, number>();
+  const setHeadNode = (headId: string, raw: number) => {
+    const v = keep[raw]!;
+    headNode[headId] = nodes[v]!.id;
+    headNodeIndex.set(headId, v);
+  };
+  for (const [raw, headId] of headAt) setHeadNode(headId, raw);
   plan.heads.forEach((h, i) => {
     const raw = g.attached[i]!;
-    if (raw >= 0 && keep.has(raw) && !headNode[h.id]) headNode[h.id] = nodes[keep.get(raw)!]!.id;
+    if (raw >= 0 && keep[raw]! >= 0 && !headNode[h.id]) setHeadNode(h.id, raw);
   });
   const sources = plan.sources.map((s, i) => {
     const raw = sourceRaws[i]!;
-    return { handle: s.handle, nodeId: raw >= 0 && keep.has(raw) ? nodes[keep.get(raw)!]!.id : null };
+    return { handle: s.handle, node: raw >= 0 ? keep[raw]! : -1 };
   });
-  const unattachedHeadIds = plan.heads.filter((h) => !headNode[h.id]).map((h) => h.id);
-  return classify(
+  return classify({
     nodes,
     pipes,
+    ends,
     headNode,
+    headNodeIndex,
     sources,
-    unattachedHeadIds,
-    plan.heads.map((h) => h.id),
-  );
+    unattachedHeadIds: plan.heads.filter((h) => !headNode[h.id]).map((h) => h.id),
+    headOrder: plan.heads.map((h) => h.id),
+  });
 }
 
 interface Chain {
@@ -171,138 +181,176 @@ function countBends(points: Point[], edges: Edge[]): number {
   return bends;
 }
 
-/** Roles, branch lines, topology and disconnected parts. */
-function classify(
-  nodes: NetNode[],
-  pipes: NetPipe[],
-  headNode: Record<string, string>,
-  sources: { handle: string; nodeId: string | null }[],
-  unattachedHeadIds: string[],
-  headOrder: string[],
-): Network {
-  const nodeById = new Map(nodes.map((n) => [n.id, n]));
-  const incident = new Map<string, NetPipe[]>(nodes.map((n) => [n.id, []]));
-  for (const p of pipes) {
-    incident.get(p.from)!.push(p);
-    incident.get(p.to)!.push(p);
-  }
-  const degree = (id: string) => incident.get(id)!.length;
-  const hasHead = (id: string) => nodeById.get(id)!.headId !== undefined;
+/** The network before its roles: nodes and pipes, each pipe's end nodes by index, heads' nodes and sources'. */
+interface Unclassified {
+  nodes: NetNode[];
+  pipes: NetPipe[];
+  /** Each pipe's end nodes, as indices into `nodes`. */
+  ends: { from: Int32Array; to: Int32Array };
+  headNode: Record<string, string>;
+  headNodeIndex: Map<string, number>;
+  /** Each source's node index, −1 where it is on no pipe. */
+  sources: { handle: string; node: number }[];
+  unattachedHeadIds: string[];
+  headOrder: string[];
+}
+
+/** The graph as `classify` walks it: pipes' ends, the pipes at each node and each pipe's other end. */
+interface Graph {
+  from: Int32Array;
+  to: Int32Array;
+  start: Int32Array;
+  incident: Int32Array;
+}
+
+const otherEnd = (g: Graph, pipe: number, node: number): number => (g.from[pipe] === node ? g.to[pipe]! : g.from[pipe]!);
+
+/** Roles, branch lines, topology and disconnected parts (nodes and pipes by index: 20,000 heads). */
+function classify({ nodes, pipes, ends, headNode, headNodeIndex, sources, unattachedHeadIds, headOrder }: Unclassified): Network {
+  const n = nodes.length;
+  const g: Graph = { ...ends, ...incidence(n, ends.from, ends.to) };
+  const { from, to, start, incident } = g;
+  const degree = (v: number) => start[v + 1]! - start[v]!;
+  const hasHead = (v: number) => nodes[v]!.headId !== undefined;
+  const runCount = pipes.reduce((m, p) => Math.max(m, p.run + 1), 0);
+  const byRun = grouped(runCount, [Int32Array.from(pipes, (p) => p.run)]);
 
   // Drops: a short pipe to a lone head, on a run of its own.
-  const runPipes = new Map<number, NetPipe[]>();
-  for (const p of pipes) {
-    const list = runPipes.get(p.run);
-    if (list) list.push(p);
-    else runPipes.set(p.run, [p]);
-  }
-  const isDrop = (p: NetPipe) => {
-    if (p.length > DROP_MAX_FT || runPipes.get(p.run)!.length !== 1) return false;
-    const [leaf, root] = degree(p.to) === 1 && hasHead(p.to) ? [p.to, p.from] : [p.from, p.to];
+  const isDrop = (k: number) => {
+    const p = pipes[k]!;
+    if (p.length > DROP_MAX_FT || byRun.start[p.run + 1]! - byRun.start[p.run]! !== 1) return false;
+    const [leaf, root] = degree(to[k]!) === 1 && hasHead(to[k]!) ? [to[k]!, from[k]!] : [from[k]!, to[k]!];
     return degree(leaf) === 1 && hasHead(leaf) && degree(root) >= 2 && !hasHead(root);
   };
-  for (const p of pipes) if (isDrop(p)) p.role = 'drop';
-
-  // Heads of each run: on its nodes, or at the end of its drops.
-  const runsAtNode = new Map<string, Set<number>>();
-  for (const p of pipes) {
-    if (p.role === 'drop') continue;
-    for (const n of [p.from, p.to]) runsAtNode.set(n, (runsAtNode.get(n) ?? new Set()).add(p.run));
-  }
-  const runHeads = new Map<number, Set<string>>();
-  const addHead = (run: number, head: string) => runHeads.set(run, (runHeads.get(run) ?? new Set()).add(head));
-  for (const p of pipes) {
-    if (p.role === 'drop') {
-      const leaf = hasHead(p.to) && degree(p.to) === 1 ? p.to : p.from;
-      const root = leaf === p.to ? p.from : p.to;
-      for (const r of runsAtNode.get(root) ?? []) addHead(r, nodeById.get(leaf)!.headId!);
-    } else {
-      for (const n of [p.from, p.to]) if (hasHead(n)) addHead(p.run, nodeById.get(n)!.headId!);
+  pipes.forEach((p, k) => {
+    if (isDrop(k)) p.role = 'drop';
+  });
+  /** The runs of the pipes at a node, drops aside, each once, in pipe order. */
+  const runsAt = (v: number): number[] => {
+    const runs: number[] = [];
+    for (let i = start[v]!; i < start[v + 1]!; i++) {
+      const p = pipes[incident[i]!]!;
+      if (p.role !== 'drop' && !runs.includes(p.run)) runs.push(p.run);
     }
-  }
-  const branchRuns = new Set(runHeads.keys());
+    return runs;
+  };
+
+  // Heads of each run (their nodes): on its nodes, or at the end of its drops; runs in the order they get a first head.
+  const runHeads: number[][] = [];
+  const branchRuns: number[] = [];
+  const isBranchRun = new Uint8Array(runCount);
+  const headInRun = new Set<number>();
+  const addHead = (run: number, v: number) => {
+    const key = run * n + v;
+    if (headInRun.has(key)) return;
+    headInRun.add(key);
+    if (!isBranchRun[run]) {
+      isBranchRun[run] = 1;
+      branchRuns.push(run);
+      runHeads[run] = [];
+    }
+    runHeads[run]!.push(v);
+  };
+  pipes.forEach((p, k) => {
+    if (p.role === 'drop') {
+      const leaf = hasHead(to[k]!) && degree(to[k]!) === 1 ? to[k]! : from[k]!;
+      for (const r of runsAt(otherEnd(g, k, leaf))) addHead(r, leaf);
+    } else {
+      for (const v of [from[k]!, to[k]!]) if (hasHead(v)) addHead(p.run, v);
+    }
+  });
 
   // Reachability from each source, and heads carried downstream (over a breadth-first spanning forest, one
   // tree per system). A source on piping an earlier source already reached shares that system.
-  const reached = new Set<string>();
-  const order: string[] = [];
-  const parentPipe = new Map<string, NetPipe>();
-  const systemRoots: { handle: string; nodeId: string; shared: string[]; first: number }[] = [];
-  const systemOfNode = new Map<string, number>();
+  const systemOf = new Int32Array(n).fill(-1);
+  const order: number[] = [];
+  const parentPipe = new Int32Array(n).fill(-1);
+  const systemRoots: { handle: string; node: number; shared: string[]; first: number }[] = [];
   for (const s of sources) {
-    if (s.nodeId === null) continue;
-    if (reached.has(s.nodeId)) {
-      systemRoots[systemOfNode.get(s.nodeId)!]!.shared.push(s.handle);
+    if (s.node < 0) continue;
+    if (systemOf[s.node]! >= 0) {
+      systemRoots[systemOf[s.node]!]!.shared.push(s.handle);
       continue;
     }
     const k = systemRoots.length;
-    systemRoots.push({ handle: s.handle, nodeId: s.nodeId, shared: [], first: order.length });
-    reached.add(s.nodeId);
-    order.push(s.nodeId);
-    systemOfNode.set(s.nodeId, k);
+    systemRoots.push({ handle: s.handle, node: s.node, shared: [], first: order.length });
+    systemOf[s.node] = k;
+    order.push(s.node);
     for (let i = order.length - 1; i < order.length; i++) {
-      for (const p of incident.get(order[i]!)!) {
-        const other = p.from === order[i] ? p.to : p.from;
-        if (!reached.has(other)) {
-          reached.add(other);
-          order.push(other);
-          parentPipe.set(other, p);
-          systemOfNode.set(other, k);
+      const v = order[i]!;
+      for (let j = start[v]!; j < start[v + 1]!; j++) {
+        const w = otherEnd(g, incident[j]!, v);
+        if (systemOf[w]! < 0) {
+          systemOf[w] = k;
+          order.push(w);
+          parentPipe[w] = incident[j]!;
         }
       }
     }
   }
-  const carried = new Map<string, number>();
-  const below = new Map<string, number>(order.map((n) => [n, hasHead(n) ? 1 : 0]));
+  const carried = new Int32Array(pipes.length);
+  const below = new Int32Array(n);
+  for (const v of order) below[v] = hasHead(v) ? 1 : 0;
   for (let i = order.length - 1; i >= 0; i--) {
-    const n = order[i]!;
-    const p = parentPipe.get(n);
-    if (!p) continue; // a system's source
-    carried.set(p.id, below.get(n)!);
-    const up = p.from === n ? p.to : p.from;
-    below.set(up, below.get(up)! + below.get(n)!);
+    const v = order[i]!;
+    const p = parentPipe[v]!;
+    if (p < 0) continue; // a system's source
+    carried[p] = below[v]!;
+    below[otherEnd(g, p, v)]! += below[v]!;
   }
+  /** Whether the pipe is a tree edge (it carries flow to the part below it). */
+  const isTreeEdge = (k: number) => parentPipe[to[k]!] === k || parentPipe[from[k]!] === k;
 
-  // Mains: runs without heads; a run touching two or more branch lines is a cross main.
-  const runNodes = new Map<number, Set<string>>();
-  for (const p of pipes)
-    if (p.role !== 'drop') for (const n of [p.from, p.to]) runNodes.set(p.run, (runNodes.get(p.run) ?? new Set()).add(n));
-  // Per run, once (a cross main of 2,500 pipes would otherwise walk its 2,500 nodes for each of them).
+  // Mains: runs without heads; a run touching two or more branch lines is a cross main. Counted per run, once
+  // (a cross main of 2,500 pipes would otherwise walk its 2,500 nodes for each of them).
   const touchingCount = new Map<number, number>();
   const branchesTouching = (run: number) => {
     let count = touchingCount.get(run);
     if (count === undefined) {
       const touching = new Set<number>();
-      for (const n of runNodes.get(run) ?? []) for (const r of runsAtNode.get(n) ?? []) if (r !== run && branchRuns.has(r)) touching.add(r);
+      for (let i = byRun.start[run]!; i < byRun.start[run + 1]!; i++) {
+        const k = byRun.members[i]!;
+        if (pipes[k]!.role === 'drop') continue;
+        for (const v of [from[k]!, to[k]!]) for (const r of runsAt(v)) if (r !== run && isBranchRun[r]) touching.add(r);
+      }
       touchingCount.set(run, (count = touching.size));
     }
     return count;
   };
-  for (const p of pipes) {
-    if (p.role === 'drop') continue;
-    if (branchRuns.has(p.run)) p.role = 'branch';
+  pipes.forEach((p, k) => {
+    if (p.role === 'drop') return;
+    if (isBranchRun[p.run]) p.role = 'branch';
     else if (branchesTouching(p.run) >= 2) p.role = 'cross-main';
-    else if (reached.has(p.from) && ((carried.get(p.id) ?? 0) > 0 || !parentPipeOf(parentPipe, p))) p.role = 'feed-main';
-  }
+    else if (systemOf[from[k]!]! >= 0 && (carried[k]! > 0 || !isTreeEdge(k))) p.role = 'feed-main';
+  });
+  /** The run of the first main at a node, or null. */
+  const mainRunAt = (v: number): number | null => {
+    for (let i = start[v]!; i < start[v + 1]!; i++) {
+      const p = pipes[incident[i]!]!;
+      if (p.role === 'cross-main' || p.role === 'feed-main') return p.run;
+    }
+    return null;
+  };
 
-  const branchLines = buildBranchLines(pipes, runHeads, nodeById, incident, headOrder, headNode);
-  const headNodeIds = new Set(Object.values(headNode));
-  const pipeById = new Map(pipes.map((p) => [p.id, p]));
+  const lines = buildBranchLines(nodes, pipes, g, byRun, branchRuns, runHeads, headOrder, (v) => mainRunAt(v) !== null);
+  const branchLines = lines.map((l) => l.line);
   const systems = systemRoots.map((root, k): NetSystem => {
-    const nodeIds = order.slice(root.first, systemRoots[k + 1]?.first ?? order.length);
-    const own = new Set(nodeIds);
-    const pipeIds = pipes.filter((p) => own.has(p.from)).map((p) => p.id);
-    const lines = branchLines.filter((b) => own.has(pipeById.get(b.pipeIds[0]!)!.from));
+    const nodeIds = order.slice(root.first, systemRoots[k + 1]?.first ?? order.length).map((v) => nodes[v]!.id);
+    const pipeIds = pipes.filter((_, j) => systemOf[from[j]!] === k).map((p) => p.id);
+    const own = lines.filter((l) => systemOf[from[l.firstPipe]!] === k);
     const loops = Math.max(0, pipeIds.length - nodeIds.length + 1);
-    const gridded = lines.some((b) => new Set(b.feedNodeIds.map((n) => mainRunAt(n, incident))).size >= 2);
+    const gridded = own.some((l) => new Set(l.feedNodes.map(mainRunAt)).size >= 2);
     return {
       id: root.handle,
-      sourceNodeId: root.nodeId,
+      sourceNodeId: nodes[root.node]!.id,
       sharedSourceHandles: root.shared,
       nodeIds,
       pipeIds,
-      headIds: headOrder.filter((h) => headNode[h] !== undefined && own.has(headNode[h]!)),
-      branchLineIds: lines.map((b) => b.id),
+      headIds: headOrder.filter((h) => {
+        const v = headNodeIndex.get(h);
+        return v !== undefined && systemOf[v] === k;
+      }),
+      branchLineIds: own.map((l) => l.line.id),
       topology: loops === 0 ? 'tree' : gridded ? 'grid' : 'loop',
       loops,
     };
@@ -313,99 +361,113 @@ function classify(
     branchLines,
     headNode,
     systems,
-    unattachedSourceHandles: sources.filter((s) => s.nodeId === null).map((s) => s.handle),
+    unattachedSourceHandles: sources.filter((s) => s.node < 0).map((s) => s.handle),
     unattachedHeadIds,
-    disconnected: disconnectedParts(nodes, reached, incident, headNodeIds),
+    disconnected: disconnectedParts(nodes, pipes, g, systemOf),
   };
 }
 
-/** Whether the pipe is a tree edge (it carries flow to the part below it). */
-function parentPipeOf(parentPipe: Map<string, NetPipe>, p: NetPipe): boolean {
-  return parentPipe.get(p.to) === p || parentPipe.get(p.from) === p;
+/** A branch line with the indices `classify` goes on with: its first pipe and the nodes where it meets a main. */
+interface IndexedLine {
+  line: BranchLine;
+  firstPipe: number;
+  feedNodes: number[];
 }
 
-function mainRunAt(nodeId: string, incident: Map<string, NetPipe[]>): number | null {
-  const main = incident.get(nodeId)!.find((p) => p.role === 'cross-main' || p.role === 'feed-main');
-  return main ? main.run : null;
-}
-
+/** One line a run with branch pipes, in the order of the runs' first heads in the drawing. */
 function buildBranchLines(
+  nodes: NetNode[],
   pipes: NetPipe[],
-  runHeads: Map<number, Set<string>>,
-  nodeById: Map<string, NetNode>,
-  incident: Map<string, NetPipe[]>,
+  g: Graph,
+  byRun: Grouped,
+  branchRuns: number[],
+  runHeads: number[][],
   headOrder: string[],
-  headNode: Record<string, string>,
-): BranchLine[] {
+  onMain: (node: number) => boolean,
+): IndexedLine[] {
   const rank = new Map(headOrder.map((h, i) => [h, i]));
-  const lines: BranchLine[] = [];
-  const firstRank = (run: number) => minOf([...runHeads.get(run)!].map((h) => rank.get(h)!));
-  const runs = [...runHeads.keys()].sort((a, b) => firstRank(a) - firstRank(b));
-  // Each run's branch pipes in drawing order, gathered in one pass.
-  const branchPipesOf = new Map<number, NetPipe[]>();
-  for (const p of pipes) {
-    if (p.role !== 'branch') continue;
-    const list = branchPipesOf.get(p.run);
-    if (list) list.push(p);
-    else branchPipesOf.set(p.run, [p]);
-  }
+  const firstRank = new Map(branchRuns.map((run) => [run, minOf(runHeads[run]!.map((v) => rank.get(nodes[v]!.headId!)!))]));
+  const runs = [...branchRuns].sort((a, b) => firstRank.get(a)! - firstRank.get(b)!);
+  const lines: IndexedLine[] = [];
+  /** The line a node was last seen on, to take each node of a line once. */
+  const lineOf = new Int32Array(nodes.length).fill(-1);
   for (const run of runs) {
-    const own = branchPipesOf.get(run) ?? [];
+    // The run's branch pipes in drawing order.
+    const own: number[] = [];
+    for (let i = byRun.start[run]!; i < byRun.start[run + 1]!; i++)
+      if (pipes[byRun.members[i]!]!.role === 'branch') own.push(byRun.members[i]!);
     if (own.length === 0) continue;
-    const nodeIds = new Set(own.flatMap((p) => [p.from, p.to]));
-    const feedNodeIds = [...nodeIds].filter((n) => incident.get(n)!.some((p) => p.role === 'cross-main' || p.role === 'feed-main'));
-    const pts = own.flatMap((p) => p.points);
-    const far = farthestPair(pts);
+    const feedNodes: number[] = [];
+    for (const k of own) {
+      for (const v of [g.from[k]!, g.to[k]!]) {
+        if (lineOf[v] === lines.length) continue;
+        lineOf[v] = lines.length;
+        if (onMain(v)) feedNodes.push(v);
+      }
+    }
+    const far = farthestPair(own.map((k) => pipes[k]!.points));
     const direction = unit(sub(far[1], far[0]));
-    const origin = feedNodeIds.length ? nodeById.get(feedNodeIds[0]!)!.position : far[0];
-    const headPos = (h: string) => nodeById.get(headNode[h]!)?.position ?? origin;
-    const headIds = [...runHeads.get(run)!].sort((a, b) => distance(headPos(a), origin) - distance(headPos(b), origin));
-    lines.push({ id: `B${lines.length + 1}`, pipeIds: own.map((p) => p.id), headIds, direction, feedNodeIds });
+    const origin = feedNodes.length ? nodes[feedNodes[0]!]!.position : far[0];
+    const heads = runHeads[run]!;
+    const reach = heads.map((v) => distance(nodes[v]!.position, origin));
+    const headIds = heads
+      .map((_, i) => i)
+      .sort((a, b) => reach[a]! - reach[b]!)
+      .map((i) => nodes[heads[i]!]!.headId!);
+    lines.push({
+      line: {
+        id: `B${lines.length + 1}`,
+        pipeIds: own.map((k) => pipes[k]!.id),
+        headIds,
+        direction,
+        feedNodeIds: feedNodes.map((v) => nodes[v]!.id),
+      },
+      firstPipe: own[0]!,
+      feedNodes,
+    });
   }
   return lines;
 }
 
-/** The two farthest-apart points of a run (two sweeps: exact for the points of a straight line). */
-function farthestPair(pts: Point[]): [Point, Point] {
-  const farthestFrom = (a: Point) => pts.reduce((b, p) => (distance(a, p) > distance(a, b) ? p : b), a);
-  const b = farthestFrom(pts[0]!);
+/** The two farthest-apart points of a run's pipes (two sweeps: exact for the points of a straight line). */
+function farthestPair(pipes: Point[][]): [Point, Point] {
+  const farthestFrom = (a: Point) => {
+    let b = a;
+    for (const pts of pipes) for (const p of pts) if (distance(a, p) > distance(a, b)) b = p;
+    return b;
+  };
+  const b = farthestFrom(pipes[0]![0]!);
   return [b, farthestFrom(b)];
 }
 
-function disconnectedParts(
-  nodes: NetNode[],
-  reached: Set<string>,
-  incident: Map<string, NetPipe[]>,
-  headNodeIds: Set<string>,
-): DisconnectedPart[] {
-  const byId = new Map(nodes.map((n) => [n.id, n]));
-  const seen = new Set<string>(reached);
+/** The piping no source reaches, in connected parts. */
+function disconnectedParts(nodes: NetNode[], pipes: NetPipe[], g: Graph, systemOf: Int32Array): DisconnectedPart[] {
+  const seen = Uint8Array.from(systemOf, (k) => (k >= 0 ? 1 : 0));
   const parts: DisconnectedPart[] = [];
-  for (const start of nodes) {
-    if (seen.has(start.id)) continue;
-    const stack = [start.id];
-    seen.add(start.id);
-    const partNodes: NetNode[] = [];
-    const partPipes = new Set<NetPipe>();
+  for (let first = 0; first < nodes.length; first++) {
+    if (seen[first]) continue;
+    const stack = [first];
+    seen[first] = 1;
+    const partNodes: number[] = [];
+    const partPipes = new Set<number>();
     while (stack.length) {
-      const id = stack.pop()!;
-      const node = byId.get(id)!;
-      partNodes.push(node);
-      for (const p of incident.get(id)!) {
-        partPipes.add(p);
-        const other = p.from === id ? p.to : p.from;
-        if (!seen.has(other)) {
-          seen.add(other);
-          stack.push(other);
+      const v = stack.pop()!;
+      partNodes.push(v);
+      for (let j = g.start[v]!; j < g.start[v + 1]!; j++) {
+        partPipes.add(g.incident[j]!);
+        const w = otherEnd(g, g.incident[j]!, v);
+        if (!seen[w]) {
+          seen[w] = 1;
+          stack.push(w);
         }
       }
     }
-    const list = [...partPipes];
+    const list = [...partPipes].map((k) => pipes[k]!);
     parts.push({
       pipeIds: list.map((p) => p.id),
-      headIds: partNodes.filter((n) => headNodeIds.has(n.id) && n.headId).map((n) => n.headId!),
+      headIds: partNodes.flatMap((v) => (nodes[v]!.headId ? [nodes[v]!.headId!] : [])),
       handles: [...new Set(list.flatMap((p) => p.handles))],
-      at: list[0]?.points[0] ?? partNodes[0]!.position,
+      at: list[0]?.points[0] ?? nodes[partNodes[0]!]!.position,
     });
   }
   return parts;
