@@ -170,36 +170,63 @@ function minimumDegree(n: number, edges: readonly (readonly [number, number])[])
       adj[a]!.add(b);
       adj[b]!.add(a);
     }
-  const buckets: Set<number>[] = [];
   const degree = new Int32Array(n);
+  // Vertices keyed degree · n + index, the least on top (a binary heap): the next to eliminate, ties to the lowest
+  // index. A key goes stale once its vertex is eliminated or its degree changes, and is skipped when it comes up (a
+  // scan of the lowest degree's vertices for the lowest index took 68 ms on a 20,000-head tree's 2,500 anchors).
+  const heap: number[] = [];
+  const push = (key: number) => {
+    let i = heap.length;
+    heap.push(key);
+    while (i > 0) {
+      const up = (i - 1) >> 1;
+      if (heap[up]! <= key) break;
+      heap[i] = heap[up]!;
+      i = up;
+    }
+    heap[i] = key;
+  };
+  const pop = (): number => {
+    const top = heap[0]!;
+    const last = heap.pop()!;
+    if (heap.length) {
+      let i = 0;
+      for (;;) {
+        let c = 2 * i + 1;
+        if (c >= heap.length) break;
+        if (c + 1 < heap.length && heap[c + 1]! < heap[c]!) c++;
+        if (heap[c]! >= last) break;
+        heap[i] = heap[c]!;
+        i = c;
+      }
+      heap[i] = last;
+    }
+    return top;
+  };
   const place = (v: number) => {
-    const d = adj[v]!.size;
-    degree[v] = d;
-    (buckets[d] ??= new Set()).add(v);
+    degree[v] = adj[v]!.size;
+    push(degree[v]! * n + v);
   };
   for (let v = 0; v < n; v++) place(v);
   const done = new Uint8Array(n);
   const order: number[] = [];
   const structure: number[][] = [];
-  let low = 0;
   for (let k = 0; k < n; k++) {
-    while (!buckets[low]?.size) low++;
-    let v = -1;
-    for (const c of buckets[low]!) if (v < 0 || c < v) v = c;
-    buckets[low]!.delete(v);
+    let v: number;
+    for (;;) {
+      const key = pop();
+      v = key % n;
+      if (!done[v] && degree[v]! === (key - v) / n) break;
+    }
     done[v] = 1;
     const nb = [...adj[v]!];
     order.push(v);
     structure.push(nb);
     for (const a of nb) {
-      buckets[degree[a]!]!.delete(a);
       adj[a]!.delete(v);
       for (const b of nb) if (a !== b) adj[a]!.add(b);
     }
-    for (const a of nb) {
-      place(a);
-      if (degree[a]! < low) low = degree[a]!;
-    }
+    for (const a of nb) place(a);
   }
   return { order, structure };
 }
