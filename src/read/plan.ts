@@ -3,6 +3,7 @@
 
 import { compilePatterns } from '../config/patterns.js';
 import type { Settings } from '../config/settings.js';
+import { PointGrid } from '../geometry/point-grid.js';
 import { distance, type Point } from '../geometry/point.js';
 import { KSI_PER_KUS, M_PER_FT } from '../quantities/convert.js';
 import { isLabelLayer, onRoles, type LayerRoles } from './layer-roles.js';
@@ -154,26 +155,24 @@ const DUPLICATE_FT = 1 / 96;
 
 /** Drops head symbols drawn again at the point of an earlier one, keeping the first of each point. */
 function withoutDuplicates(refs: BlockRef[]): { kept: BlockRef[]; duplicates: { kept: number; copies: BlockRef[] }[] } {
-  const cell = (v: number) => Math.floor(v / DUPLICATE_FT);
-  const byCell = new Map<string, number[]>();
+  const near = new PointGrid(DUPLICATE_FT);
   const kept: BlockRef[] = [];
   const copiesOf = new Map<number, BlockRef[]>();
   for (const r of refs) {
-    const cx = cell(r.position.x);
-    const cy = cell(r.position.y);
     let first: number | undefined;
-    for (let dx = -1; dx <= 1 && first === undefined; dx++) {
-      for (let dy = -1; dy <= 1 && first === undefined; dy++) {
-        first = byCell.get(`${cx + dx},${cy + dy}`)?.find((k) => distance(kept[k]!.position, r.position) < DUPLICATE_FT);
-      }
+    near.visitNear(r.position, (k) => {
+      if (distance(kept[k]!.position, r.position) >= DUPLICATE_FT) return false;
+      first = k;
+      return true;
+    });
+    if (first === undefined) {
+      near.insert(r.position, kept.length);
+      kept.push(r);
+    } else {
+      const copies = copiesOf.get(first);
+      if (copies) copies.push(r);
+      else copiesOf.set(first, [r]);
     }
-    if (first !== undefined) {
-      copiesOf.set(first, [...(copiesOf.get(first) ?? []), r]);
-      continue;
-    }
-    const key = `${cx},${cy}`;
-    byCell.set(key, [...(byCell.get(key) ?? []), kept.length]);
-    kept.push(r);
   }
   return { kept, duplicates: [...copiesOf.entries()].map(([k, copies]) => ({ kept: k, copies })) };
 }
