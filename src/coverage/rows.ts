@@ -50,20 +50,24 @@ function mainDirection(heads: Head[]): Point {
   heads.forEach((h, i) => {
     const p = h.position;
     let best: Point | null = null;
-    let bestD = Infinity;
-    for (const b of index.search({
-      minX: p.x - NEIGHBOUR_REACH_FT,
-      minY: p.y - NEIGHBOUR_REACH_FT,
-      maxX: p.x + NEIGHBOUR_REACH_FT,
-      maxY: p.y + NEIGHBOUR_REACH_FT,
-    })) {
-      if (b.i === i) continue;
-      const q = heads[b.i]!.position;
-      const d = Math.hypot(q.x - p.x, q.y - p.y);
-      if (d > 1e-9 && d < bestD) {
-        bestD = d;
-        best = q;
+    // Boxes doubling from a half-width of 1/2 ft: the nearest head found within the box's half-width is the nearest
+    // of all (10,000 heads packed at 6 in: 6.6 s when each looked through all within the reach).
+    for (let r = 0.5; !best; r *= 2) {
+      const reach = Math.min(r, NEIGHBOUR_REACH_FT);
+      let bestD = Infinity;
+      let bestIndex = -1;
+      for (const b of index.search({ minX: p.x - reach, minY: p.y - reach, maxX: p.x + reach, maxY: p.y + reach })) {
+        if (b.i === i) continue;
+        const q = heads[b.i]!.position;
+        const d = Math.hypot(q.x - p.x, q.y - p.y);
+        // The nearest; among equally near, the first drawn.
+        if (d > 1e-9 && (d < bestD || (d === bestD && b.i < bestIndex))) {
+          bestD = d;
+          bestIndex = b.i;
+        }
       }
+      if (bestIndex >= 0 && (bestD <= reach || reach === NEIGHBOUR_REACH_FT)) best = heads[bestIndex]!.position;
+      else if (reach === NEIGHBOUR_REACH_FT) break;
     }
     if (!best) return;
     const deg = ((((Math.atan2(best.y - p.y, best.x - p.x) * 180) / Math.PI) % 180) + 180) % 180;
