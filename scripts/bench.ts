@@ -219,7 +219,9 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
     writeFileSync(join(set, `plan-${String(i).padStart(3, '0')}.dxf`), layoutDxf({ s: 12, l: 10, heads, lines, gridded: i % 7 === 0 }));
   }
   writeFileSync(join(set, 'headcheck.json'), JSON.stringify(config));
-  for (const workers of [1, 2]) {
+  // One worker, two, two, one (the machine's speed drifts: each count is timed on both sides of the other's runs).
+  const seconds: Record<number, number[]> = { 1: [], 2: [] };
+  for (const workers of [1, 2, 2, 1]) {
     const t0 = performance.now();
     const r = spawnSync(
       process.execPath,
@@ -227,9 +229,10 @@ if ((process.env['BENCH_BATCH'] ?? '1') !== '0') {
       { encoding: 'utf8', timeout: 3_600_000 },
     );
     const s = (performance.now() - t0) / 1000;
-    batch[`workers${workers}`] = 200 / s;
+    seconds[workers]!.push(s);
     console.log(`batch of 200 drawings, ${workers} worker(s): ${s.toFixed(1)} s, ${(200 / s).toFixed(2)} drawings/s (exit ${r.status})`);
   }
+  for (const workers of [1, 2]) batch[`workers${workers}`] = (200 * 2) / (seconds[workers]![0]! + seconds[workers]![1]!);
   batch['speedup'] = batch['workers2']! / batch['workers1']!;
   console.log(`2 workers / 1 worker: ${batch['speedup']!.toFixed(2)}×`);
 }
