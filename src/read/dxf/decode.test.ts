@@ -77,6 +77,18 @@ describe('drawingEncoding and textDecoder', () => {
     expect(decodeDrawing(r12(0x47, 0x72, 0xf6, 0xdf, 0x65)).encoding).toBe('windows-1252');
     expect(decodeDrawing(r12(0x41)).encoding).toBe('windows-1252');
   });
+  it('a drawing naming no code page: its non-ASCII lines are found wherever they sit (each offset, the last line)', () => {
+    // "Größe" as UTF-8 (C3 B6, C3 9F): valid UTF-8, so the drawing is read as UTF-8 (WHATWG Encoding, UTF-8 decoder).
+    const head = bytes('  0\nSECTION\n  2\nHEADER\n  9\n$ACADVER\n  1\nAC1009\n  0\nENDSEC\n');
+    for (let pad = 0; pad < 9; pad++) {
+      const comment = bytes(`999\n${'x'.repeat(40 + pad)}Größe\n`);
+      const inMiddle = new Uint8Array([...head, ...comment, ...bytes('  0\nEOF\n')]);
+      expect(decodeDrawing(inMiddle).encoding).toBe('utf-8');
+      // The same text on a last line without its newline; a subarray at an odd offset of a larger buffer.
+      const atEnd = new Uint8Array([0, ...head, ...bytes('  0\nEOF\n999\n'), ...bytes(`${'y'.repeat(pad)}Größe`)]);
+      expect(decodeDrawing(atEnd.subarray(1)).encoding).toBe('utf-8');
+    }
+  });
   it('reads the group order of AC1003 drawings (x codes before y codes), as ezdxf does', () => {
     const old =
       '  0\nSECTION\n  2\nHEADER\n  9\n$ACADVER\n  1\nAC1003\n  0\nENDSEC\n  0\nSECTION\n  2\nENTITIES\n' +
