@@ -195,7 +195,7 @@ interface Unclassified {
   headOrder: string[];
 }
 
-/** The graph as `classify` walks it: pipes' ends, the pipes at each node and each pipe's other end. */
+/** The graph as `classify` walks it: each pipe's end nodes and the pipes at each node (`otherEnd` crosses a pipe). */
 interface Graph {
   from: Int32Array;
   to: Int32Array;

@@ -7,7 +7,7 @@ export interface Grouped {
   members: Int32Array;
 }
 
-/** Items 0 … n − 1 into `count` groups: item k is in group `keys[0][k]`, then in `keys[1][k]`, … (once a list). */
+/** Items 0 … n − 1 into `count` groups: item k goes into group `keys[0][k]`, into `keys[1][k]`, … (once for each list). */
 export function grouped(count: number, keys: ArrayLike<number>[]): Grouped {
   const start = new Int32Array(count + 1);
   for (const list of keys) for (let k = 0; k < list.length; k++) start[list[k]! + 1]!++;
