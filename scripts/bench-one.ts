@@ -5,7 +5,7 @@ import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { FORMAT_NAMES, FORMATS } from '../src/check/formats.js';
 import { runCheck } from '../src/check/run-check.js';
-import { collectBetweenStages } from '../src/io/collect.js';
+import { collectBetweenStages, collectIfLarge } from '../src/io/collect.js';
 import { readInputFile, sha256Hex, writeAllAtomically, type OutputData } from '../src/io/files.js';
 import { parseSettings } from '../src/config/settings.js';
 
@@ -46,6 +46,7 @@ if (mode === 'parse-only') {
       stages[s] = ms;
       collect(s);
     },
+    onGarbage: collectIfLarge,
   };
   lap('hash');
   const r = runCheck(input);

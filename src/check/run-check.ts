@@ -32,6 +32,11 @@ export interface CheckInput {
   requireHydraulics?: boolean;
   /** Called after each stage with its name and duration in ms (for the benchmark). */
   onStage?: (stage: string, ms: number) => void;
+  /**
+   * Called inside the design-area stage where most of what it allocated so far is garbage (a search's model of every
+   * head just built): the command collects there on a large heap.
+   */
+  onGarbage?: () => void;
 }
 
 /** The check's result: the drawing reviewed, as every output takes it. */
@@ -52,7 +57,7 @@ export function runCheck(input: CheckInput): CheckResult {
   const walls = indexWalls(plan.rooms, plan.walls);
   const coverage = stage('coverage', computeCoverage(plan.heads, network, walls));
   const zoning = zoneHeads(plan, settings);
-  const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, zoning, settings, walls.roomOf));
+  const design = stage('design-area', evaluateDesignAreas(plan, network, coverage, zoning, settings, walls.roomOf, input.onGarbage));
   const findings = stage('rules', runRules({ drawing, plan, network, settings, zoning, coverage, walls, design }));
   const unevaluated = findings.find((f) => f.rule === 'hydraulics-not-evaluated');
   if (input.requireHydraulics && unevaluated) fail(`${messageOf(unevaluated, formatterFor(input.reportUnits))} (--require-hydraulics)`);

@@ -82,6 +82,7 @@ export function evaluateDesignAreas(
   zoning: Zoning,
   settings: Settings,
   roomOf: (p: Point) => Outline | null,
+  onGarbage?: () => void,
 ): DesignAreas {
   const headById = new Map(plan.heads.map((h) => [h.id, h]));
   const basisOf = (id: string) => basisOfHead(zoning, { id });
@@ -182,7 +183,9 @@ export function evaluateDesignAreas(
     }
     try {
       const candidates = candidateGroupsOf(fam, areaOf, group.basis.area);
-      const found = searchMostDemanding(network, source, candidates, flowingOf, settings, group.basis.hoseAllowance);
+      const found = searchMostDemanding(network, source, candidates, flowingOf, settings, group.basis.hoseAllowance, {
+        ...(onGarbage ? { onGarbage } : {}),
+      });
       stats.search = {
         candidates: found.candidates,
         evaluated: found.evaluated,

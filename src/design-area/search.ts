@@ -105,6 +105,13 @@ function rankedAtNormalPressure(
 /** Margin over the solver's pressure tolerance when comparing scores, psi. */
 const SCORE_TOL = 1e-5;
 
+export interface SearchOptions {
+  /** False: every candidate calculated, none ruled out (the brute force the tests compare with). */
+  prune?: boolean;
+  /** Called once the model of every head is built and bounded, where the search's setting-up is garbage. */
+  onGarbage?: () => void;
+}
+
 /** What a search is asked: the groups of candidates on the system fed from `sourceNodeId`, and how heads flow. */
 interface SearchTask {
   network: Network;
@@ -113,7 +120,7 @@ interface SearchTask {
   flowingOf: (ids: string[]) => FlowingHead[];
   settings: Settings;
   hose: number;
-  options: { prune?: boolean };
+  options: SearchOptions;
 }
 
 /** The most demanding design area and the runner-up among the groups' candidates, with their tables. */
@@ -124,7 +131,7 @@ export function searchMostDemanding(
   flowingOf: (ids: string[]) => FlowingHead[],
   settings: Settings,
   hose: number,
-  options: { prune?: boolean } = {},
+  options: SearchOptions = {},
 ): SearchOutcome {
   const task = { network, sourceNodeId, groups, flowingOf, settings, hose, options };
   if (settings.design.velocityPressure) {
@@ -165,6 +172,7 @@ function rankAtTotalPressure({ network, sourceNodeId, groups, flowingOf, setting
   const prune = options.prune !== false && (supply === null || supply.nonIncreasing);
   const calculator = new AreaCalculator(network, sourceNodeId, all, settings);
   const bound = prune ? treeBound(calculator.model, calculator.solver.skeleton) : null;
+  options.onGarbage?.();
   const scoreAt = (pressure: number, flow: number) => demandScore(supply, pressure, flow + hose);
   const scoreOf = (d: Demand | null | undefined) => (d ? scoreAt(d.pressure, d.flow) : null);
   /** The two most demanding areas calculated so far. */

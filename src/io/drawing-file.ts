@@ -6,7 +6,7 @@ import type { Settings } from '../config/settings.js';
 import { InputError } from '../input-error.js';
 import type { UnitSystem } from '../quantities/convert.js';
 import { dwgVersionTag } from '../read/dwg/version.js';
-import { collectBetweenStages } from './collect.js';
+import { collectBetweenStages, collectIfLarge } from './collect.js';
 import { readInputFile, sha256Hex } from './files.js';
 
 /** Where a DWG is converted: a worker thread of its own under the time limit, or this thread (a batch worker, already limited). */
@@ -62,6 +62,7 @@ export async function checkDrawingFile(
     reportUnits: options.reportUnits,
     requireHydraulics: options.requireHydraulics,
     onStage: collectBetweenStages(),
+    onGarbage: collectIfLarge,
   };
   return withFile(file, () => runCheck(input));
 }
