@@ -183,9 +183,7 @@ export function evaluateDesignAreas(
     }
     try {
       const candidates = candidateGroupsOf(fam, areaOf, group.basis.area);
-      const found = searchMostDemanding(network, source, candidates, flowingOf, settings, group.basis.hoseAllowance, {
-        ...(onGarbage ? { onGarbage } : {}),
-      });
+      const found = searchMostDemanding(network, source, candidates, flowingOf, settings, group.basis.hoseAllowance, { onGarbage });
       stats.search = {
         candidates: found.candidates,
         evaluated: found.evaluated,

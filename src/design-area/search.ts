@@ -109,7 +109,7 @@ export interface SearchOptions {
   /** False: every candidate calculated, none ruled out (the brute force the tests compare with). */
   prune?: boolean;
   /** Called once the model of every head is built and bounded, where the search's setting-up is garbage. */
-  onGarbage?: () => void;
+  onGarbage?: (() => void) | undefined;
 }
 
 /** What a search is asked: the groups of candidates on the system fed from `sourceNodeId`, and how heads flow. */
