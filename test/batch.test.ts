@@ -2,18 +2,27 @@
 // non-DXF file never affects the others, per-drawing configs, reuse of unchanged results, --force, same-named
 // files in two folders, and per-file time and memory limits.
 
-import { spawnSync } from 'node:child_process';
-import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, symlinkSync, writeFileSync } from 'node:fs';
+import { type SpawnSyncReturns, spawnSync } from 'node:child_process';
+import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_CONFIG, demoDrawing } from '../src/demo/scenario.js';
 import { layoutDxf } from '../src/demo/generated-layout.js';
 
-const run = (...args: string[]) =>
-  spawnSync(process.execPath, ['bin/headcheck.js', 'batch', ...args], { encoding: 'utf8', timeout: 300_000 });
+let last: SpawnSyncReturns<string> | undefined;
+const run = (...args: string[]) => {
+  last = spawnSync(process.execPath, ['bin/headcheck.js', 'batch', ...args], { encoding: 'utf8', timeout: 300_000 });
+  return last;
+};
 type Row = { file: string; status: string; message: string | null; config: string | null; heads: number | null; margin: number | null };
-const summary = (out: string) => JSON.parse(readFileSync(join(out, 'summary.json'), 'utf8')).drawings as Row[];
+/** The summary's rows; where there is none, the failure says how the last run ended. */
+const summary = (out: string) => {
+  const file = join(out, 'summary.json');
+  if (!existsSync(file))
+    throw new Error(`no ${file}: the batch ended with ${last?.status ?? last?.signal} and printed ${last?.stderr.slice(-2000)}`);
+  return JSON.parse(readFileSync(file, 'utf8')).drawings as Row[];
+};
 
 let set: string;
 beforeAll(() => {

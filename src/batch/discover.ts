@@ -1,7 +1,7 @@
 // Finds the drawings of a batch: DXF and DWG files in folders (recursively, extension in any case) and files named
 // directly, each with the root it was found under, in a stable order; and each drawing's config file.
 
-import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
+import { type Dirent, existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { dirname, extname, join, relative, resolve, sep } from 'node:path';
 import { createHash } from 'node:crypto';
 import { InputError } from '../input-error.js';
@@ -41,7 +41,9 @@ export function discoverDrawings(inputs: string[], outDir: string): { items: Bat
     if (!existsSync(input)) throw new InputError(`${input}: no such file or folder`);
     if (statSync(input).isDirectory()) {
       const root = resolve(input);
-      for (const f of walk(input, { skip: out, root: realOrSelf(root), visited: new Set([realOrSelf(root)]), skipped })) add(f, root);
+      const files = walk(input, { skip: out, root: realOrSelf(root), visited: new Set([realOrSelf(root)]), skipped });
+      if (!files) throw new InputError(`${input}: the folder cannot be read`);
+      for (const f of files) add(f, root);
     } else {
       add(input, resolve(dirname(input)));
     }
@@ -58,15 +60,30 @@ const realOrSelf = (p: string) => {
   }
 };
 
+const statOrNull = (p: string) => {
+  try {
+    return statSync(p);
+  } catch {
+    return null;
+  }
+};
+
 const isDrawingName = (name: string) => ['.dxf', '.dwg'].includes(extname(name).toLowerCase());
 
 /**
- * Drawings under `dir`. A symbolic link is followed where it points inside the batch folder (a folder once only),
- * else listed as skipped: a batch reads what it was given, not what a link reaches elsewhere.
+ * Drawings under `dir`, or null where it cannot be listed. A symbolic link is followed where it points inside the
+ * batch folder (a folder once only), else listed as skipped: a batch reads what it was given, not what a link
+ * reaches elsewhere. A folder inside that cannot be listed (no permission, or removed while the batch looks) is
+ * listed as skipped.
  */
-function walk(dir: string, o: { skip: string; root: string; visited: Set<string>; skipped: Skipped[] }): string[] {
+function walk(dir: string, o: { skip: string; root: string; visited: Set<string>; skipped: Skipped[] }): string[] | null {
   const out: string[] = [];
-  const entries = readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
+  let entries: Dirent[];
+  try {
+    entries = readdirSync(dir, { withFileTypes: true }).sort((a, b) => a.name.localeCompare(b.name));
+  } catch {
+    return null;
+  }
   for (const e of entries) {
     const p = join(dir, e.name);
     let isDir = e.isDirectory();
@@ -78,19 +95,22 @@ function walk(dir: string, o: { skip: string; root: string; visited: Set<string>
         continue;
       }
       if (target !== o.root && !target.startsWith(`${o.root}${sep}`)) {
-        if (isDrawingName(e.name) || statSync(target).isDirectory())
+        if (isDrawingName(e.name) || statOrNull(target)?.isDirectory())
           o.skipped.push({ file: p, reason: `a symbolic link out of the batch folder (to ${target}): not followed` });
         continue;
       }
-      isDir = statSync(target).isDirectory();
-      isFile = statSync(target).isFile();
+      const st = statOrNull(target);
+      isDir = st?.isDirectory() === true;
+      isFile = st?.isFile() === true;
     }
     if (isDir) {
       if (resolve(p) === o.skip || e.name.startsWith('.') || e.name === 'node_modules' || isBatchOutput(p)) continue;
       const real = realOrSelf(p);
       if (o.visited.has(real)) continue;
       o.visited.add(real);
-      pushAll(out, walk(p, o));
+      const inside = walk(p, o);
+      if (inside) pushAll(out, inside);
+      else o.skipped.push({ file: p, reason: 'a folder that cannot be read' });
     } else if (isFile && isDrawingName(e.name)) {
       out.push(p);
     }

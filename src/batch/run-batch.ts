@@ -5,6 +5,7 @@ import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { setFlagsFromString } from 'node:v8';
+import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import { watchOutputFolder, writeAllAtomically } from '../io/files.js';
 import { loadSettings } from '../io/config-file.js';
@@ -110,10 +111,14 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
 
   if (o.workers > 1) setFlagsFromString(`--interrupt-budget=${TIER_UP_BUDGET}`);
   const slots = Math.max(1, Math.min(o.workers, todo.length));
+  // Workers start only for a drawing waiting for them and stay until the end: none is ever stopped while it loads
+  // its code (Node 20 aborts the whole process when a worker is terminated inside a synchronous ES module load),
+  // since a time limit runs only once a worker has its drawing, and the pool is closed only when none is waiting.
   const pool = new Piscina({
     filename: o.workerFile,
     maxThreads: slots,
-    minThreads: slots,
+    minThreads: 0,
+    idleTimeout: Number.POSITIVE_INFINITY,
     resourceLimits: { maxOldGenerationSizeMb: o.memoryLimit },
   });
   const started = performance.now();
@@ -127,8 +132,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
     );
   };
   // Largest drawings first (longest-processing-time order), so no long job starts last and leaves a core idle;
-  // rows keep the stable order of discovery. No more drawings are handed to the pool than it has threads, so a
-  // drawing's time limit runs from when it starts, not from when it was queued.
+  // rows keep the stable order of discovery. No more drawings are handed to the pool than it has threads.
   const queue = [...todo].sort((a, b) => statSync(b.item.file).size - statSync(a.item.file).size);
   const checkNext = async (): Promise<void> => {
     for (let job = queue.shift(); job; job = queue.shift()) {
@@ -182,7 +186,10 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   }
 }
 
-/** One drawing in a worker of the pool, under the time limit from its start; a worker's failure becomes its row. */
+/**
+ * One drawing in a worker of the pool, under the time limit from when the worker has it (a new worker's start is
+ * not the drawing's time); a worker's failure becomes its row.
+ */
 async function checkInWorker(
   pool: Piscina,
   o: BatchOptions,
@@ -190,6 +197,7 @@ async function checkInWorker(
   config: string | undefined,
   earlier: BatchTask['earlier'],
 ): Promise<BatchRow> {
+  const channel = new MessageChannel();
   const task: BatchTask = {
     file: item.file,
     name: item.name,
@@ -200,11 +208,15 @@ async function checkInWorker(
     outputs: o.outputs,
     units: o.units,
     earlier,
+    started: channel.port2,
   };
   const abort = new AbortController();
-  const timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);
+  let timer: NodeJS.Timeout | undefined;
+  channel.port1.once('message', () => {
+    timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);
+  });
   try {
-    return (await pool.run(task, { signal: abort.signal })) as BatchRow;
+    return (await pool.run(task, { signal: abort.signal, transferList: [channel.port2] })) as BatchRow;
   } catch (err) {
     const code = (err as { code?: string }).code;
     const why = abort.signal.aborted
@@ -215,6 +227,7 @@ async function checkInWorker(
     return errorRow(item, config, why);
   } finally {
     clearTimeout(timer);
+    channel.port1.close();
   }
 }
 

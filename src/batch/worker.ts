@@ -2,6 +2,7 @@
 // revision when given), writes its outputs atomically and returns its summary row. Unusable input becomes a row with status "error", never a thrown error.
 
 import { join } from 'node:path';
+import type { MessagePort } from 'node:worker_threads';
 import { FORMAT_NAMES, FORMATS, type FormatName } from '../check/formats.js';
 import { compareRevisions } from '../compare/compare.js';
 import type { LengthUnit } from '../config/settings.js';
@@ -23,6 +24,8 @@ export interface BatchTask {
   units: UnitSystem;
   /** The earlier revision of the drawing (`--compare-with`: the same relative path there) and its config. */
   earlier: { file: string; config: string | null } | null;
+  /** Told once the worker has the drawing in hand: its time limit runs from then. */
+  started: MessagePort;
 }
 
 export interface BatchRow {
@@ -67,6 +70,8 @@ export const emptyRow = (file: string, name: string, config: string | null): Bat
 
 export default async function checkOne(task: BatchTask): Promise<BatchRow> {
   const t0 = performance.now();
+  task.started.postMessage(null);
+  task.started.close();
   const row = emptyRow(task.file, task.name, task.config);
   try {
     const result = await checkFile(task.file, task.config, task);
