@@ -114,6 +114,21 @@ describe('headcheck batch', () => {
     expect(hungry.status).toBe(2);
   });
 
+  it('marks every drawing as failed when a worker runs out of memory before it can take one (a 2 MB heap loads no worker)', () => {
+    const tiny = mkdtempSync(join(tmpdir(), 'hc-batch-tiny-'));
+    writeFileSync(join(tiny, 'a.dxf'), layoutDxf({ s: 12, l: 10, heads: 3, lines: 2 }));
+    writeFileSync(join(tiny, 'b.dxf'), layoutDxf({ s: 12, l: 10, heads: 4, lines: 2 }));
+    for (const workers of ['1', '2']) {
+      const out = join(tiny, `o${workers}`);
+      const r = run(tiny, '--out', out, '--memory-limit', '2', '--workers', workers, '--no-dxf', '--no-html');
+      expect(summary(out).map((x) => [x.status, x.message])).toEqual([
+        ['error', 'ran out of memory (limit 2 MB)'],
+        ['error', 'ran out of memory (limit 2 MB)'],
+      ]);
+      expect(r.status, r.stderr).toBe(2);
+    }
+  });
+
   it("counts a time limit from each drawing's start: one worker, 40 drawings, none timed out while queued", () => {
     // each takes a tenth of a second or so; all of them together several times the limit
     const many = mkdtempSync(join(tmpdir(), 'hc-batch-many-'));

@@ -121,6 +121,12 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
     idleTimeout: Number.POSITIVE_INFINITY,
     resourceLimits: { maxOldGenerationSizeMb: o.memoryLimit },
   });
+  // A worker that fails before it takes a drawing (out of memory while loading its code, under a small
+  // --memory-limit) is the pool's error, not a task's: the drawings waiting for a worker are told of it.
+  const waiting: Waiting = new Set();
+  pool.on('error', (err: unknown) => {
+    for (const fail of [...waiting]) fail(err);
+  });
   const started = performance.now();
   let done = 0;
   let failed = rows.filter((r) => r?.status === 'error').length;
@@ -137,7 +143,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   const checkNext = async (): Promise<void> => {
     for (let job = queue.shift(); job; job = queue.shift()) {
       const { i, item, config, key, earlier } = job;
-      const row = await checkInWorker(pool, o, item, config, earlier);
+      const row = await checkInWorker(pool, waiting, o, item, config, earlier);
       rows[i] = row;
       done++;
       if (row.status === 'error') failed++;
@@ -186,12 +192,16 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   }
 }
 
+/** The drawings handed to the pool that no worker has taken yet: each a function that ends its wait with an error. */
+type Waiting = Set<(err: unknown) => void>;
+
 /**
  * One drawing in a worker of the pool, under the time limit from when the worker has it (a new worker's start is
- * not the drawing's time); a worker's failure becomes its row.
+ * not the drawing's time); a worker's failure, before or while it checks the drawing, becomes its row.
  */
 async function checkInWorker(
   pool: Piscina,
+  waiting: Waiting,
   o: BatchOptions,
   item: BatchItem,
   config: string | undefined,
@@ -212,20 +222,31 @@ async function checkInWorker(
   };
   const abort = new AbortController();
   let timer: NodeJS.Timeout | undefined;
+  /** Set when the worker failed before it took the drawing. */
+  const before: { failure: { err: unknown } | null } = { failure: null };
+  const failStart = (err: unknown) => {
+    before.failure = { err };
+    abort.abort();
+  };
+  waiting.add(failStart);
   channel.port1.once('message', () => {
+    waiting.delete(failStart);
     timer = setTimeout(() => abort.abort(), o.timeLimit * 1000);
   });
   try {
     return (await pool.run(task, { signal: abort.signal, transferList: [channel.port2] })) as BatchRow;
   } catch (err) {
-    const code = (err as { code?: string }).code;
-    const why = abort.signal.aborted
-      ? `timed out after ${o.timeLimit} s`
-      : code === 'ERR_WORKER_OUT_OF_MEMORY'
-        ? `ran out of memory (limit ${o.memoryLimit} MB)`
-        : `worker failed: ${err instanceof Error ? err.message : String(err)}`;
+    const cause = before.failure ? before.failure.err : err;
+    const code = (cause as { code?: string }).code;
+    const why =
+      !before.failure && abort.signal.aborted
+        ? `timed out after ${o.timeLimit} s`
+        : code === 'ERR_WORKER_OUT_OF_MEMORY'
+          ? `ran out of memory (limit ${o.memoryLimit} MB)`
+          : `worker failed: ${cause instanceof Error ? cause.message : String(cause)}`;
     return errorRow(item, config, why);
   } finally {
+    waiting.delete(failStart);
     clearTimeout(timer);
     channel.port1.close();
   }
