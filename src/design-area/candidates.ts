@@ -247,6 +247,34 @@ export function unionOf(g: CandidateGroup): string[] {
   return [...g.base, ...heads.slice(first, lastRun(g) + size)];
 }
 
+/**
+ * Every head any of the groups' candidates flows, once, in the order of the groups' unions one after the other.
+ * Built without the unions: a start's whole lines are seen once (groups share them), and of each next line only
+ * the heads not yet seen there are looked up (on 20,000 heads the unions hold ~600,000 ids for ~20,000 heads).
+ */
+export function headsOfAnyGroup(groups: readonly CandidateGroup[]): string[] {
+  const heads = new Set<string>();
+  const bases = new Set<readonly string[]>();
+  const seenOnLine = new Map<readonly string[], Uint8Array>();
+  for (const g of groups) {
+    if (!bases.has(g.base)) {
+      bases.add(g.base);
+      for (const id of g.base) heads.add(id);
+    }
+    if (!g.next) continue;
+    const line = g.next.heads;
+    let seen = seenOnLine.get(line);
+    if (!seen) seenOnLine.set(line, (seen = new Uint8Array(line.length)));
+    const end = Math.min(line.length, lastRun(g) + g.next.size);
+    for (let i = g.next.first; i < end; i++) {
+      if (seen[i]) continue;
+      seen[i] = 1;
+      heads.add(line[i]!);
+    }
+  }
+  return [...heads];
+}
+
 /** The start of a group's last leftover placement (runs end with the line). */
 export const lastRun = (g: CandidateGroup): number => (g.next ? Math.min(g.next.last, g.next.heads.length - g.next.size) : 0);
 

@@ -20,7 +20,7 @@ import { AreaCalculator, type AreaDemand, type AreaHydraulics } from '../hydraul
 import type { FlowingHead } from '../hydraulics/model.js';
 import { supplyOf } from '../hydraulics/supply-path.js';
 import type { Network } from '../network/types.js';
-import { lastRun, memberCount, membersOf, unionOf, type Candidate, type CandidateGroup } from './candidates.js';
+import { headsOfAnyGroup, lastRun, memberCount, membersOf, unionOf, type Candidate, type CandidateGroup } from './candidates.js';
 import { spanningTreeModel, treeBound, type Demand } from '../hydraulics/k-factor-walk.js';
 
 export interface ScoredArea {
@@ -155,11 +155,7 @@ function rankAtTotalPressure({ network, sourceNodeId, groups, flowingOf, setting
   calculator: AreaCalculator | null;
 } {
   const candidates = groups.reduce((n, g) => n + memberCount(g), 0);
-  // Every head any candidate flows (a set filled head by head: the flat list of all candidates' heads would be
-  // twenty times as long as the set).
-  const anyArea = new Set<string>();
-  for (const g of groups) for (const id of unionOf(g)) anyArea.add(id);
-  const all = flowingOf([...anyArea]);
+  const all = flowingOf(headsOfAnyGroup(groups));
   if (all.length === 0) {
     return {
       top: { best: null, runnerUp: null },
