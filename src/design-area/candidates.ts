@@ -249,8 +249,9 @@ export function unionOf(g: CandidateGroup): string[] {
 
 /**
  * Every head any of the groups' candidates flows, once, in the order of the groups' unions one after the other.
- * Built without the unions: a start's whole lines are seen once (groups share them), and of each next line only
- * the heads not yet seen there are looked up (on 20,000 heads the unions hold ~600,000 ids for ~20,000 heads).
+ * Built without the unions: a start's whole lines are seen once where groups share them, and of each next line
+ * only the heads not yet seen there are looked up. The unions of the bench's 20,000 heads in lines of 8 hold 681,404
+ * ids, those of its 20,070 heads in long lines 4.9 million.
  */
 export function headsOfAnyGroup(groups: readonly CandidateGroup[]): string[] {
   const heads = new Set<string>();
