@@ -4,6 +4,7 @@
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
+import { setTimeout as sleep } from 'node:timers/promises';
 import { setFlagsFromString } from 'node:v8';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
@@ -111,9 +112,10 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
 
   if (o.workers > 1) setFlagsFromString(`--interrupt-budget=${TIER_UP_BUDGET}`);
   const slots = Math.max(1, Math.min(o.workers, todo.length));
-  // Workers start only for a drawing waiting for them and stay until the end: none is ever stopped while it loads
-  // its code (Node 20 aborts the whole process when a worker is terminated inside a synchronous ES module load),
-  // since a time limit runs only once a worker has its drawing, and the pool is closed only when none is waiting.
+  // No worker is ever stopped while it loads its code (Node 20 aborts the whole process when a worker is terminated
+  // inside a synchronous ES module load): workers start only for a drawing waiting for them and stay until the end,
+  // a time limit runs only once a worker has its drawing, and the pool is closed once every worker has loaded (one
+  // started for a drawing that another worker then took may still be loading when the last drawing is done).
   const pool = new Piscina({
     filename: o.workerFile,
     maxThreads: slots,
@@ -127,6 +129,8 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   pool.on('error', (err: unknown) => {
     for (const fail of [...waiting]) fail(err);
   });
+  const loaded = new Set<number>();
+  pool.on('workerCreate', (w: { id: number }) => loaded.add(w.id));
   const started = performance.now();
   let done = 0;
   let failed = rows.filter((r) => r?.status === 'error').length;
@@ -157,6 +161,7 @@ export async function runBatch(o: BatchOptions): Promise<BatchOutcome> {
   try {
     await Promise.all(Array.from({ length: slots }, checkNext));
   } finally {
+    while (pool.threads.some((t) => !loaded.has(t.threadId))) await sleep(10);
     await pool.destroy();
   }
   report(true);
