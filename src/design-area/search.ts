@@ -211,10 +211,12 @@ function rankAtTotalPressure({ network, sourceNodeId, groups, flowingOf, setting
     evaluated++;
     solves += demand.solves;
     const scored = { candidate: c, demand, score: scoreAt(demand.sourcePressure, demand.sourceFlow) };
-    if (!top.best || scored.score > top.best.score) {
+    // Areas that tie to within the solver's tolerance (mirror images) keep the order they were found in, so the
+    // last digits of a solve do not choose between them.
+    if (!top.best || scored.score > top.best.score + SCORE_TOL) {
       top.runnerUp = top.best;
       top.best = scored;
-    } else if (!top.runnerUp || scored.score > top.runnerUp.score) top.runnerUp = scored;
+    } else if (!top.runnerUp || scored.score > top.runnerUp.score + SCORE_TOL) top.runnerUp = scored;
   };
 
   if (bound) {

@@ -107,6 +107,9 @@ interface Trial {
   P: number;
   value: number;
   critical: number;
+  /** The critical head's pressure, and how far it sits above the source in psi of water column. */
+  pressure: number;
+  lift: number;
   state: SolveResult;
 }
 
@@ -187,6 +190,7 @@ export class AreaCalculator {
     let solves = 0;
     let trials = 0;
     let iterations = 0;
+    const zSource = model.nodes[model.source]!.elevation;
     /** Slack of the most demanding open head at source pressure P (≥ 0: every head is satisfied). */
     const slack = (P: number): Trial => {
       const at = this.solveAt(P, open, true);
@@ -203,9 +207,9 @@ export class AreaCalculator {
           critical = k;
         }
       });
-      return { P, value, critical, state };
+      const e = model.emitters[critical]!;
+      return { P, value, critical, pressure: value + e.required, lift: PSI_PER_FT * (model.nodes[e.node]!.elevation - zSource), state };
     };
-    const zSource = model.nodes[model.source]!.elevation;
     const staticHead = maxOf(
       Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)),
     );
@@ -360,48 +364,59 @@ function stepsToSource(model: HydraulicModel, s: FlowState, drops: NormalPressur
 }
 
 /**
- * The least source pressure at which the slack is ≥ 0 (to PRESSURE_TOL): a bracket from the static head, or
- * from the previous area's pressure when given (neighbouring areas need nearly the same), then Illinois.
+ * The least source pressure at which the slack is ≥ 0 (to PRESSURE_TOL). From the static head, or from the previous
+ * area's pressure when given (neighbouring areas need nearly the same), a bracket is sought by steps that the
+ * critical head's pressure guesses (it grows about in proportion to the source's above its lift), then by secants
+ * through the last two trials; once bracketed, Illinois.
  */
 function findPressure(slack: (P: number) => Trial, staticHead: number, previous: number | undefined, solves: () => number): Trial {
-  let lo: Trial;
-  let hi: Trial;
-  const first = slack(Math.max(staticHead, previous ?? staticHead));
-  if (first.value >= -PRESSURE_TOL && first.P === staticHead) return first;
-  if (first.value >= 0) {
-    hi = first;
-    lo = slack(staticHead);
-    if (lo.value >= -PRESSURE_TOL) return lo;
-  } else {
-    lo = first;
-    let step = Math.max(1, -2 * first.value);
-    hi = slack(lo.P + step);
-    while (hi.value < 0 && solves() < MAX_SOLVES) {
-      lo = hi;
+  /** The highest trial short of the requirement and the lowest that meets it, once found. */
+  const bracket: { low: Trial | null; high: Trial | null } = { low: null, high: null };
+  const take = (t: Trial) => {
+    if (t.value >= 0) bracket.high = bracket.high && bracket.high.P <= t.P ? bracket.high : t;
+    else bracket.low = bracket.low && bracket.low.P >= t.P ? bracket.low : t;
+  };
+  let last = slack(Math.max(staticHead, previous ?? staticHead));
+  if (Math.abs(last.value) <= PRESSURE_TOL || (last.value >= 0 && last.P === staticHead)) return last;
+  take(last);
+  let before: Trial | null = null;
+  let step = Math.max(1, -2 * last.value);
+  while (!(bracket.low && bracket.high) && solves() < MAX_SOLVES) {
+    const scaled = last.pressure > 0 && last.P > last.lift ? last.P - (last.value * (last.P - last.lift)) / last.pressure : Number.NaN;
+    let P = before ? last.P - (last.value * (last.P - before.P)) / (last.value - before.value) : scaled;
+    if (bracket.high) P = Number.isFinite(P) && P < bracket.high.P ? Math.max(P, staticHead) : staticHead;
+    else if (!(Number.isFinite(P) && P > bracket.low!.P)) {
+      P = bracket.low!.P + step;
       step *= 2;
-      hi = slack(lo.P + step);
-    }
+    } else P = Math.min(P, bracket.low!.P + Math.max(step, 16 * Math.abs(bracket.low!.P))); // a guess from a head near empty overshoots
+    before = last;
+    last = slack(P);
+    if (Math.abs(last.value) <= PRESSURE_TOL || (last.value >= 0 && P === staticHead)) return last;
+    take(last);
   }
-  let fl = lo.value;
-  let fh = hi.value;
+  let low = bracket.low;
+  let high = bracket.high;
+  if (!low || !high) throw new Error('the required source pressure could not be found');
+  let fl = low.value;
+  let fh = high.value;
   let side = 0;
-  while (solves() < MAX_SOLVES && hi.P - lo.P > PRESSURE_TOL) {
-    const m = slack(hi.P - (fh * (hi.P - lo.P)) / (fh - fl));
+  while (solves() < MAX_SOLVES && high.P - low.P > PRESSURE_TOL) {
+    const m = slack(high.P - (fh * (high.P - low.P)) / (fh - fl));
     if (Math.abs(m.value) <= PRESSURE_TOL) return m;
     if (m.value < 0) {
-      lo = m;
+      low = m;
       fl = m.value;
       if (side === -1) fh /= 2;
       side = -1;
     } else {
-      hi = m;
+      high = m;
       fh = m.value;
       if (side === 1) fl /= 2;
       side = 1;
     }
   }
-  if (hi.value < -PRESSURE_TOL) throw new Error('the required source pressure could not be found');
-  return hi;
+  if (high.value < -PRESSURE_TOL) throw new Error('the required source pressure could not be found');
+  return high;
 }
 
 /** One design area on its own, fed from node `sourceNodeId`. */
