@@ -53,6 +53,7 @@ export const FORMATS = {
           zones: r.zoning.zones,
           fmt: formatterFor(r.reportUnits),
         }),
+        r.drawing.entityHandles,
       ),
   },
   html: { description: 'the HTML report', extension: '.html', mediaType: 'text/html', inBatch: true, make: (r) => htmlReport(r) },

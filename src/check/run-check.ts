@@ -112,6 +112,6 @@ function planOf(input: CheckInput, stage: <T>(name: string, value: T) => T): { d
     }),
   );
   const plan = stage('plan', planFromDrawing(read, settings));
-  const { version, units, unitsFrom, headerUnits, encoding, handseed, layers, roles, headCandidates } = read;
-  return { drawing: { version, units, unitsFrom, headerUnits, encoding, handseed, layers, roles, headCandidates }, plan };
+  const { version, units, unitsFrom, headerUnits, encoding, handseed, entityHandles, layers, roles, headCandidates } = read;
+  return { drawing: { version, units, unitsFrom, headerUnits, encoding, handseed, entityHandles, layers, roles, headCandidates }, plan };
 }

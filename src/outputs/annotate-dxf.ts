@@ -9,6 +9,7 @@ import { lineBreakOf } from '../read/dxf/groups.js';
 import { formatGroups } from './dxf-format.js';
 import * as rec from './dxf-records.js';
 import { dxfStructure, type TableEntry, type TableInfo } from './dxf-structure.js';
+import type { EntityHandles } from '../read/source.js';
 
 /** Bytes [at, end) of the original replaced by `bytes` (at = end: an insertion). */
 interface Splice {
@@ -19,10 +20,16 @@ interface Splice {
 
 /**
  * The annotated drawing in pieces, to be written one after another: ranges of the original bytes (views, not
- * copies) between the new bytes.
+ * copies) between the new bytes. `read`: what the read noted of the entity sections, which spares walking them.
  */
-export function annotateDxf(bytes: Uint8Array, version: string, units: LengthUnit, notes: Annotations): Uint8Array[] {
-  const { sections, tables, blockNames, handseed, nextHandle } = dxfStructure(bytes);
+export function annotateDxf(
+  bytes: Uint8Array,
+  version: string,
+  units: LengthUnit,
+  notes: Annotations,
+  read: EntityHandles | null = null,
+): Uint8Array[] {
+  const { sections, tables, blockNames, handseed, nextHandle } = dxfStructure(bytes, read);
   const eol = lineBreakOf(bytes);
   const modern = version >= 'AC1015';
   const utf8 = version >= 'AC1021';

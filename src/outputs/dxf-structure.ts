@@ -1,7 +1,9 @@
 // Where a DXF file takes the annotator's additions: its sections, its tables with their entries, the block
-// names in use, the $HANDSEED value and the handles in use. One walk over the bytes, nothing kept per entity.
+// names in use, the $HANDSEED value and the handles in use. One walk over the bytes, nothing kept per entity; the
+// entity sections, which the read walked already, are passed over with what it noted of them.
 
-import { GroupCursor, latin1 } from '../read/dxf/groups.js';
+import { GroupCursor, HighestHandle, hexDigit, latin1 } from '../read/dxf/groups.js';
+import type { EntityHandles } from '../read/source.js';
 
 /** A value in the file: its byte range and its text. */
 export interface Field {
@@ -49,17 +51,23 @@ function hexValue(bytes: Uint8Array, start: number, end: number): bigint {
   if (start === end) return 0n;
   let small = 0;
   for (let i = start; i < end; i++) {
-    const c = bytes[i]!;
-    const d = c >= 48 && c <= 57 ? c - 48 : c >= 65 && c <= 70 ? c - 55 : c >= 97 && c <= 102 ? c - 87 : -1;
+    const d = hexDigit(bytes[i]!);
     if (d < 0) return 0n;
     small = small * 16 + d;
   }
   return small <= Number.MAX_SAFE_INTEGER ? BigInt(small) : BigInt(`0x${latin1(bytes, start, end)}`);
 }
 
-export function dxfStructure(bytes: Uint8Array): DxfStructure {
+/**
+ * The structure of the DXF in `bytes`. With `read` (what the read noted of the same bytes), each ENTITIES section
+ * it lists is passed over and its highest handle taken from there, the same structure as the whole walk finds (a
+ * test holds it on the fixtures and the real-drawing corpus): on a drawing of 25 MB, nearly all of it entities, the
+ * annotated drawing took 250-530 ms with the whole walk, 75-190 ms without.
+ */
+export function dxfStructure(bytes: Uint8Array, read: EntityHandles | null = null): DxfStructure {
   const out: DxfStructure = { sections: new Map(), tables: new Map(), blockNames: new Set(), handseed: null, nextHandle: null };
   const c = new GroupCursor(bytes);
+  const passOver = new Map((read?.sections ?? []).map((s) => [s.begin, s.endsec]));
   const field = (): Field => ({ valueStart: c.valueStart, valueEnd: c.valueEnd, value: c.latin1() });
   let section: string | null = null;
   let sectionBegin = 0;
@@ -67,7 +75,7 @@ export function dxfStructure(bytes: Uint8Array): DxfStructure {
   let expect: 'section-name' | 'table-name' | 'seed' | null = null;
   let table: { name: string; info: TableInfo; entry: TableEntry | null } | null = null;
   let inBlockRecord = false;
-  let topHandle = -1n;
+  const highest = new HighestHandle(bytes);
   while (c.next()) {
     const code = c.code;
     const awaited = expect;
@@ -89,6 +97,12 @@ export function dxfStructure(bytes: Uint8Array): DxfStructure {
         section = null;
         table = null;
         expect = 'section-name';
+        const endsec = passOver.get(c.start);
+        if (endsec !== undefined) {
+          section = 'ENTITIES';
+          expect = null;
+          c.end = endsec;
+        }
         continue;
       }
       if (c.valueIs('ENDSEC')) {
@@ -118,10 +132,13 @@ export function dxfStructure(bytes: Uint8Array): DxfStructure {
     else if (table && code === 70) table.info.count = field();
     if (inBlockRecord && code === 2) out.blockNames.add(c.latin1().toUpperCase());
     if (code === 9 && c.latin1().toUpperCase() === '$HANDSEED') expect = 'seed';
-    if ((code === 5 || code === 105) && section !== 'HEADER') {
-      const h = hexValue(bytes, c.valueStart, c.valueEnd);
-      if (h > topHandle) topHandle = h;
-    }
+    if ((code === 5 || code === 105) && section !== 'HEADER') highest.note(c.valueStart, c.valueEnd);
+  }
+  // The highest handle of this walk and the read's; −1 where neither saw one.
+  let topHandle = -1n;
+  for (const top of [highest.text(), read?.top ?? null]) {
+    const h = top === null ? -1n : BigInt(`0x${top}`);
+    if (h > topHandle) topHandle = h;
   }
   if (topHandle >= 0n) {
     const seed = out.handseed ? hexValue(bytes, out.handseed.valueStart, out.handseed.valueEnd) : 0n;

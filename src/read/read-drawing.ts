@@ -24,7 +24,7 @@ export interface ReadOptions {
 export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawing {
   const limits = options.limits ?? DEFAULT_INPUT_LIMITS;
   if (bytes.length > limits.fileMB * 1024 * 1024) fail(`larger than ${limits.fileMB} MiB (inputLimits.fileMB)`);
-  const { raw, layers, roles, headCandidates, header, encoding } = decodeByRole(bytes, options, limits);
+  const { raw, layers, roles, headCandidates, header, encoding, entityHandles } = decodeByRole(bytes, options, limits);
   const fromHeader = unitFromInsunits(header.insunits);
   const units = options.units ?? fromHeader;
   if (!units) {
@@ -45,6 +45,7 @@ export function readDrawing(bytes: Uint8Array, options: ReadOptions = {}): Drawi
     headerUnits: fromHeader,
     encoding,
     handseed: header.handseed,
+    entityHandles,
     layers,
     roles,
     headCandidates,
@@ -71,7 +72,7 @@ function decodeByRole(bytes: Uint8Array, options: ReadOptions, limits: InputLimi
     },
     limits.expandedEntities,
   );
-  return { raw, layers, roles, headCandidates, header: source.header, encoding: source.encoding };
+  return { raw, layers, roles, headCandidates, header: source.header, encoding: source.encoding, entityHandles: source.entityHandles };
 }
 
 /** What a drawing holds and the role of each layer, without reading any geometry (`headcheck layers`). */

@@ -46,6 +46,18 @@ export interface BlockEntry {
   rows: Rows;
 }
 
+/**
+ * The entity sections' places and the highest handle written in them (groups 5 and 105; the blocks' entities are
+ * among those counted): the annotated drawing's fresh handles go above it, and its walk of the file need not pass
+ * those sections again.
+ */
+export interface EntityHandles {
+  /** Each ENTITIES section: where its "0 SECTION" group starts, and its "0 ENDSEC" group. */
+  sections: { begin: number; endsec: number }[];
+  /** The highest handle there in upper-case hex without leading zeros ("0" where only zero or non-hex ones were); null: none. */
+  top: string | null;
+}
+
 /** What the header says that the reader uses. */
 export interface HeaderFacts {
   /** $ACADVER, AC1009 (R12) when not stated. */
@@ -60,6 +72,7 @@ export interface DrawingSource {
   /** WHATWG label of the text encoding the drawing was read with. */
   encoding: string;
   header: HeaderFacts;
+  entityHandles: EntityHandles;
   /** Layer names of the LAYER table. */
   layerNames: string[];
   /** Each distinct type, layer and block name, as the entity table refers to them. */

@@ -3,6 +3,7 @@
 
 import type { Point } from '../geometry/point.js';
 import type { HeadCandidate, LayerRoles } from './layer-roles.js';
+import type { EntityHandles } from './source.js';
 
 import type { LengthUnit } from '../config/settings.js';
 
@@ -96,6 +97,8 @@ export interface DrawingFacts {
   headerUnits: LengthUnit | null;
   encoding: string;
   handseed: string | null;
+  /** Where the entity sections lie and the highest handle in them, for the annotated drawing. */
+  entityHandles: EntityHandles;
   layers: LayerSummary[];
   /** Which layers hold heads, pipes, walls, design areas and the source; only their content is read below. */
   roles: LayerRoles;

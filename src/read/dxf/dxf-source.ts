@@ -20,6 +20,7 @@ export function dxfSource(bytes: Uint8Array, limits: Pick<InputLimits, 'entities
     format: 'dxf',
     encoding,
     header: { version, insunits: scan.insunits, handseed: scan.handseed },
+    entityHandles: scan.entityHandles,
     layerNames: scan.layerNames,
     names,
     table,

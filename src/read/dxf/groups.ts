@@ -165,3 +165,52 @@ export function lineBreakOf(bytes: Uint8Array): string {
   const lf = bytes.indexOf(NEWLINE);
   return lf > 0 && bytes[lf - 1] === 13 ? '\r\n' : '\n';
 }
+
+/** Each byte's value as a hex digit (either case), or −1. */
+const HEX_DIGIT = Int8Array.from({ length: 256 }, (_, c) =>
+  c >= 48 && c <= 57 ? c - 48 : c >= 65 && c <= 70 ? c - 55 : c >= 97 && c <= 102 ? c - 87 : -1,
+);
+
+/** The value of a hex digit's byte (either case), or −1. */
+export const hexDigit = (c: number): number => HEX_DIGIT[c]!;
+
+/** Compares two ranges of hex digits without leading zeros as numbers: negative, zero or positive. */
+function compareHex(bytes: Uint8Array, s1: number, e1: number, s2: number, e2: number): number {
+  if (e1 - s1 !== e2 - s2) return e1 - s1 - (e2 - s2);
+  for (let i = 0; i < e1 - s1; i++) {
+    const d = hexDigit(bytes[s1 + i]!) - hexDigit(bytes[s2 + i]!);
+    if (d !== 0) return d;
+  }
+  return 0;
+}
+
+/**
+ * The highest of the handles noted, each a value's byte range read as hex (one that is not hex, or empty, counts
+ * as zero: a handle that cannot be read), kept as a range of the bytes: no string or number per handle, and exact
+ * beyond 2^53.
+ */
+export class HighestHandle {
+  private start = -1;
+  private end = -1;
+  private seen = false;
+
+  constructor(private readonly bytes: Uint8Array) {}
+
+  note(valueStart: number, valueEnd: number): void {
+    this.seen = true;
+    const b = this.bytes;
+    let s = valueStart;
+    while (s < valueEnd && b[s] === 48) s++;
+    if (s === valueEnd || (this.start >= 0 && compareHex(b, s, valueEnd, this.start, this.end) <= 0)) return;
+    // Only a value above the highest so far is checked to be hex (one that is not counts as zero).
+    for (let i = s; i < valueEnd; i++) if (hexDigit(b[i]!) < 0) return;
+    this.start = s;
+    this.end = valueEnd;
+  }
+
+  /** In upper-case hex without leading zeros ("0" where only zero or unreadable handles were noted); null: none noted. */
+  text(): string | null {
+    if (!this.seen) return null;
+    return this.start < 0 ? '0' : latin1(this.bytes, this.start, this.end).toUpperCase();
+  }
+}

@@ -4,8 +4,8 @@
 import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../../config/settings.js';
 import { fail, InputError } from '../../input-error.js';
 import { kindOf } from '../entities/registry.js';
-import { CLOSED, PAPER_SPACE, type BlockEntry, type EntityTable, type Rows } from '../source.js';
-import { GroupCursor } from './groups.js';
+import { CLOSED, PAPER_SPACE, type BlockEntry, type EntityHandles, type EntityTable, type Rows } from '../source.js';
+import { GroupCursor, HighestHandle } from './groups.js';
 
 export interface Section {
   name: string;
@@ -27,6 +27,7 @@ export interface ScannedDxf {
   blocks: BlockEntry[];
   /** Model-space rows: one run per ENTITIES section. */
   modelSpace: Rows[];
+  entityHandles: EntityHandles;
 }
 
 function tableWithRoom(capacity: number, from?: EntityTable): EntityTable {
@@ -67,6 +68,12 @@ export function scanDxf(
   limits: Pick<InputLimits, 'entities' | 'textLength'> = DEFAULT_INPUT_LIMITS,
 ): ScannedDxf {
   const c = new GroupCursor(bytes);
+  /**
+   * The handles of every entity and of whatever else the ENTITIES sections hold, noted where those groups are read
+   * (a test in `next` for every group of the file cost the scan 8-10% on a 25 MB drawing).
+   */
+  const handles = new HighestHandle(bytes);
+  const isHandle = () => c.code === 5 || c.code === 105;
   const next = (): boolean => {
     if (!c.next()) return false;
     if (Number.isNaN(c.code)) {
@@ -110,6 +117,7 @@ export function scanDxf(
 
   let table = tableWithRoom(1024);
   const out: Omit<ScannedDxf, 'names' | 'table'> = {
+    entityHandles: { sections: [], top: null },
     sections: [],
     insunits: null,
     handseed: null,
@@ -139,6 +147,7 @@ export function scanDxf(
     let rows = 1;
     while ((more = next()) && c.code !== 0) {
       if (c.code === 8) layer = nameIndex();
+      else if (isHandle()) handles.note(c.valueStart, c.valueEnd);
       else if (c.code === 67) flags = value() === '1' ? flags | PAPER_SPACE : flags & ~PAPER_SPACE;
       else if (isInsert && c.code === 2) block = nameIndex();
       else if (isInsert && c.code === 70) columns = Math.max(1, Math.floor(Number(value())) || 1);
@@ -151,7 +160,7 @@ export function scanDxf(
     }
     // Trailing records (they continue the entity rather than start one) up to the next entity or the end of the section or block.
     while (more && c.code === 0 && (valueIs('ATTRIB') || valueIs('VERTEX') || valueIs('SEQEND'))) {
-      while ((more = next()) && c.code !== 0);
+      while ((more = next()) && c.code !== 0) if (isHandle()) handles.note(c.valueStart, c.valueEnd);
     }
     table.layer[row] = layer;
     table.block[row] = block;
@@ -186,6 +195,7 @@ export function scanDxf(
       const model: Rows = { first: table.count, end: table.count };
       while (within(name)) {
         if (c.code !== 0) {
+          if (name === 'ENTITIES' && isHandle()) handles.note(c.valueStart, c.valueEnd);
           more = next();
           continue;
         }
@@ -205,7 +215,10 @@ export function scanDxf(
         }
       }
       model.end = table.count;
-      if (name === 'ENTITIES') out.modelSpace.push(model);
+      if (name === 'ENTITIES') {
+        out.modelSpace.push(model);
+        out.entityHandles.sections.push({ begin: start, endsec: c.start });
+      }
     } else if (name === 'TABLES') {
       while (within(name)) {
         const isLayer = c.code === 0 && valueIs('LAYER');
@@ -228,6 +241,7 @@ export function scanDxf(
     more = next();
     out.sections.push({ name, start, end: more ? c.start : bytes.length });
   }
+  out.entityHandles.top = handles.text();
   return { ...out, names, table };
 }
 
