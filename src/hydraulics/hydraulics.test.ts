@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { parseSettings } from '../config/settings.js';
 import { checkLayout } from '../../test/support/check.js';
 import { EPANET_PSI_PER_FT, solveWithEpanet } from '../../test/support/epanet.js';
-import { calculateArea } from './calculate.js';
+import { AreaCalculator, calculateArea } from './calculate.js';
 import { frictionPsiPerFt, resistance } from './hazen-williams.js';
 import { buildModel, type HydraulicModel } from './model.js';
 import { modelPipe } from '../../test/support/model-pipe.js';
@@ -185,6 +185,34 @@ describe('one solver for many design areas, against EPANET', () => {
       expect(Array.from(after.pressure)).toEqual(Array.from(before.pressure));
       expect(Array.from(after.flow)).toEqual(Array.from(before.flow));
       expect(Array.from(after.emitterFlow)).toEqual(Array.from(before.emitterFlow));
+    });
+  }
+});
+
+describe("an area's source pressure", () => {
+  // The least source pressure at which every open head gets its requirement: satisfied there, short of it 0.001 psi
+  // lower (the search's tolerance is 1e-6 psi; common practice, no source). Found cold (from the static head), and
+  // warm from a neighbour that needed more or less, with the heads 40 ft above the source (17.3 psi of lift).
+  for (const gridded of [false, true]) {
+    it(`${gridded ? 'grid' : 'tree'}: the least that satisfies each area, cold and warm from either side`, () => {
+      const config = { defaults: { headElevation: 40, sourceElevation: 0 } };
+      const r = checkLayout({ s: 12, l: 10, heads: 7, lines: 5, gridded }, config);
+      const flowing = r.plan.heads.map((h) => ({ head: h, required: 7 + (h.position.x % 3) }));
+      const calculator = new AreaCalculator(r.network, r.network.systems[0]!.sourceNodeId, flowing, parseSettings(config));
+      const ids = flowing.map((f) => f.head.id);
+      // Areas of 6, 12, 4 and 9 heads in turn: each next one needs more, less and more than the one before, so the
+      // search for it starts below, above and below its answer.
+      const areas = [ids.slice(0, 6), ids.slice(0, 12), ids.slice(20, 24), ids.slice(10, 19)];
+      const pressures = areas.map((area) => {
+        const d = calculator.demand(area);
+        expect(calculator.satisfiedAt(area, d.sourcePressure + 1e-6).satisfied).toBe(true);
+        expect(calculator.satisfiedAt(area, d.sourcePressure - 1e-3).satisfied).toBe(false);
+        return d.sourcePressure;
+      });
+      expect(pressures[1]).toBeGreaterThan(pressures[0]!);
+      expect(pressures[2]).toBeLessThan(pressures[1]!);
+      expect(pressures[3]).toBeGreaterThan(pressures[2]!);
+      expect(Math.min(...pressures)).toBeGreaterThan(40 * 0.433); // above the lift (0.433 psi/ft, common practice)
     });
   }
 });
