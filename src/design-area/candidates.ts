@@ -98,11 +98,11 @@ export function lineFamilies(
   return families.filter((f) => f.spacing > 0 && f.perHead > 0);
 }
 
-/** The target an area must reach: `count` heads covering `area` ft². */
+/** The target an area must reach: `count` heads covering `area` ft²; what each head of each line covers, by place. */
 interface Target {
   count: number;
   area: number;
-  areaOf: (id: string) => number;
+  areas: Float64Array[];
 }
 
 /**
@@ -133,7 +133,8 @@ function sketchAt(fam: LineFamily, start: number, dir: 1 | -1, edge: number, tar
     const to = Math.min(line.heads.length, from + along);
     if (from >= to) continue;
     let windowArea = 0;
-    for (let k = from; k < to; k++) windowArea += target.areaOf(line.ids[k]!);
+    const areas = target.areas[j]!;
+    for (let k = from; k < to; k++) windowArea += areas[k]!;
     if (!reached(heads + to - from, covered + windowArea) || heads + to - from === target.count) {
       windows.push(j, from, to);
       heads += to - from;
@@ -147,13 +148,18 @@ function sketchAt(fam: LineFamily, start: number, dir: 1 | -1, edge: number, tar
     const feedT = line.feedTs.length
       ? line.feedTs.reduce((a, b) => (Math.abs(b - middle) < Math.abs(a - middle) ? b : a))
       : line.heads[0]!.t;
+    // Nearest first: out from the feed both ways along the window (the heads are in order along the line; of two
+    // as near on the two sides, the one before).
     let size = 0;
     let area = covered;
-    const nearestFirst = Array.from({ length: to - from }, (_, k) => from + k);
-    nearestFirst.sort((a, b) => Math.abs(line.heads[a]!.t - feedT) - Math.abs(line.heads[b]!.t - feedT));
-    for (const k of nearestFirst) {
+    let after = firstAtOrAfter(line.heads, feedT);
+    after = Math.min(Math.max(after, from), to);
+    let before = after - 1;
+    const distance = (k: number) => Math.abs(line.heads[k]!.t - feedT);
+    while (before >= from || after < to) {
+      const k = after >= to || (before >= from && distance(before) <= distance(after)) ? before-- : after++;
       size++;
-      area += target.areaOf(line.ids[k]!);
+      area += areas[k]!;
       if (reached(heads + size, area)) break;
     }
     // Runs of `size` heads lying between the feed end and the far side of the window.
@@ -189,7 +195,7 @@ const firstAtOrAfter = (heads: { t: number }[], t: number): number => lowerBound
  * their leftover placements joined (each range holds the cross-main end, so they overlap).
  */
 export function candidateGroupsOf(fam: LineFamily, areaOf: (id: string) => number, area: number): CandidateGroup[] {
-  const target: Target = { count: fam.shape.totalHeads, area, areaOf };
+  const target: Target = { count: fam.shape.totalHeads, area, areas: fam.lines.map((l) => Float64Array.from(l.ids, areaOf)) };
   /** The groups by the hash of their whole lines' heads (a number: tens of thousands of string keys weigh megabytes). */
   const byHash = new Map<number, CandidateGroup[]>();
   const out: CandidateGroup[] = [];
