@@ -1,5 +1,5 @@
 // A drawing as the reader sees it before any geometry: an entity table (type, layer, block, copies, flags per row),
-// its blocks and model space, and a way to decode one row. DXF builds it from a byte scan; DWG from its reader.
+// its blocks and model space, and a way to decode one row. A byte scan of the DXF builds it (a DWG converted first).
 
 import type { Point } from '../geometry/point.js';
 import type { EntityBase } from './entities/types.js';

@@ -1,5 +1,5 @@
-// Walks a DXF file's groups on its bytes, one group at a time and without an object per group: its code and
-// the ranges of its lines and value. The reader's scan checks structure with it; the annotator splices by it.
+// Walks a DXF file's groups on its bytes, one at a time and without an object per group: its code and the ranges
+// of its lines and value; and finds the highest handle. The scan checks structure with it; the annotator splices by it.
 
 /** Space, tab or carriage return: blanks around a group's code or value. */
 export const isBlank = (c: number) => c === 32 || c === 9 || c === 13;

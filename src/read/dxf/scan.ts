@@ -1,5 +1,5 @@
-// Walks a DXF file's group structure once on its bytes, decoding only the values it needs: the sections, the
-// layer table, and each block and entity with its type, layer and byte range, so that only what matters is parsed.
+// Walks a DXF file's group structure once on its bytes, decoding only the values it needs: sections, layer table,
+// each block and entity with its type, layer and byte range (only what matters is parsed), the highest entity handle.
 
 import { DEFAULT_INPUT_LIMITS, type InputLimits } from '../../config/settings.js';
 import { fail, InputError } from '../../input-error.js';
