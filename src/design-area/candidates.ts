@@ -152,8 +152,7 @@ function sketchAt(fam: LineFamily, start: number, dir: 1 | -1, edge: number, tar
     // as near on the two sides, the one before).
     let size = 0;
     let area = covered;
-    let after = firstAtOrAfter(line.heads, feedT);
-    after = Math.min(Math.max(after, from), to);
+    let after = Math.min(Math.max(firstAtOrAfter(line.heads, feedT), from), to);
     let before = after - 1;
     const distance = (k: number) => Math.abs(line.heads[k]!.t - feedT);
     while (before >= from || after < to) {

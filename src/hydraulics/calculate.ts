@@ -191,6 +191,8 @@ export class AreaCalculator {
     let trials = 0;
     let iterations = 0;
     const zSource = model.nodes[model.source]!.elevation;
+    /** How far emitter k sits above the source, in psi of water column. */
+    const liftOf = (k: number) => PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource);
     /** Slack of the most demanding open head at source pressure P (≥ 0: every head is satisfied). */
     const slack = (P: number): Trial => {
       const at = this.solveAt(P, open, true);
@@ -207,12 +209,9 @@ export class AreaCalculator {
           critical = k;
         }
       });
-      const e = model.emitters[critical]!;
-      return { P, value, critical, pressure: value + e.required, lift: PSI_PER_FT * (model.nodes[e.node]!.elevation - zSource), state };
+      return { P, value, critical, pressure: value + model.emitters[critical]!.required, lift: liftOf(critical), state };
     };
-    const staticHead = maxOf(
-      Array.from(open, (k) => model.emitters[k]!.required + PSI_PER_FT * (model.nodes[model.emitters[k]!.node]!.elevation - zSource)),
-    );
+    const staticHead = maxOf(Array.from(open, (k) => model.emitters[k]!.required + liftOf(k)));
     const found = findPressure(slack, staticHead, this.lastPressure, () => trials);
     this.lastPressure = found.P;
     return {
