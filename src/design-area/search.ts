@@ -247,11 +247,16 @@ function rankAtTotalPressure({ network, sourceNodeId, groups, flowingOf, setting
         return;
       }
       const mid = (first + last) >> 1;
-      const halves = [
-        { a: first, b: mid, upper: upperOfGroup(g, first, mid) },
-        { a: mid + 1, b: last, upper: upperOfGroup(g, mid + 1, last) },
-      ].sort((x, y) => y.upper - x.upper);
-      for (const h of halves) explore(g, h.a, h.b, h.upper);
+      const firstHalf = upperOfGroup(g, first, mid);
+      const secondHalf = upperOfGroup(g, mid + 1, last);
+      // The more demanding half first; of two alike, the first.
+      if (secondHalf > firstHalf) {
+        explore(g, mid + 1, last, secondHalf);
+        explore(g, first, mid, firstHalf);
+      } else {
+        explore(g, first, mid, firstHalf);
+        explore(g, mid + 1, last, secondHalf);
+      }
     };
     for (let at = 0; at < order.length; at++) {
       const g = groups[order[at]!]!;

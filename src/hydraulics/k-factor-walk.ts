@@ -169,6 +169,8 @@ class KFactorWalk implements TreeBound {
   private touched = 0;
   /** [0, 1]: the running join's pressure and flow; [2]: the one elevation of every node reached this call, once `levelSeen`. */
   private readonly scratch = new Float64Array(3);
+  /** What the last climb reached its upper anchor with: [pressure, flow, resistance pending]. */
+  private readonly climbed = new Float64Array(3);
   private levelSeen = false;
   private readonly lines = new WeakMap<readonly string[], LineWater | null>();
   /**
@@ -462,7 +464,10 @@ class KFactorWalk implements TreeBound {
       }
       const u = upAnchor[v]!;
       if (v === stopAt || u < 0) return { pressure: this.pressureAt(v), flow: Q[v]! };
-      const { p, q, r } = this.climb(v, u);
+      this.climb(v, u);
+      const p = this.climbed[0]!;
+      const q = this.climbed[1]!;
+      const r = this.climbed[2]!;
       if (v === top) {
         // All the water is in: on to the end (the source, or `stopAt` above) with the way's sums.
         if (q === 0) return { pressure: 0, flow: 0 };
@@ -552,16 +557,18 @@ class KFactorWalk implements TreeBound {
     }
   }
 
-  /** Up the chain from anchor v to u, joining its open heads on the way: the pressure and flow at u, and the resistance pending. */
-  private climb(v: number, u: number): { p: number; q: number; r: number } {
+  /** Up the chain from anchor v to u, joining its open heads on the way: the pressure and flow at u, and the resistance pending (in `climbed`). */
+  private climb(v: number, u: number): void {
     const { sk, P, Q, R } = this;
     const c = this.upChain[v]!;
     const chain = sk.chains[c]!;
     const fromA = chain.a === v;
     const end = fromA ? chain.nodes.length + 1 : 0;
     const rise = PSI_PER_FT * (this.z(sk.anchorNode[v]!) - this.z(sk.anchorNode[u]!));
-    if (this.chainStamp[c] !== this.epoch)
-      return { p: P[v]! + rise, q: Q[v]!, r: R[v]! + this.resistance(c, fromA ? 0 : chain.nodes.length + 1, end) };
+    if (this.chainStamp[c] !== this.epoch) {
+      this.reach(P[v]! + rise, Q[v]!, R[v]! + this.resistance(c, fromA ? 0 : chain.nodes.length + 1, end));
+      return;
+    }
     let pos = fromA ? 0 : chain.nodes.length + 1;
     this.scratch[0] = Q[v]! > 0 ? this.pressureAt(v) : 0;
     this.scratch[1] = Q[v]!;
@@ -576,7 +583,14 @@ class KFactorWalk implements TreeBound {
       this.join(e.required, e.k * Math.sqrt(e.required));
       pos = indices[k]! + 1;
     }
-    return { p: this.scratch[0]! + rise, q: this.scratch[1]!, r: this.resistance(c, pos, end) };
+    this.reach(this.scratch[0]! + rise, this.scratch[1]!, this.resistance(c, pos, end));
+  }
+
+  /** Notes what a climb reaches its upper anchor with: pressure, flow, and the resistance still pending on that flow. */
+  private reach(p: number, q: number, r: number): void {
+    this.climbed[0] = p;
+    this.climbed[1] = q;
+    this.climbed[2] = r;
   }
 
   /** What a line's runs share (cached per line array), or null where one of its heads is unknown. */
