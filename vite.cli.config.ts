@@ -16,6 +16,16 @@ export default defineConfig({
     emptyOutDir: true,
     target: 'node20',
     minify: false,
-    rollupOptions: { output: { format: 'cjs', entryFileNames: 'main.cjs', chunkFileNames: '[name]-[hash].cjs' } },
+    rollupOptions: {
+      output: {
+        format: 'cjs',
+        entryFileNames: 'main.cjs',
+        chunkFileNames: '[name]-[hash].cjs',
+        // Plain ASCII without the doc comments: V8 keeps a one-byte source of half the size, read and hashed at each
+        // start (a non-ASCII character makes every character two bytes).
+        charset: 'ascii',
+        comments: { legal: true, annotation: false, jsdoc: false },
+      },
+    },
   },
 });
