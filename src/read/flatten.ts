@@ -10,7 +10,8 @@ import type { AttDef } from './entities/attdef.js';
 import { placements, type Insert } from './entities/insert.js';
 import { kindOf } from './entities/registry.js';
 import type { EntityBase, ExpandContext } from './entities/types.js';
-import type { RawDrawing } from './select.js';
+import type { RawBlock, RawDrawing } from './select.js';
+import type { Point } from '../geometry/point.js';
 import type { BlockRef, Outline, PointItem, Stroke, SymbolItem, TextItem } from './types.js';
 
 export interface Flattened {
@@ -50,8 +51,21 @@ export function flatten(
       const layer = e.layer === '0' && ctx.layer !== null ? ctx.layer : e.layer;
       const handle = ctx.handle ?? e.handle;
       if (e.type === 'INSERT') expandInsert(e as Insert, layer, handle, ctx);
-      else kindOf(e.type)?.expand?.(e, geometryContext(e, layer, handle, ctx.m, ctx.parents.length === 0));
+      else kindOf(e.type)?.expand?.(e, new GeometrySink(out, keep, e, layer, handle, ctx.m, ctx.parents.length === 0));
     }
+  };
+
+  /** What every reference to a block shares: its attribute definitions' defaults, and whether it nests references. */
+  const blockFacts = new Map<RawBlock, { defaults: Record<string, string>; hasNestedRefs: boolean }>();
+  const factsOf = (block: RawBlock) => {
+    let facts = blockFacts.get(block);
+    if (facts) return facts;
+    const defaults: Record<string, string> = {};
+    for (const def of block.entities)
+      if (def.type === 'ATTDEF' && (def as AttDef).tag) defaults[(def as AttDef).tag.toUpperCase()] = (def as AttDef).value;
+    facts = { defaults, hasNestedRefs: block.entities.some((x) => x.type === 'INSERT') };
+    blockFacts.set(block, facts);
+    return facts;
   };
 
   const expandInsert = (e: Insert, layer: string, handle: string, ctx: Context) => {
@@ -61,13 +75,10 @@ export function flatten(
     if (ctx.parents.includes(name)) fail(`block "${name}" contains a reference to itself`);
     if (ctx.parents.length + 1 > limits.blockDepth)
       fail(`block nesting deeper than ${limits.blockDepth} levels at "${name}" (inputLimits.blockDepth)`);
-    const attributes: Record<string, string> = {};
-    for (const def of block.entities)
-      if (def.type === 'ATTDEF' && (def as AttDef).tag) attributes[(def as AttDef).tag.toUpperCase()] = (def as AttDef).value;
-    Object.assign(attributes, e.attributes);
+    const { defaults, hasNestedRefs } = factsOf(block);
+    const attributes: Record<string, string> = Object.assign({}, defaults, e.attributes);
     if (refCount + e.columns * e.rows > limits.blockReferences)
       fail(`more than ${limits.blockReferences} block references after expansion (inputLimits.blockReferences)`);
-    const hasNestedRefs = block.entities.some((x) => x.type === 'INSERT');
     for (const placement of placements(e, block.base)) {
       const m = compose(ctx.m, placement);
       refCount++;
@@ -87,45 +98,72 @@ export function flatten(
     }
   };
 
-  const geometryContext = (e: EntityBase, layer: string, handle: string, m: Affine, topLevel: boolean): ExpandContext => {
-    const ocs = ocsOf(e);
-    return {
-      m,
-      ocs: ocs ? compose(m, ocs) : m,
-      stroke(points, t, localLength) {
-        if (!keep.strokes(layer)) return;
-        const world = points.map((p) => apply(t, p));
-        let len = 0;
-        for (let k = 1; k < world.length; k++) len += distance(world[k - 1]!, world[k]!);
-        // The true length scales with a similarity; a stretched curve is measured along its samples.
-        const similar = Math.abs(Math.abs(t.a * t.a + t.b * t.b) - Math.abs(determinant(t))) < 1e-9 * Math.abs(determinant(t));
-        out.strokes.push({
-          handle,
-          layer,
-          type: e.type,
-          a: world[0]!,
-          b: world[world.length - 1]!,
-          via: world.slice(1, -1),
-          length: similar ? localLength * meanScale(t) : len,
-        });
-      },
-      outline(points, t) {
-        if (keep.outlines(layer)) out.outlines.push({ handle, layer, type: e.type, points: points().map((p) => apply(t, p)) });
-      },
-      text(at, t, text, localHeight) {
-        if (keep.texts(layer)) out.texts.push({ handle, layer, position: apply(t, at), text, height: localHeight * meanScale(t) });
-      },
-      point(at, t) {
-        if (keep.points(layer)) out.points.push({ handle, layer, position: apply(t, at) });
-        if (topLevel && keep.symbols(layer)) out.symbols.push({ handle, layer, position: apply(t, at), type: 'POINT', radius: 0 });
-      },
-      symbol(center, t, localRadius) {
-        if (topLevel && keep.symbols(layer))
-          out.symbols.push({ handle, layer, position: apply(t, center), type: 'CIRCLE', radius: localRadius * meanScale(t) });
-      },
-    };
-  };
-
   walk(raw.entities, { m: scaling(feetPerUnit, feetPerUnit), layer: null, handle: null, parents: [] });
   return out;
+}
+
+/**
+ * Where one entity hands on its geometry: into `out`, for the layers that keep each kind of item. A class, so that
+ * each of a drawing's entities costs one small object rather than five closures.
+ */
+class GeometrySink implements ExpandContext {
+  readonly ocs: Affine;
+
+  constructor(
+    private readonly out: Flattened,
+    private readonly keep: FlattenKeep,
+    private readonly entity: EntityBase,
+    private readonly layer: string,
+    private readonly handle: string,
+    readonly m: Affine,
+    private readonly topLevel: boolean,
+  ) {
+    const ocs = ocsOf(entity);
+    this.ocs = ocs ? compose(m, ocs) : m;
+  }
+
+  stroke(points: Point[], t: Affine, localLength: number): void {
+    if (!this.keep.strokes(this.layer)) return;
+    const world = points.map((p) => apply(t, p));
+    let len = 0;
+    for (let k = 1; k < world.length; k++) len += distance(world[k - 1]!, world[k]!);
+    // The true length scales with a similarity; a stretched curve is measured along its samples.
+    const similar = Math.abs(Math.abs(t.a * t.a + t.b * t.b) - Math.abs(determinant(t))) < 1e-9 * Math.abs(determinant(t));
+    this.out.strokes.push({
+      handle: this.handle,
+      layer: this.layer,
+      type: this.entity.type,
+      a: world[0]!,
+      b: world[world.length - 1]!,
+      via: world.slice(1, -1),
+      length: similar ? localLength * meanScale(t) : len,
+    });
+  }
+
+  outline(points: () => Point[], t: Affine): void {
+    if (this.keep.outlines(this.layer))
+      this.out.outlines.push({ handle: this.handle, layer: this.layer, type: this.entity.type, points: points().map((p) => apply(t, p)) });
+  }
+
+  text(at: Point, t: Affine, text: string, localHeight: number): void {
+    if (this.keep.texts(this.layer))
+      this.out.texts.push({ handle: this.handle, layer: this.layer, position: apply(t, at), text, height: localHeight * meanScale(t) });
+  }
+
+  point(at: Point, t: Affine): void {
+    if (this.keep.points(this.layer)) this.out.points.push({ handle: this.handle, layer: this.layer, position: apply(t, at) });
+    if (this.topLevel && this.keep.symbols(this.layer))
+      this.out.symbols.push({ handle: this.handle, layer: this.layer, position: apply(t, at), type: 'POINT', radius: 0 });
+  }
+
+  symbol(center: Point, t: Affine, localRadius: number): void {
+    if (this.topLevel && this.keep.symbols(this.layer))
+      this.out.symbols.push({
+        handle: this.handle,
+        layer: this.layer,
+        position: apply(t, center),
+        type: 'CIRCLE',
+        radius: localRadius * meanScale(t),
+      });
+  }
 }

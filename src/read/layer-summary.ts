@@ -57,19 +57,20 @@ export function summarizeLayers(
   const named = nameDecoder();
   const layerOf = rowLayers(scan);
   const { table, names } = scan;
-  const memo = new Map<string, { tally: Tally; height: number }>();
+  const memo = new Map<BlockEntry, Map<string, { tally: Tally; height: number }>>();
   const open = new Set<BlockEntry>();
   /** One placement of `block` whose reference sits on layer `inherited`: its tally and nesting height. */
   const placement = (block: BlockEntry, inherited: string): { tally: Tally; height: number } => {
-    const key = `${block.name}\u0000${inherited}`;
-    const known = memo.get(key);
+    let byLayer = memo.get(block);
+    if (!byLayer) memo.set(block, (byLayer = new Map()));
+    const known = byLayer.get(inherited);
     if (known) return known;
     if (open.has(block)) fail(`block "${named(block.name)}" contains a reference to itself`);
     if (open.size >= maxDepth) fail(`block nesting deeper than ${maxDepth} levels at "${named(block.name)}" (inputLimits.blockDepth)`);
     open.add(block);
     const result = walk([block.rows], inherited);
     open.delete(block);
-    memo.set(key, result);
+    byLayer.set(inherited, result);
     return result;
   };
   const walk = (runs: Rows[], inherited: string | null): { tally: Tally; height: number } => {
@@ -79,6 +80,10 @@ export function summarizeLayers(
       if (!t) tally.set(layer, (t = emptySummary(layer)));
       return t;
     };
+    // A block's contents are added at its first reference on a layer (so that every count keeps the place where
+    // it first appears), the copies of its later references there in one addition at the end: a drawing places a
+    // head block thousands of times.
+    const later = new Map<{ tally: Tally; height: number }, number>();
     let height = 0;
     for (const run of runs)
       for (let row = run.first; row < run.end; row++) {
@@ -91,8 +96,7 @@ export function summarizeLayers(
         if (kind?.shape === 'stroke') s.strokes++;
         if ((kind?.closedOutline && table.flags[row]! & CLOSED) || kind?.shape === 'outline') s.outlines++;
         if (kind?.shape === 'point') s.points++;
-        if (type !== 'INSERT' || table.block[row]! < 0) continue;
-        const block = blocks.find(named(names[table.block[row]!]!));
+        const block = type === 'INSERT' ? blocks.of(row) : null;
         if (!block) continue;
         const copies = table.copies[row]!;
         s.refs += copies;
@@ -100,9 +104,14 @@ export function summarizeLayers(
         s.blockRefs[name] = (s.blockRefs[name] ?? 0) + copies;
         if (!blocks.hasNestedRefs(block)) s.symbolRefs[name] = (s.symbolRefs[name] ?? 0) + copies;
         const inner = placement(block, layer);
-        addTally(tally, inner.tally, copies);
+        const pending = later.get(inner);
+        if (pending === undefined) {
+          addTally(tally, inner.tally, copies);
+          later.set(inner, 0);
+        } else later.set(inner, pending + copies);
         height = Math.max(height, inner.height + 1);
       }
+    for (const [inner, copies] of later) if (copies > 0) addTally(tally, inner.tally, copies);
     return { tally, height };
   };
   const top = walk(scan.modelSpace, null);

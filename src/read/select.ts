@@ -35,7 +35,7 @@ export function decodeSelected(source: DrawingSource, wanted: Wanted, budget = I
   const blocks = blockLookup(source);
   const layerOf = rowLayers(source);
   const { table } = source;
-  const reachMemo = new Map<string, boolean>();
+  const reachMemo = new Map<BlockEntry, Map<string, boolean>>();
   const open = new Set<BlockEntry>();
   const wants = (row: number, inherited: string | null): boolean => {
     const layer = effectiveLayer(layerOf(row), inherited);
@@ -46,15 +46,16 @@ export function decodeSelected(source: DrawingSource, wanted: Wanted, budget = I
   };
   /** Whether a placement of `block` on layer `inherited` holds anything wanted. */
   const reaches = (block: BlockEntry, inherited: string): boolean => {
-    const key = `${block.name}\u0000${inherited}`;
-    const known = reachMemo.get(key);
+    let byLayer = reachMemo.get(block);
+    if (!byLayer) reachMemo.set(block, (byLayer = new Map()));
+    const known = byLayer.get(inherited);
     if (known !== undefined) return known;
     if (open.has(block)) return false; // a cycle, reported by the layer summary
     open.add(block);
     let result = false;
     for (let row = block.rows.first; row < block.rows.end && !result; row++) result = wants(row, inherited);
     open.delete(block);
-    reachMemo.set(key, result);
+    byLayer.set(inherited, result);
     return result;
   };
   const chosen: number[] = [];

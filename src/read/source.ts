@@ -116,10 +116,17 @@ export function blockLookup(source: Pick<DrawingSource, 'blocks' | 'names' | 'ta
   );
   const named = nameDecoder();
   const find = (name: string) => exact.get(name) ?? upper.get(name.toUpperCase()) ?? null;
+  // The block of each name a reference gives (an index into `names`), found once: a drawing places few blocks many times.
+  const byName = new Map<number, BlockEntry | null>();
+  const ofName = (index: number): BlockEntry | null => {
+    let block = byName.get(index);
+    if (block === undefined) byName.set(index, (block = find(named(names[index]!))));
+    return block;
+  };
   return {
     find,
     hasNestedRefs: (block) => nesting.has(block),
-    of: (row) => (isInsert(row) && table.block[row]! >= 0 ? find(named(names[table.block[row]!]!)) : null),
+    of: (row) => (isInsert(row) && table.block[row]! >= 0 ? ofName(table.block[row]!) : null),
   };
 }
 
