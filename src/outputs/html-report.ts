@@ -105,8 +105,9 @@ export function planSvg(result: Reviewed, overlay?: PlanOverlay): string {
   }
   const flowing = new Set(design.areas.filter((a) => a.rank === 'most-demanding').flatMap((a) => a.headIds));
   const r = unit * 1.1;
-  const ring = (p: Point) =>
-    `M${(Number(X(p)) - r).toFixed(3)} ${Y(p)}a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(2 * r).toFixed(3)} 0a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(-2 * r).toFixed(3)} 0`;
+  // A ring is two half arcs from its left point; the arcs are the same for every head (written once, not per head).
+  const arcs = `a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(2 * r).toFixed(3)} 0a${r.toFixed(3)} ${r.toFixed(3)} 0 1 0 ${(-2 * r).toFixed(3)} 0`;
+  const ring = (p: Point) => `M${(Number(X(p)) - r).toFixed(3)} ${Y(p)}${arcs}`;
   for (const [cls, heads] of [
     ['head', plan.heads.filter((h) => !flowing.has(h.id))],
     ['head flowing', plan.heads.filter((h) => flowing.has(h.id))],
