@@ -2,20 +2,23 @@
 // ATTRIB and SEQEND records included): numbers, handles and decoded texts, every call advancing, none looping.
 
 import { GroupCursor } from './groups.js';
+import { NameTable } from './name-table.js';
 import type { Decode } from './scan.js';
 import { decodeUnicodeEscapes } from './text-codes.js';
 
 export class EntityReader {
   private readonly c: GroupCursor;
   private end = 0;
-  /** Names decoded so far, by a hash of their bytes, with where those bytes were first read. */
-  private readonly names = new Map<number, { start: number; end: number; name: string }>();
+  private readonly nameTable: NameTable;
+  /** Each numbered name with its \U+ escapes decoded, once asked for. */
+  private readonly decodedNames: string[] = [];
 
   constructor(
     readonly bytes: Uint8Array,
     private readonly decode: Decode,
   ) {
     this.c = new GroupCursor(bytes);
+    this.nameTable = new NameTable(bytes, decode);
   }
 
   /** Stands on the first group after the "0 / TYPE" group that starts at `start`; groups end at `end`. */
@@ -55,30 +58,9 @@ export class EntityReader {
     return this.decode(this.bytes.subarray(this.c.valueStart, this.c.valueEnd));
   }
 
-  /**
-   * A layer or block name: text with \U+ escapes decoded. A drawing repeats a few names on every entity, so each
-   * is decoded once and found again by a hash of its bytes, compared byte for byte with where it was first read.
-   */
+  /** A layer or block name: text with \U+ escapes decoded (each distinct name once: a drawing repeats a few on every entity). */
   name(): string {
-    const { bytes } = this;
-    const start = this.c.valueStart;
-    const end = this.c.valueEnd;
-    let hash = end - start;
-    for (let i = start; i < end; i++) hash = (Math.imul(hash, 31) + bytes[i]!) | 0;
-    const known = this.names.get(hash);
-    if (known && sameBytes(bytes, known.start, start, end - start, known.end - known.start)) return known.name;
-    const name = decodeUnicodeEscapes(this.text());
-    if (!known && this.names.size < MAX_NAMES) this.names.set(hash, { start, end, name });
-    return name;
+    const k = this.nameTable.indexOf(this.c.valueStart, this.c.valueEnd);
+    return (this.decodedNames[k] ??= decodeUnicodeEscapes(this.nameTable.names[k]!));
   }
-}
-
-/** How many distinct names a reader keeps decoded (a drawing has a few dozen; a hostile one is only slower). */
-const MAX_NAMES = 4096;
-
-/** Whether the `length` bytes at `a` equal the `other` bytes at `b`. */
-function sameBytes(bytes: Uint8Array, a: number, b: number, length: number, other: number): boolean {
-  if (length !== other) return false;
-  for (let i = 0; i < length; i++) if (bytes[a + i] !== bytes[b + i]) return false;
-  return true;
 }

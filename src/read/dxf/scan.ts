@@ -6,6 +6,7 @@ import { fail, InputError } from '../../input-error.js';
 import { kindOf } from '../entities/registry.js';
 import { CLOSED, PAPER_SPACE, type BlockEntry, type EntityHandles, type EntityTable, type Rows } from '../source.js';
 import { GroupCursor, HighestHandle } from './groups.js';
+import { NameTable } from './name-table.js';
 
 export interface Section {
   name: string;
@@ -50,9 +51,6 @@ function tableWithRoom(capacity: number, from?: EntityTable): EntityTable {
   };
 }
 
-/** Names kept per hash of their bytes before the rest are looked up by text. */
-const BUCKET_SIZE = 8;
-
 /** Text of a byte range in the drawing's encoding. */
 export type Decode = (bytes: Uint8Array) => string;
 
@@ -87,28 +85,9 @@ export function scanDxf(
     }
     return true;
   };
-  // Entity types, layer and block names repeat across a drawing: each distinct name is decoded once and
-  // numbered, found again by a hash of its bytes (no string made per entity). Names beyond a few per hash
-  // (colliding on purpose: a hostile file) are found by their text instead, so a lookup stays cheap.
-  const names: string[] = [];
-  const byHash = new Map<number, { start: number; end: number; index: number }[]>();
-  const crowded = new Map<string, number>();
-  const nameIndex = (): number => {
-    const { valueStart: s, valueEnd: e } = c;
-    let h = e - s;
-    for (let i = s; i < e; i++) h = (Math.imul(h, 31) + bytes[i]!) | 0;
-    let bucket = byHash.get(h);
-    if (!bucket) byHash.set(h, (bucket = []));
-    for (const k of bucket) if (sameBytes(bytes, k.start, k.end, s, e)) return k.index;
-    const text = decode(bytes.subarray(s, e));
-    if (bucket.length >= BUCKET_SIZE) {
-      let index = crowded.get(text);
-      if (index === undefined) crowded.set(text, (index = names.push(text) - 1));
-      return index;
-    }
-    bucket.push({ start: s, end: e, index: names.length });
-    return names.push(text) - 1;
-  };
+  const nameTable = new NameTable(bytes, decode);
+  const { names } = nameTable;
+  const nameIndex = (): number => nameTable.indexOf(c.valueStart, c.valueEnd);
   const sharedName = () => names[nameIndex()]!;
   const value = () => c.latin1();
   /** The current code (a call, so that TypeScript does not narrow it across `next`). */
@@ -243,10 +222,4 @@ export function scanDxf(
   }
   out.entityHandles.top = handles.text();
   return { ...out, names, table };
-}
-
-function sameBytes(b: Uint8Array, s1: number, e1: number, s2: number, e2: number): boolean {
-  if (e1 - s1 !== e2 - s2) return false;
-  for (let i = 0; i < e1 - s1; i++) if (b[s1 + i] !== b[s2 + i]) return false;
-  return true;
 }
